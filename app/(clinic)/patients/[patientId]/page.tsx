@@ -1,0 +1,53 @@
+import Link from "next/link";
+import { notFound } from "next/navigation";
+import { AppShell } from "@/components/shell/app-shell";
+import { getPatient, listVisitsForPatient } from "@/db/queries/patients";
+import { recordAudit } from "@/db/queries/audit";
+import { scopeOf } from "@/lib/auth/guard";
+import { CLINICAL_ROLES, requirePageRole } from "@/lib/auth/page-guard";
+import { uuidParam } from "@/lib/http/route";
+
+export const metadata = { title: "Patient" };
+
+const POSITION_LABEL = { lithotomy: "Lithotomy", prone_jackknife: "Prone jack-knife", left_lateral: "Left lateral (Sims)" } as const;
+
+export default async function PatientPage({ params }: { params: Promise<{ patientId: string }> }) {
+  const user = await requirePageRole(CLINICAL_ROLES);
+  const id = uuidParam.safeParse((await params).patientId);
+  if (!id.success) notFound();
+  const scope = scopeOf(user);
+  const patient = await getPatient(scope, id.data);
+  if (!patient) notFound();
+  const visitList = await listVisitsForPatient(scope, patient.id);
+  await recordAudit({ userId: user.id, siteId: patient.siteId, patientId: patient.id, action: "patient.read" });
+  return (
+    <AppShell user={user}>
+      <p className="text-sm"><Link href="/patients" className="text-lagoon-700 underline">Patients</Link> /</p>
+      <h1 className="mt-1 text-2xl font-bold">{patient.familyName}, {patient.givenName}</h1>
+      <dl className="mt-3 grid grid-cols-2 gap-x-8 gap-y-1 text-sm sm:grid-cols-4">
+        <div><dt className="text-ink-soft">MRN</dt><dd className="font-semibold tabular-nums">{patient.mrn}</dd></div>
+        <div><dt className="text-ink-soft">Date of birth</dt><dd className="font-semibold tabular-nums">{patient.dateOfBirth}</dd></div>
+        <div><dt className="text-ink-soft">Sex at birth</dt><dd className="font-semibold">{patient.sexAtBirth}</dd></div>
+        <div><dt className="text-ink-soft">HIV status</dt><dd className="font-semibold">{patient.hivStatus}</dd></div>
+      </dl>
+      <h2 className="mt-8 text-lg font-bold">Visits</h2>
+      <p className="text-sm text-ink-soft">Oldest on the left in every timeline; here the newest visit is listed first.</p>
+      <table className="mt-2 w-full border-collapse rounded-lg bg-panel text-left">
+        <thead className="border-b border-rule bg-lagoon-50 text-sm">
+          <tr><th className="px-3 py-2">Date</th><th className="px-3 py-2">Examiner</th><th className="px-3 py-2">Position</th><th className="px-3 py-2">Record</th></tr>
+        </thead>
+        <tbody>
+          {visitList.map((v) => (
+            <tr key={v.id} className="border-b border-rule last:border-0">
+              <td className="px-3 py-2 font-semibold tabular-nums">{v.visitDate}</td>
+              <td className="px-3 py-2">{v.examinerName}</td>
+              <td className="px-3 py-2">{POSITION_LABEL[v.patientPosition]}</td>
+              <td className="px-3 py-2">{v.status === "signed" ? "Signed" : "Draft"}</td>
+            </tr>
+          ))}
+          {visitList.length === 0 ? <tr><td colSpan={4} className="px-3 py-6 text-center text-ink-soft">No visits yet.</td></tr> : null}
+        </tbody>
+      </table>
+    </AppShell>
+  );
+}

@@ -1,0 +1,34 @@
+import type { Role } from "@/lib/domain/vocab";
+
+export interface NavLink {
+  href: string;
+  label: string;
+}
+
+/** Only what is built is linked. */
+export function navLinksFor(role: Role): NavLink[] {
+  switch (role) {
+    case "clinician":
+    case "reviewer":
+      return [{ href: "/patients", label: "Patients" }];
+    case "admin":
+      return [
+        { href: "/patients", label: "Patients" },
+        { href: "/staff", label: "Staff" },
+      ];
+    case "research_nurse":
+      return [{ href: "/studies", label: "Studies" }];
+  }
+}
+
+export const ROLE_LABEL: Record<Role, string> = {
+  clinician: "Clinician",
+  reviewer: "Reviewer",
+  research_nurse: "Research nurse",
+  admin: "Administrator",
+};
+
+/** Where each role lands after sign-in. */
+export function homeFor(role: Role): string {
+  return role === "research_nurse" ? "/studies" : "/patients";
+}

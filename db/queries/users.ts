@@ -1,0 +1,62 @@
+import "server-only";
+import { and, eq, inArray, sql as dsql } from "drizzle-orm";
+import { db } from "../client";
+import { rateLimits, users, userSites } from "../schema";
+
+/** The only query that reads a password hash; it never leaves the auth service. */
+export async function findUserCredentials(email: string) {
+  const [row] = await db
+    .select({ id: users.id, passwordHash: users.passwordHash, active: users.active, role: users.role })
+    .from(users)
+    .where(eq(users.email, email.trim().toLowerCase()))
+    .limit(1);
+  return row ?? null;
+}
+
+export async function listSiteIdsForUser(userId: string): Promise<string[]> {
+  const rows = await db.select({ siteId: userSites.siteId }).from(userSites).where(eq(userSites.userId, userId));
+  return rows.map((r) => r.siteId);
+}
+
+export async function getUserPublic(userId: string) {
+  const [row] = await db
+    .select({ id: users.id, email: users.email, displayName: users.displayName, role: users.role, active: users.active })
+    .from(users)
+    .where(and(eq(users.id, userId)))
+    .limit(1);
+  return row ?? null;
+}
+
+export async function setDisplayConvention(userId: string, convention: "lithotomy" | "prone_jackknife" | "left_lateral") {
+  await db.update(users).set({ displayConvention: convention }).where(eq(users.id, userId));
+}
+
+/**
+ * Fixed-window counter shared by every app instance. Returns the count in the current window
+ * after this hit.
+ */
+export async function hitRateLimit(key: string, windowSeconds: number): Promise<number> {
+  const rows = await db
+    .insert(rateLimits)
+    .values({ key, windowStart: new Date(), count: 1 })
+    .onConflictDoUpdate({
+      target: rateLimits.key,
+      set: {
+        count: dsql`case when ${rateLimits.windowStart} < now() - make_interval(secs => ${windowSeconds}) then 1 else ${rateLimits.count} + 1 end`,
+        windowStart: dsql`case when ${rateLimits.windowStart} < now() - make_interval(secs => ${windowSeconds}) then now() else ${rateLimits.windowStart} end`,
+      },
+    })
+    .returning({ count: rateLimits.count });
+  return rows[0]?.count ?? 1;
+}
+
+/** Staff who share at least one site with the caller. Never returns a password hash. */
+export async function listStaff(siteIds: string[]) {
+  if (siteIds.length === 0) return [];
+  return db
+    .selectDistinct({ id: users.id, email: users.email, displayName: users.displayName, role: users.role, active: users.active })
+    .from(users)
+    .innerJoin(userSites, eq(userSites.userId, users.id))
+    .where(inArray(userSites.siteId, siteIds))
+    .orderBy(users.displayName);
+}

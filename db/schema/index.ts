@@ -1,0 +1,4 @@
+export * from "./enums";
+export * from "./accounts";
+export * from "./clinical";
+export * from "./research";

@@ -1,0 +1,14 @@
+import "server-only";
+import { redirect } from "next/navigation";
+import type { Role } from "@/lib/domain/vocab";
+import { getCurrentUser, type CurrentUser } from "./guard";
+
+/** For pages: no session → sign-in; a role that may not open the page → the no-access page. */
+export async function requirePageRole(roles: readonly Role[] | "any"): Promise<CurrentUser> {
+  const user = await getCurrentUser();
+  if (!user) redirect("/sign-in");
+  if (roles !== "any" && !roles.includes(user.role)) redirect("/no-access");
+  return user;
+}
+
+export const CLINICAL_ROLES = ["clinician", "reviewer", "admin"] as const satisfies readonly Role[];

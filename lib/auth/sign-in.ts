@@ -1,0 +1,37 @@
+import "server-only";
+import { findUserCredentials, hitRateLimit } from "@/db/queries/users";
+import { recordAudit } from "@/db/queries/audit";
+import { AppError } from "@/lib/errors";
+import type { Role } from "@/lib/domain/vocab";
+import { dummyHash, verifyPassword } from "./password";
+import { createSession } from "./session";
+
+// Per account and per address, fixed 15-minute windows (common practice, no source).
+export const SIGN_IN_LIMITS = { perAccount: 10, perAddress: 50, windowSeconds: 15 * 60 } as const;
+
+/**
+ * Checks the password and opens a new session (a new id every time, so a session id planted
+ * before sign-in is never promoted). The answer is the same for an unknown address and a wrong
+ * password.
+ */
+export async function signIn(email: string, password: string, ip: string): Promise<{ sessionId: string; userId: string; role: Role }> {
+  const [accountHits, addressHits] = await Promise.all([
+    hitRateLimit(`sign-in:account:${email}`, SIGN_IN_LIMITS.windowSeconds),
+    hitRateLimit(`sign-in:ip:${ip}`, SIGN_IN_LIMITS.windowSeconds),
+  ]);
+  if (accountHits > SIGN_IN_LIMITS.perAccount || addressHits > SIGN_IN_LIMITS.perAddress) {
+    await recordAudit({ action: "sign_in.rate_limited", ip, detail: { email } });
+    throw new AppError("rate_limited");
+  }
+  const account = await findUserCredentials(email);
+  const ok = account?.passwordHash
+    ? await verifyPassword(account.passwordHash, password)
+    : (await verifyPassword(await dummyHash(), password), false);
+  if (!account || !ok || !account.active) {
+    await recordAudit({ userId: account?.id ?? null, action: "sign_in.failed", ip, detail: { email } });
+    throw new AppError("unauthenticated", "That e-mail and password do not match an active account.");
+  }
+  const sessionId = await createSession(account.id);
+  await recordAudit({ userId: account.id, action: "sign_in.succeeded", ip });
+  return { sessionId, userId: account.id, role: account.role };
+}

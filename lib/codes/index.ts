@@ -1,0 +1,3 @@
+export * from "./icd10cm";
+export * from "./last";
+export * from "./suggest-codes";

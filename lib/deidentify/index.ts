@@ -1,0 +1,3 @@
+export * from "./calendar";
+export * from "./safe-harbor";
+export * from "./deidentify-patient";

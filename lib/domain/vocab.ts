@@ -1,0 +1,127 @@
+// The controlled vocabulary shared by the schema, the validation schemas and the UI.
+// Trade terms (LAST/Bethesda grades, anatomical words) are kept as the trade uses them;
+// everything else is our own plain wording. Pure: no I/O.
+
+export const ROLES = ["clinician", "reviewer", "research_nurse", "admin"] as const;
+export type Role = (typeof ROLES)[number];
+
+/** How the patient lay during the exam; decides how clock numbers are read. */
+export const POSITIONS = ["lithotomy", "prone_jackknife", "left_lateral"] as const;
+export type Position = (typeof POSITIONS)[number];
+
+/** Impression grade at the exam (LAST two-tier terms plus condyloma and suspected cancer). */
+export const GRADES = ["benign", "condyloma", "lsil", "hsil", "suspected_cancer"] as const;
+export type Grade = (typeof GRADES)[number];
+
+/** Histology in LAST terms (Darragh TM et al., Arch Pathol Lab Med 2012;136:1266-97). */
+export const HISTOLOGY = ["benign", "lsil", "hsil", "scc"] as const;
+export type Histology = (typeof HISTOLOGY)[number];
+
+export const AIN_GRADES = ["ain1", "ain2", "ain3"] as const;
+export type AinGrade = (typeof AIN_GRADES)[number];
+
+export const P16 = ["block_positive", "not_block", "negative", "not_done"] as const;
+export type P16 = (typeof P16)[number];
+
+/** Bethesda categories for anal cytology (Darragh & Winkler, Sexual Health 2012) plus unsatisfactory. */
+export const CYTOLOGY = ["nilm", "asc_us", "asc_h", "lsil", "hsil", "scc", "unsatisfactory", "not_done"] as const;
+export type Cytology = (typeof CYTOLOGY)[number];
+
+export const HPV_RESULTS = ["not_done", "negative", "hr_positive_16", "hr_positive_other", "lr_positive"] as const;
+export type HpvResult = (typeof HPV_RESULTS)[number];
+
+/** Squamocolumnar junction seen fully / partially / not at all. */
+export const ADEQUACY = ["scj_full", "scj_partial", "scj_not_seen"] as const;
+export type Adequacy = (typeof ADEQUACY)[number];
+
+/** Surface contour (Jay N et al., Dis Colon Rectum 1997). */
+export const MORPHOLOGY = ["flat", "raised", "papillary", "ulcerated"] as const;
+export type Morphology = (typeof MORPHOLOGY)[number];
+
+export const ACETOWHITE = ["none", "faint", "dense"] as const;
+export type Acetowhite = (typeof ACETOWHITE)[number];
+
+/** Lugol's iodine uptake: negative (unstained, yellow), partial, positive (brown). */
+export const LUGOL = ["not_applied", "negative", "partial", "positive"] as const;
+export type Lugol = (typeof LUGOL)[number];
+
+export const VESSELS = ["punctation", "mosaic", "atypical"] as const;
+export type Vessel = (typeof VESSELS)[number];
+
+/** Zones by distance from the verge; perianal skin lies outside the verge. */
+export const ZONES = ["perianal", "distal_canal", "transformation_zone", "proximal_canal", "distal_rectum"] as const;
+export type Zone = (typeof ZONES)[number];
+
+export const MODALITIES = [
+  "electrocautery",
+  "infrared_coagulation",
+  "laser",
+  "surgical_excision",
+  "topical_imiquimod",
+  "topical_fluorouracil",
+  "topical_cidofovir",
+  "other",
+] as const;
+export type Modality = (typeof MODALITIES)[number];
+
+export const ANAESTHETIC_AGENTS = ["lidocaine", "bupivacaine"] as const;
+export type AnaestheticAgent = (typeof ANAESTHETIC_AGENTS)[number];
+
+export const TRACK_STATUSES = ["new", "persistent", "regressed", "progressed", "cleared", "recurrent"] as const;
+export type TrackStatus = (typeof TRACK_STATUSES)[number];
+
+/** What the examiner recorded for a previous track at a follow-up visit. */
+export const TRACK_CHECK_OUTCOMES = ["not_found", "treated"] as const;
+
+export const SEX_AT_BIRTH = ["female", "male", "intersex", "unknown"] as const;
+export const HIV_STATUS = ["positive", "negative", "unknown"] as const;
+/** Risk groups as the IANS 2024 screening consensus distinguishes them (Stier EA et al., Int J Cancer 2024). */
+export const RISK_GROUPS = [
+  "msm_tw_hiv", // men who have sex with men and transgender women, living with HIV
+  "other_hiv", // other people living with HIV
+  "msm_tw_no_hiv", // MSM and transgender women without HIV
+  "solid_organ_transplant",
+  "vulvar_hsil_or_cancer",
+  "cervical_vaginal_hsil_or_cancer",
+  "perianal_warts",
+  "persistent_cervical_hpv16",
+  "other",
+] as const;
+export type RiskGroup = (typeof RISK_GROUPS)[number];
+
+export const COMPLICATION_KINDS = ["pain", "bleeding", "other"] as const;
+export const SEVERITIES = ["mild", "moderate", "severe"] as const;
+
+export const VISIT_STATUSES = ["draft", "signed"] as const;
+
+/** Rank of a grade for progression and regression (higher is worse). Common practice, no source. */
+export const GRADE_RANK: Record<Grade, number> = {
+  benign: 0,
+  condyloma: 1,
+  lsil: 2,
+  hsil: 3,
+  suspected_cancer: 4,
+};
+
+export const GRADE_LABEL: Record<Grade, string> = {
+  benign: "Benign / normal",
+  condyloma: "Condyloma",
+  lsil: "LSIL",
+  hsil: "HSIL",
+  suspected_cancer: "Suspected cancer",
+};
+
+export const HISTOLOGY_LABEL: Record<Histology, string> = {
+  benign: "Benign",
+  lsil: "LSIL",
+  hsil: "HSIL",
+  scc: "Squamous cell carcinoma",
+};
+
+/** Histology mapped onto the impression scale so that histology can decide the grade for tracking. */
+export const HISTOLOGY_AS_GRADE: Record<Histology, Grade> = {
+  benign: "benign",
+  lsil: "lsil",
+  hsil: "hsil",
+  scc: "suspected_cancer",
+};

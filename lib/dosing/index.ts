@@ -1,0 +1,2 @@
+export * from "./anaesthetic";
+export * from "./extent";

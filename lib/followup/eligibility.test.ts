@@ -1,0 +1,56 @@
+import { describe, expect, it } from "vitest";
+import { screeningSuggestion } from "./eligibility";
+
+// IANS 2024 consensus: Stier EA et al., Int J Cancer 2024;154:1694-1702 (domain.md §5).
+
+describe("screeningSuggestion by age", () => {
+  it("starts MSM and transgender women with HIV at 35, not a day before", () => {
+    const base = { riskGroup: "msm_tw_hiv", dob: "1990-03-15" } as const;
+    const before = screeningSuggestion({ ...base, today: "2025-02-14" }); // 34 years 11 months
+    expect(before.eligibleNow).toBe(false);
+    expect(before.startDate).toBe("2025-03-15");
+    expect(screeningSuggestion({ ...base, today: "2025-03-14" }).eligibleNow).toBe(false);
+    expect(screeningSuggestion({ ...base, today: "2025-03-15" }).eligibleNow).toBe(true);
+  });
+  it("starts other people with HIV, and MSM/TW without HIV, at 45", () => {
+    for (const riskGroup of ["other_hiv", "msm_tw_no_hiv"] as const) {
+      expect(screeningSuggestion({ riskGroup, dob: "1980-06-01", today: "2025-05-31" }).eligibleNow).toBe(false); // 44
+      expect(screeningSuggestion({ riskGroup, dob: "1980-06-01", today: "2025-06-01" }).eligibleNow).toBe(true); // 45
+    }
+  });
+  it("starts the cervical, warts and HPV16 groups at 45 with shared decision-making", () => {
+    // From memory: domain.md §5 notes the stored abstract was cut off for these groups.
+    const s = screeningSuggestion({ riskGroup: "perianal_warts", dob: "1979-01-10", today: "2024-01-10" });
+    expect(s.eligibleNow).toBe(true);
+    expect(s.reason).toMatch(/shared decision/);
+  });
+  it("handles a 29 February birthday as turning 35 on 1 March", () => {
+    // Completed years (common practice, no source).
+    expect(screeningSuggestion({ riskGroup: "msm_tw_hiv", dob: "1988-02-29", today: "2023-02-28" }).startDate).toBe("2023-03-01");
+  });
+});
+
+describe("screeningSuggestion by event", () => {
+  it("starts transplant recipients 10 years after transplant", () => {
+    const base = { riskGroup: "solid_organ_transplant", dob: "1990-01-01", transplantDate: "2014-09-30" } as const;
+    expect(screeningSuggestion({ ...base, today: "2024-09-29" }).eligibleNow).toBe(false);
+    expect(screeningSuggestion({ ...base, today: "2024-09-30" })).toMatchObject({ eligibleNow: true, startDate: "2024-09-30" });
+  });
+  it("asks for the transplant date rather than guessing", () => {
+    const s = screeningSuggestion({ riskGroup: "solid_organ_transplant", dob: "1990-01-01", today: "2024-01-01" });
+    expect(s).toMatchObject({ eligibleNow: false, startDate: null });
+  });
+  it("suggests screening within a year of a vulvar HSIL diagnosis", () => {
+    const s = screeningSuggestion({ riskGroup: "vulvar_hsil_or_cancer", dob: "1985-04-04", today: "2024-05-01", diagnosisDate: "2024-03-20" });
+    expect(s).toMatchObject({ eligibleNow: true, startDate: "2024-03-20" });
+    expect(s.reason).toContain("2025-03-20");
+  });
+  it("offers nothing for a patient in no group", () => {
+    expect(screeningSuggestion({ riskGroup: "other", dob: "1950-01-01", today: "2024-01-01" })).toMatchObject({ eligibleNow: false, startDate: null });
+  });
+  it("always defers to local guidelines and the clinician", () => {
+    for (const riskGroup of ["msm_tw_hiv", "other", "solid_organ_transplant"] as const) {
+      expect(screeningSuggestion({ riskGroup, dob: "1970-01-01", today: "2024-01-01" }).caution).toMatch(/local guidelines.*clinician/);
+    }
+  });
+});

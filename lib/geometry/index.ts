@@ -1,0 +1,4 @@
+export * from "./clock";
+export * from "./conventions";
+export * from "./arcs";
+export * from "./zones";

@@ -1,0 +1,96 @@
+import "server-only";
+import { z } from "zod";
+import { userFromRequest, requireRole, type CurrentUser } from "@/lib/auth/guard";
+import { clientIp, originAllowed } from "@/lib/auth/request-info";
+import { AppError, errorToBody } from "@/lib/errors";
+import type { Role } from "@/lib/domain/vocab";
+
+export interface RouteArgs<P> {
+  req: Request;
+  user: CurrentUser;
+  params: P;
+  ip: string;
+}
+
+export interface RouteOptions {
+  /** Who may call it. Every route declares this; the access matrix test reads it. */
+  roles: readonly Role[] | "any";
+}
+
+type Handler<P> = (args: RouteArgs<P>) => Promise<Response | object | null>;
+
+const MUTATING = new Set(["POST", "PUT", "PATCH", "DELETE"]);
+
+export function json(body: unknown, status = 200, headers?: HeadersInit): Response {
+  return Response.json(body, { status, headers: { "cache-control": "no-store", ...headers } });
+}
+
+/**
+ * The one way to write a route handler: origin check on mutations, session, role,
+ * then the handler; every failure becomes the same JSON error shape.
+ */
+export function route<P = Record<string, never>>(opts: RouteOptions, handler: Handler<P>) {
+  const wrapped = async (req: Request, ctx?: { params?: Promise<P> }): Promise<Response> => {
+    try {
+      if (MUTATING.has(req.method) && !originAllowed(req.headers)) {
+        throw new AppError("forbidden", "This request did not come from a Dentate page.");
+      }
+      const user = requireRole(await userFromRequest(req), opts.roles);
+      const params = ((await ctx?.params) ?? {}) as P;
+      const result = await handler({ req, user, params, ip: clientIp(req.headers) });
+      if (result instanceof Response) return result;
+      return json(result ?? { ok: true });
+    } catch (err) {
+      const { status, body } = errorToBody(err);
+      return json(body, status);
+    }
+  };
+  (wrapped as unknown as { dentateRoles: RouteOptions["roles"] }).dentateRoles = opts.roles;
+  return wrapped;
+}
+
+export function fieldErrors(error: z.ZodError): Record<string, string[]> {
+  const out: Record<string, string[]> = {};
+  for (const issue of error.issues) {
+    const key = issue.path.length ? issue.path.join(".") : "_";
+    (out[key] ??= []).push(issue.message);
+  }
+  return out;
+}
+
+export function parseWith<S extends z.ZodType>(schema: S, value: unknown): z.infer<S> {
+  const r = schema.safeParse(value);
+  if (!r.success) throw new AppError("invalid", undefined, fieldErrors(r.error));
+  return r.data;
+}
+
+const MAX_JSON_BYTES = 256 * 1024;
+
+/** Reads a JSON body with a size limit and validates it; bad input is a 400 with field messages. */
+export async function readJson<S extends z.ZodType>(req: Request, schema: S): Promise<z.infer<S>> {
+  const declared = Number(req.headers.get("content-length") ?? 0);
+  if (declared > MAX_JSON_BYTES) throw new AppError("too_large", "The request body is too large.");
+  const text = await req.text();
+  if (text.length > MAX_JSON_BYTES) throw new AppError("too_large", "The request body is too large.");
+  let value: unknown;
+  try {
+    value = text.length ? JSON.parse(text) : undefined;
+  } catch {
+    throw new AppError("invalid", "The request body is not valid JSON.", { _: ["Not valid JSON."] });
+  }
+  return parseWith(schema, value);
+}
+
+export function readQuery<S extends z.ZodType>(req: Request, schema: S): z.infer<S> {
+  const params = Object.fromEntries(new URL(req.url).searchParams.entries());
+  return parseWith(schema, params);
+}
+
+export const uuidParam = z.string().uuid("Not a valid id.");
+
+/** A malformed id names no record: answer as for a record that does not exist. */
+export function idParam(value: unknown): string {
+  const r = uuidParam.safeParse(value);
+  if (!r.success) throw new AppError("not_found");
+  return r.data;
+}

@@ -1,0 +1,8 @@
+export {
+  kaplanMeier,
+  medianSurvival,
+  numbersAtRisk,
+  survivalAt,
+  type SurvivalItem,
+  type SurvivalStep,
+} from "./kaplan-meier";
