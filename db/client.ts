@@ -9,6 +9,13 @@ function databaseUrl(): string {
   return url;
 }
 
+// Query listeners: instrumentation (slow-query logging, query counting in tests and benchmarks).
+const queryListeners = new Set<(query: string) => void>();
+export function onQuery(listener: (query: string) => void): () => void {
+  queryListeners.add(listener);
+  return () => queryListeners.delete(listener);
+}
+
 // One pool per process, reused across hot reloads in development.
 const globalForDb = globalThis as unknown as { __dentateSql?: postgres.Sql };
 
@@ -19,6 +26,9 @@ export const sql: postgres.Sql =
     idle_timeout: 30,
     connect_timeout: 5,
     onnotice: () => {},
+    debug: (_connection, query) => {
+      for (const l of queryListeners) l(query);
+    },
   });
 if (process.env.NODE_ENV !== "production") globalForDb.__dentateSql = sql;
 

@@ -2,7 +2,7 @@ import { defineConfig } from "vitest/config";
 import react from "@vitejs/plugin-react";
 import path from "node:path";
 
-const root = path.resolve(__dirname, "..");
+const root = path.resolve(import.meta.dirname, "..");
 const alias = { "@": root, "server-only": path.join(root, "tests/support/server-only-stub.ts") };
 
 // Four layers, one config. Integration and e2e need the database and app that

@@ -1,0 +1,5 @@
+import { resolveAdjudication } from "@/db/queries/reviews";
+import { scopeOf } from "@/lib/auth/guard";
+import { idParam, route } from "@/lib/http/route";
+
+export const POST = route<{ adjudicationId: string }>({ roles: ["clinician", "admin"] }, async ({ user, params, ip }) => resolveAdjudication(scopeOf(user), idParam(params.adjudicationId), ip));

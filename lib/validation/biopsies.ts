@@ -1,0 +1,24 @@
+import { z } from "zod";
+import { AIN_GRADES, HISTOLOGY, P16 } from "@/lib/domain/vocab";
+
+/** A biopsy is taken from a mapped lesion, or from a clock position and distance. */
+export const createBiopsySchema = z.union(
+  [
+    z.object({ lesionId: z.string().uuid("Not a valid lesion.") }).strict(),
+    z
+      .object({
+        clockH: z.number({ message: "Clock position must be a number of hours." }).min(0).lt(12, "Clock hours run from 0 up to 12."),
+        distanceCm: z.number({ message: "Distance must be a number of cm." }).min(-5, "Perianal skin reaches 5 cm outside the verge.").max(15),
+      })
+      .strict(),
+  ],
+  { message: "Give either a lesion, or a clock position and a distance." },
+);
+export type CreateBiopsyInput = z.infer<typeof createBiopsySchema>;
+
+export const histologyResultSchema = z.object({
+  histology: z.enum(HISTOLOGY, { message: "Choose benign, LSIL, HSIL or squamous cell carcinoma." }),
+  ainGrade: z.enum(AIN_GRADES, { message: "Choose AIN1, AIN2 or AIN3." }).nullable().optional(),
+  p16: z.enum(P16, { message: "Choose the p16 result." }).nullable().optional(),
+});
+export type HistologyResultInput = z.infer<typeof histologyResultSchema>;

@@ -1,0 +1,37 @@
+import { z } from "zod";
+import { TRACK_CHECK_OUTCOMES, TRACK_STATUSES } from "@/lib/domain/vocab";
+
+const id = (what: string) => z.string().uuid(`Not a valid ${what}.`);
+
+/** The clinician confirms, relinks, splits or merges tracks, and marks earlier tracks not found. */
+export const trackActionSchema = z.discriminatedUnion(
+  "action",
+  [
+    z.object({ action: z.literal("link"), lesionId: id("lesion"), trackId: id("track") }),
+    z.object({ action: z.literal("split"), lesionId: id("lesion") }),
+    z.object({ action: z.literal("merge"), trackId: id("track"), intoTrackId: id("track") }),
+    z.object({ action: z.literal("check"), trackId: id("track"), outcome: z.enum(TRACK_CHECK_OUTCOMES, { message: "Choose not found or treated." }) }),
+    z.object({ action: z.literal("uncheck"), trackId: id("track") }),
+  ],
+  { message: "Choose link, split, merge, check or uncheck." },
+);
+export type TrackAction = z.infer<typeof trackActionSchema>;
+
+export const requestReviewSchema = z.object({
+  visitId: id("visit"),
+  comparedVisitId: id("visit").nullable().optional(),
+  reviewerId: z.string().min(1, "Choose a reviewer.").max(100),
+});
+
+export const adjudicationSchema = z
+  .object({
+    trackId: id("track"),
+    verdict: z.enum(["agree", "disagree"], { message: "Choose agree or disagree." }),
+    proposedStatus: z.enum(TRACK_STATUSES, { message: "Choose the status you believe." }).nullable().optional(),
+    comment: z.string().trim().max(2000, "Keep the comment under 2,000 characters.").nullable().optional(),
+  })
+  .refine((a) => a.verdict === "agree" || (a.proposedStatus && a.comment), {
+    message: "A disagreement needs the status you believe and a comment.",
+    path: ["comment"],
+  });
+export type AdjudicationInput = z.infer<typeof adjudicationSchema>;

@@ -1,0 +1,113 @@
+import { beforeAll, describe, expect, it } from "vitest";
+import { count, eq } from "drizzle-orm";
+import { db } from "@/db/client";
+import { lesions, trackStatuses, visits } from "@/db/schema";
+import { GET, POST } from "@/app/api/visits/[visitId]/lesions/route";
+import { DELETE, PATCH } from "@/app/api/visits/[visitId]/lesions/[lesionId]/route";
+import { actor, ctx, makePatient, makeSite, req, type Actor } from "../fixtures/factory";
+
+let siteA: string, siteB: string, patientId: string, visitId: string, signedVisitId: string;
+let clinician: Actor, reviewer: Actor, nurse: Actor, other: Actor;
+
+const body = { clockStartH: 1, clockEndH: 3, distanceStartCm: 1, distanceEndCm: 2, grade: "hsil" };
+
+async function lesionCount(v: string) {
+  const [r] = await db.select({ n: count() }).from(lesions).where(eq(lesions.visitId, v));
+  return r!.n;
+}
+
+beforeAll(async () => {
+  siteA = (await makeSite()).id;
+  siteB = (await makeSite()).id;
+  clinician = await actor("clinician", [siteA]);
+  reviewer = await actor("reviewer", [siteA]);
+  nurse = await actor("research_nurse", [siteA]);
+  other = await actor("clinician", [siteB]);
+  patientId = (await makePatient(siteA)).id;
+  const [v] = await db.insert(visits).values({ patientId, siteId: siteA, visitDate: "2026-03-01", examinerId: clinician.userId }).returning();
+  visitId = v!.id;
+  const [s] = await db.insert(visits).values({ patientId, siteId: siteA, visitDate: "2025-09-01", examinerId: clinician.userId, status: "signed", signedAt: new Date() }).returning();
+  signedVisitId = s!.id;
+});
+
+describe("lesions route", () => {
+  it("creates a lesion in the stored frame, with a zone, a label and a new track with status 'new'", async () => {
+    const res = await POST(req("POST", `/api/visits/${visitId}/lesions`, clinician, body), ctx({ visitId }));
+    expect(res.status).toBe(201);
+    const { lesion } = await res.json();
+    expect(lesion).toMatchObject({ clockStartH: 1, clockEndH: 3, distanceStartCm: 1, distanceEndCm: 2, grade: "hsil", label: "L1", version: 1 });
+    // 1.5 cm from the verge is at the dentate line (1–2 cm above the verge, HPO HP:0030440),
+    // inside the transformation zone around it (Fenger; Sleisenger & Fordtran).
+    expect(lesion.zone).toBe("transformation_zone");
+    const statuses = await db.select().from(trackStatuses).where(eq(trackStatuses.trackId, lesion.trackId));
+    expect(statuses.map((s) => s.status)).toEqual(["new"]);
+  });
+
+  it("places a perianal lesion outside the verge in the perianal zone (AJCC 8th: within 5 cm of the verge)", async () => {
+    const res = await POST(req("POST", `/api/visits/${visitId}/lesions`, clinician, { ...body, distanceStartCm: -3, distanceEndCm: -2 }), ctx({ visitId }));
+    expect((await res.json()).lesion.zone).toBe("perianal");
+  });
+
+  it("keeps an arc across 12 o'clock as given (11 to 1)", async () => {
+    const res = await POST(req("POST", `/api/visits/${visitId}/lesions`, clinician, { ...body, clockStartH: 11, clockEndH: 1 }), ctx({ visitId }));
+    const { lesion } = await res.json();
+    expect([lesion.clockStartH, lesion.clockEndH]).toEqual([11, 1]);
+  });
+
+  it("updates with the current version and answers 409 to a stale version", async () => {
+    const { lesion } = await (await POST(req("POST", `/api/visits/${visitId}/lesions`, clinician, body), ctx({ visitId }))).json();
+    const ok = await PATCH(req("PATCH", "/x", clinician, { version: 1, grade: "lsil" }), ctx({ visitId, lesionId: lesion.id }));
+    expect(ok.status).toBe(200);
+    expect((await ok.json()).lesion).toMatchObject({ grade: "lsil", version: 2 });
+    const stale = await PATCH(req("PATCH", "/x", clinician, { version: 1, grade: "condyloma" }), ctx({ visitId, lesionId: lesion.id }));
+    expect(stale.status).toBe(409);
+    const [row] = await db.select().from(lesions).where(eq(lesions.id, lesion.id));
+    expect(row!.grade).toBe("lsil");
+  });
+
+  it("deletes with the current version only", async () => {
+    const { lesion } = await (await POST(req("POST", `/api/visits/${visitId}/lesions`, clinician, body), ctx({ visitId }))).json();
+    expect((await DELETE(req("DELETE", `/x?version=9`, clinician), ctx({ visitId, lesionId: lesion.id }))).status).toBe(409);
+    expect((await DELETE(req("DELETE", `/x?version=1`, clinician), ctx({ visitId, lesionId: lesion.id }))).status).toBe(200);
+    expect(await db.select().from(lesions).where(eq(lesions.id, lesion.id))).toHaveLength(0);
+  });
+
+  it("answers 400 with field messages for bad input and writes nothing", async () => {
+    const before = await lesionCount(visitId);
+    for (const bad of [
+      { ...body, clockStartH: 12 },
+      { ...body, clockStartH: "3" },
+      { ...body, distanceStartCm: 3, distanceEndCm: 1 },
+      { ...body, grade: "AIN9" },
+      { ...body, distanceStartCm: -9 },
+      {},
+    ]) {
+      const res = await POST(req("POST", `/api/visits/${visitId}/lesions`, clinician, bad), ctx({ visitId }));
+      expect(res.status).toBe(400);
+      expect(Object.keys((await res.json()).error.fields ?? {}).length).toBeGreaterThan(0);
+    }
+    expect(await lesionCount(visitId)).toBe(before);
+  });
+
+  it("lets reviewers and research nurses read but not write (403)", async () => {
+    expect((await GET(req("GET", "/x", reviewer), ctx({ visitId }))).status).toBe(200);
+    expect((await GET(req("GET", "/x", nurse), ctx({ visitId }))).status).toBe(200);
+    expect((await POST(req("POST", "/x", reviewer, body), ctx({ visitId }))).status).toBe(403);
+    expect((await POST(req("POST", "/x", nurse, body), ctx({ visitId }))).status).toBe(403);
+  });
+
+  it("hides another site's visit (404) on read and write", async () => {
+    const before = await lesionCount(visitId);
+    expect((await GET(req("GET", "/x", other), ctx({ visitId }))).status).toBe(404);
+    expect((await POST(req("POST", "/x", other, body), ctx({ visitId }))).status).toBe(404);
+    expect(await lesionCount(visitId)).toBe(before);
+  });
+
+  it("refuses changes to a signed visit with 423 and says so; the map reads as read-only", async () => {
+    const res = await POST(req("POST", "/x", clinician, body), ctx({ visitId: signedVisitId }));
+    expect(res.status).toBe(423);
+    expect((await res.json()).error.message).toMatch(/signed/i);
+    const map = await (await GET(req("GET", "/x", clinician), ctx({ visitId: signedVisitId }))).json();
+    expect(map.visit.readOnly).toBe(true);
+  });
+});
