@@ -3,9 +3,14 @@
 # throwaway database per run, then typecheck, unit, component, integration and end-to-end tests.
 # Ends with one line: "N passed, N failed" (", N skipped" when any).
 source "$(dirname "$0")/lib/common.sh"
+source "$(dirname "$0")/lib/fake-s3.sh"
+source "$(dirname "$0")/lib/fake-mail.sh"
 
 PG_PORT="${DENTATE_TEST_PG_PORT:-54339}"
 APP_PORT="${DENTATE_TEST_PORT:-3100}"
+S3_PORT="${DENTATE_TEST_S3_PORT:-4579}"
+SMTP_TEST_PORT="${DENTATE_TEST_SMTP_PORT:-1035}"
+MAIL_WEB_TEST_PORT="${DENTATE_TEST_MAIL_WEB_PORT:-1090}"
 RUN_ID="$(date +%s)_$$"
 DB="dentate_t_$RUN_ID"
 OUT="$(mktemp -d /tmp/dentate-test-XXXXXX)"
@@ -24,13 +29,20 @@ export DENTATE_BASE_URL="http://127.0.0.1:$APP_PORT"
 export DENTATE_DIST_DIR=".next-test"
 
 APP_PID=""
+WORKER_PID=""
 cleanup() {
   [ -n "$APP_PID" ] && kill "$APP_PID" 2>/dev/null && wait "$APP_PID" 2>/dev/null
+  [ -n "$WORKER_PID" ] && kill "$WORKER_PID" 2>/dev/null && wait "$WORKER_PID" 2>/dev/null
+  stop_s3_fake
+  stop_mail_fake
   psql_super "$PG_PORT" -d postgres -c "drop database if exists $DB with (force)" >/dev/null 2>&1 || true
 }
 trap cleanup EXIT
 
 cd "$ROOT"
+rm -rf "$OUT/s3"
+start_s3_fake "$S3_PORT" "$OUT/s3" "dentate-test"
+export APP_BASE_URL="$DENTATE_BASE_URL"
 extra_failed=0
 # A step without its own test report (typecheck, build) counts as one failure when it fails.
 step() { local name="$1"; shift; log "$name"; if ! "$@"; then log "FAILED: $name"; extra_failed=$((extra_failed + 1)); fi; }
@@ -47,8 +59,13 @@ layer "integration tests" $VITEST --project integration --reporter=default --rep
 
 log "building the app for end-to-end tests"
 if node_modules/.bin/next build >"$OUT/build.log" 2>&1; then
+  # The end-to-end layer gets its own fake inbox and the mail worker (integration tests that need
+  # SMTP start private ones, and no worker may drain their outbox meanwhile).
+  start_mail_fake "$SMTP_TEST_PORT" "$MAIL_WEB_TEST_PORT" "$OUT/mail"
   node_modules/.bin/next start -H 127.0.0.1 -p "$APP_PORT" >"$OUT/app.log" 2>&1 &
   APP_PID=$!
+  MAIL_WORKER_INTERVAL_MS=500 node_modules/.bin/tsx --conditions=react-server scripts/mail-worker.ts >"$OUT/mail-worker.log" 2>&1 &
+  WORKER_PID=$!
   wait_http "$DENTATE_BASE_URL/sign-in" 60
   layer "end-to-end tests" $VITEST --project e2e --reporter=default --reporter=json --outputFile.json="$OUT/e2e.json"
 else

@@ -9,12 +9,24 @@ export interface NavLink {
 export function navLinksFor(role: Role): NavLink[] {
   switch (role) {
     case "clinician":
+      return [
+        { href: "/patients", label: "Patients" },
+        { href: "/worklist", label: "Worklist" },
+        { href: "/biopsies", label: "Biopsies" },
+      ];
     case "reviewer":
-      return [{ href: "/patients", label: "Patients" }];
+      return [
+        { href: "/patients", label: "Patients" },
+        { href: "/worklist", label: "Worklist" },
+      ];
     case "admin":
       return [
         { href: "/patients", label: "Patients" },
+        { href: "/worklist", label: "Worklist" },
+        { href: "/biopsies", label: "Biopsies" },
         { href: "/staff", label: "Staff" },
+        { href: "/followup-rules", label: "Follow-up rules" },
+        { href: "/audit", label: "Audit" },
       ];
     case "research_nurse":
       return [{ href: "/studies", label: "Studies" }];

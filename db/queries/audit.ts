@@ -1,5 +1,5 @@
 import "server-only";
-import { db } from "../client";
+import { db, type Db, type Tx } from "../client";
 import { auditEvents } from "../schema";
 
 export interface AuditInput {
@@ -13,8 +13,9 @@ export interface AuditInput {
   detail?: Record<string, unknown>;
 }
 
-export async function recordAudit(e: AuditInput): Promise<void> {
-  await db.insert(auditEvents).values({
+/** Pass the transaction when the event belongs to a change, so both commit or neither does. */
+export async function recordAudit(e: AuditInput, run: Db | Tx = db): Promise<void> {
+  await run.insert(auditEvents).values({
     userId: e.userId ?? null,
     siteId: e.siteId ?? null,
     patientId: e.patientId ?? null,

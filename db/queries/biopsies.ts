@@ -48,7 +48,7 @@ export async function createBiopsy(scope: SiteScope, visitId: string, input: Cre
     if (!label) throw new AppError("invalid", "A visit holds at most 26 specimens (A to Z).", { _: ["No specimen label left."] });
     const [row] = await tx.insert(biopsies).values({ visitId: visit.id, siteId: visit.siteId, specimenLabel: label, ...place }).returning();
     await refreshTrackStatuses(tx, visit.patientId, visit.siteId);
-    await recordAudit({ userId: scope.userId, siteId: visit.siteId, patientId: visit.patientId, action: "biopsy.create", entityType: "biopsy", entityId: row!.id, ip, detail: { label, ...place } });
+    await recordAudit({ userId: scope.userId, siteId: visit.siteId, patientId: visit.patientId, action: "biopsy.create", entityType: "biopsy", entityId: row!.id, ip, detail: { label, ...place } }, tx);
     return row!;
   });
 }
@@ -60,7 +60,7 @@ export async function deleteBiopsy(scope: SiteScope, biopsyId: string, ip: strin
     const visit = await lockDraftVisit(tx, scope, b.visitId);
     await tx.delete(biopsies).where(eq(biopsies.id, biopsyId));
     await refreshTrackStatuses(tx, visit.patientId, visit.siteId);
-    await recordAudit({ userId: scope.userId, siteId: visit.siteId, patientId: visit.patientId, action: "biopsy.delete", entityType: "biopsy", entityId: biopsyId, ip });
+    await recordAudit({ userId: scope.userId, siteId: visit.siteId, patientId: visit.patientId, action: "biopsy.delete", entityType: "biopsy", entityId: biopsyId, ip }, tx);
   });
 }
 
@@ -80,7 +80,7 @@ export async function enterHistology(scope: SiteScope, biopsyId: string, input: 
       .where(eq(biopsies.id, biopsyId))
       .returning();
     await refreshTrackStatuses(tx, v!.patientId, b.siteId);
-    await recordAudit({ userId: scope.userId, siteId: b.siteId, patientId: v!.patientId, action: b.before ? "biopsy.result.correct" : "biopsy.result.enter", entityType: "biopsy", entityId: biopsyId, ip, detail: { before: b.before, ...input } });
+    await recordAudit({ userId: scope.userId, siteId: b.siteId, patientId: v!.patientId, action: b.before ? "biopsy.result.correct" : "biopsy.result.enter", entityType: "biopsy", entityId: biopsyId, ip, detail: { before: b.before, ...input } }, tx);
     return row!;
   });
 }

@@ -109,7 +109,7 @@ export async function createLesion(scope: SiteScope, visitId: string, input: Cre
       })
       .returning({ id: lesions.id });
     await refreshTrackStatuses(tx, visit.patientId, visit.siteId);
-    await recordAudit({ userId: scope.userId, siteId: visit.siteId, patientId: visit.patientId, action: "lesion.create", entityType: "lesion", entityId: row!.id, ip, detail: { ...input } });
+    await recordAudit({ userId: scope.userId, siteId: visit.siteId, patientId: visit.patientId, action: "lesion.create", entityType: "lesion", entityId: row!.id, ip, detail: { ...input } }, tx);
     return fetchOne(tx, row!.id);
   });
 }
@@ -136,7 +136,7 @@ export async function updateLesion(scope: SiteScope, visitId: string, lesionId: 
       .returning({ id: lesions.id });
     if (updated.length === 0) throw new AppError("conflict");
     await refreshTrackStatuses(tx, visit.patientId, visit.siteId);
-    await recordAudit({ userId: scope.userId, siteId: visit.siteId, patientId: visit.patientId, action: "lesion.update", entityType: "lesion", entityId: lesionId, ip, detail: { ...input } });
+    await recordAudit({ userId: scope.userId, siteId: visit.siteId, patientId: visit.patientId, action: "lesion.update", entityType: "lesion", entityId: lesionId, ip, detail: { ...input } }, tx);
     return fetchOne(tx, lesionId);
   });
 }
@@ -154,6 +154,6 @@ export async function deleteLesion(scope: SiteScope, visitId: string, lesionId: 
       if (left === 0) await tx.execute(dsql`delete from lesion_tracks where id = ${current.trackId} and not exists (select 1 from track_checks where track_id = ${current.trackId}) and not exists (select 1 from adjudications where track_id = ${current.trackId})`);
     }
     await refreshTrackStatuses(tx, visit.patientId, visit.siteId);
-    await recordAudit({ userId: scope.userId, siteId: visit.siteId, patientId: visit.patientId, action: "lesion.delete", entityType: "lesion", entityId: lesionId, ip });
+    await recordAudit({ userId: scope.userId, siteId: visit.siteId, patientId: visit.patientId, action: "lesion.delete", entityType: "lesion", entityId: lesionId, ip }, tx);
   });
 }

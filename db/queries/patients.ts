@@ -56,6 +56,7 @@ export async function getPatient(scope: SiteScope, patientId: string) {
       genderIdentity: patients.genderIdentity,
       hivStatus: patients.hivStatus,
       riskGroup: patients.riskGroup,
+      riskDate: patients.riskDate,
       consentEmail: patients.consentEmail,
       consentResearch: patients.consentResearch,
     })

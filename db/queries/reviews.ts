@@ -6,6 +6,7 @@ import { inScope, type SiteScope } from "./scope";
 import { recordAudit } from "./audit";
 import { AppError } from "@/lib/errors";
 import type { AdjudicationInput } from "@/lib/validation/tracking";
+import { notifyReviewRequested } from "@/lib/mail/notifications";
 
 export async function requestReview(scope: SiteScope, patientId: string, input: { visitId: string; comparedVisitId?: string | null; reviewerId: string }, ip: string) {
   return db.transaction(async (tx) => {
@@ -20,7 +21,9 @@ export async function requestReview(scope: SiteScope, patientId: string, input: 
       .where(and(eq(users.id, input.reviewerId), eq(users.role, "reviewer"), eq(users.active, true), eq(userSites.siteId, p.siteId)));
     if (!reviewer) throw new AppError("invalid", undefined, { reviewerId: ["Choose an active reviewer of this site."] });
     const [r] = await tx.insert(reviews).values({ patientId: p.id, siteId: p.siteId, visitId: input.visitId, comparedVisitId: input.comparedVisitId ?? null, reviewerId: reviewer.id, requestedBy: scope.userId }).returning();
-    await recordAudit({ userId: scope.userId, siteId: p.siteId, patientId: p.id, action: "review.request", entityType: "review", entityId: r!.id, ip, detail: { ...input } });
+    // The reviewer hears of it by e-mail (a link only), unless they asked for it themselves.
+    if (reviewer.id !== scope.userId) await notifyReviewRequested(tx, r!.id, { path: `/patients/${p.id}/compare` });
+    await recordAudit({ userId: scope.userId, siteId: p.siteId, patientId: p.id, action: "review.request", entityType: "review", entityId: r!.id, ip, detail: { ...input } }, tx);
     return r!;
   });
 }
@@ -49,7 +52,7 @@ export async function adjudicate(scope: SiteScope, reviewId: string, input: Adju
     const [a] = await tx.insert(adjudications).values({ reviewId: r.id, siteId: r.siteId, trackId: input.trackId, ...values })
       .onConflictDoUpdate({ target: [adjudications.reviewId, adjudications.trackId], set: values }).returning();
     await tx.update(reviews).set({ status: "in_progress", reviewerId: r.reviewerId ?? scope.userId }).where(eq(reviews.id, r.id));
-    await recordAudit({ userId: scope.userId, siteId: r.siteId, patientId: r.patientId, action: "review.adjudicate", entityType: "adjudication", entityId: a!.id, ip, detail: { ...input } });
+    await recordAudit({ userId: scope.userId, siteId: r.siteId, patientId: r.patientId, action: "review.adjudicate", entityType: "adjudication", entityId: a!.id, ip, detail: { ...input } }, tx);
     return a!;
   });
 }

@@ -121,7 +121,7 @@ export async function applyTrackAction(scope: SiteScope, visitId: string, action
         break;
     }
     await refreshTrackStatuses(tx, visit.patientId, visit.siteId);
-    await recordAudit({ userId: scope.userId, siteId: visit.siteId, patientId: visit.patientId, action: `track.${action.action}`, entityType: "visit", entityId: visit.id, ip, detail: { ...action } });
+    await recordAudit({ userId: scope.userId, siteId: visit.siteId, patientId: visit.patientId, action: `track.${action.action}`, entityType: "visit", entityId: visit.id, ip, detail: { ...action } }, tx);
     return { ok: true };
   });
 }

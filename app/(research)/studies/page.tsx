@@ -1,3 +1,4 @@
+import Link from "next/link";
 import { AppShell } from "@/components/shell/app-shell";
 import { listStudies } from "@/db/queries/studies";
 import { scopeOf } from "@/lib/auth/guard";
@@ -19,7 +20,7 @@ export default async function StudiesPage() {
         <tbody>
           {rows.map((s) => (
             <tr key={s.id} className="border-b border-rule last:border-0">
-              <td className="px-3 py-2 font-semibold">{s.code}</td>
+              <td className="px-3 py-2 font-semibold"><Link href={`/studies/${s.id}`} className="text-lagoon-700 underline">{s.code}</Link></td>
               <td className="px-3 py-2">{s.title}</td>
               <td className="px-3 py-2 tabular-nums">{s.startDate}</td>
               <td className="px-3 py-2 text-right tabular-nums">{s.enrolled}</td>

@@ -6,6 +6,9 @@ import { recordAudit } from "@/db/queries/audit";
 import { scopeOf } from "@/lib/auth/guard";
 import { CLINICAL_ROLES, requirePageRole } from "@/lib/auth/page-guard";
 import { uuidParam } from "@/lib/http/route";
+import { NewVisitForm } from "@/components/patient/new-visit-form";
+import { FollowupBanner } from "@/components/followup/overdue-flag";
+import { ScreeningGuidance } from "@/components/followup/screening-guidance";
 
 export const metadata = { title: "Patient" };
 
@@ -30,6 +33,16 @@ export default async function PatientPage({ params }: { params: Promise<{ patien
         <div><dt className="text-ink-soft">Sex at birth</dt><dd className="font-semibold">{patient.sexAtBirth}</dd></div>
         <div><dt className="text-ink-soft">HIV status</dt><dd className="font-semibold">{patient.hivStatus}</dd></div>
       </dl>
+      <div className="mt-4 space-y-3">
+        <FollowupBanner patientId={patient.id} user={user} />
+        <details className="rounded-md border border-rule bg-panel px-4 py-2">
+          <summary className="min-h-11 cursor-pointer py-2 font-semibold">Screening guidance (IANS 2024)</summary>
+          <ScreeningGuidance riskGroup={patient.riskGroup} dateOfBirth={patient.dateOfBirth} riskDate={patient.riskDate} />
+        </details>
+      </div>
+      {user.role === "clinician" ? (
+        <div className="mt-6"><NewVisitForm patientId={patient.id} today={new Date().toISOString().slice(0, 10)} /></div>
+      ) : null}
       <h2 className="mt-8 text-lg font-bold">Visits</h2>
       <p className="text-sm text-ink-soft">Oldest on the left in every timeline; here the newest visit is listed first.</p>
       <table className="mt-2 w-full border-collapse rounded-lg bg-panel text-left">
@@ -39,7 +52,7 @@ export default async function PatientPage({ params }: { params: Promise<{ patien
         <tbody>
           {visitList.map((v) => (
             <tr key={v.id} className="border-b border-rule last:border-0">
-              <td className="px-3 py-2 font-semibold tabular-nums">{v.visitDate}</td>
+              <td className="px-3 py-2 font-semibold tabular-nums"><Link className="text-lagoon-700 underline-offset-2 hover:underline" href={`/patients/${patient.id}/visits/${v.id}`}>{v.visitDate}</Link></td>
               <td className="px-3 py-2">{v.examinerName}</td>
               <td className="px-3 py-2">{POSITION_LABEL[v.patientPosition]}</td>
               <td className="px-3 py-2">{v.status === "signed" ? "Signed" : "Draft"}</td>

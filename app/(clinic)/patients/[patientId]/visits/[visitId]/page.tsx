@@ -1,0 +1,55 @@
+import Link from "next/link";
+import { notFound } from "next/navigation";
+import { AppShell } from "@/components/shell/app-shell";
+import { VisitMapEditor } from "@/components/visit/map-editor/visit-map-editor";
+import { VisitRecordPanels } from "@/components/visit/record/visit-record-panels";
+import { VisitGallery } from "@/components/visit/gallery/visit-gallery";
+import { getPatient } from "@/db/queries/patients";
+import { loadVisit } from "@/db/queries/visit-access";
+import { recordAudit } from "@/db/queries/audit";
+import { db } from "@/db/client";
+import { scopeOf } from "@/lib/auth/guard";
+import { CLINICAL_ROLES, requirePageRole } from "@/lib/auth/page-guard";
+import { AppError } from "@/lib/errors";
+import { uuidParam } from "@/lib/http/route";
+
+export const metadata = { title: "Visit" };
+
+export default async function VisitPage({ params }: { params: Promise<{ patientId: string; visitId: string }> }) {
+  const user = await requirePageRole(CLINICAL_ROLES);
+  const p = await params;
+  const patientId = uuidParam.safeParse(p.patientId);
+  const visitId = uuidParam.safeParse(p.visitId);
+  if (!patientId.success || !visitId.success) notFound();
+  const scope = scopeOf(user);
+  const patient = await getPatient(scope, patientId.data);
+  const visit = await loadVisit(db, scope, visitId.data).catch((e) => (e instanceof AppError ? null : Promise.reject(e)));
+  if (!patient || !visit || visit.patientId !== patient.id) notFound();
+  await recordAudit({ userId: user.id, siteId: visit.siteId, patientId: patient.id, action: "visit.read", entityType: "visit", entityId: visit.id });
+  const canEdit = user.role === "clinician" && visit.status === "draft";
+  return (
+    <AppShell user={user}>
+      <nav aria-label="Breadcrumb" className="no-print text-sm">
+        <Link href="/patients" className="text-lagoon-700 underline">Patients</Link> /{" "}
+        <Link href={`/patients/${patient.id}`} className="text-lagoon-700 underline">{patient.familyName}, {patient.givenName}</Link> /
+      </nav>
+      <div className="mt-1 flex flex-wrap items-baseline gap-x-4">
+        <h1 className="text-2xl font-bold">Visit of {visit.visitDate}</h1>
+        <span className="text-ink-soft">{patient.familyName}, {patient.givenName} · MRN {patient.mrn}</span>
+        <span className={`rounded-full border px-3 py-0.5 text-sm font-semibold ${visit.status === "signed" ? "border-ink text-ink" : "border-dashed border-ink-soft text-ink-soft"}`}>
+          {visit.status === "signed" ? "Signed" : "Draft"}
+        </span>
+      </div>
+      <section aria-labelledby="map-heading" className="mt-4">
+        <h2 id="map-heading" className="sr-only">Canal map</h2>
+        <VisitMapEditor visitId={visit.id} initialConvention={user.displayConvention} canEdit={canEdit} />
+      </section>
+      <section aria-label="Visit record" className="mt-8">
+        <VisitRecordPanels visitId={visit.id} />
+      </section>
+      <section aria-label="Photographs and documents" className="mt-8">
+        <VisitGallery visitId={visit.id} canUpload={canEdit} convention={user.displayConvention} />
+      </section>
+    </AppShell>
+  );
+}

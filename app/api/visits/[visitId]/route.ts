@@ -1,0 +1,21 @@
+import { getVisitRecord, updateExamDetails } from "@/db/queries/visit-record";
+import { recordAudit } from "@/db/queries/audit";
+import { scopeOf } from "@/lib/auth/guard";
+import { idParam, readJson, route } from "@/lib/http/route";
+import { examDetailsSchema, visitPermissions } from "@/lib/validation/visit-record";
+
+type P = { visitId: string };
+
+export const GET = route<P>({ roles: ["clinician", "reviewer", "research_nurse", "admin"] }, async ({ user, params, ip }) => {
+  const visit = await getVisitRecord(scopeOf(user), idParam(params.visitId));
+  await recordAudit({ userId: user.id, siteId: visit.siteId, patientId: visit.patientId, action: "visit.read", entityType: "visit", entityId: visit.id, ip });
+  return { visit, permissions: visitPermissions(user, visit) };
+});
+
+export const PATCH = route<P>({ roles: ["clinician"] }, async ({ req, user, params, ip }) => {
+  const visitId = idParam(params.visitId);
+  const input = await readJson(req, examDetailsSchema);
+  const saved = await updateExamDetails(scopeOf(user), visitId, input);
+  await recordAudit({ userId: user.id, siteId: saved.siteId, patientId: saved.patientId, action: "visit.exam.update", entityType: "visit", entityId: saved.id, ip, detail: { fields: saved.changed, version: saved.version } });
+  return { visit: await getVisitRecord(scopeOf(user), visitId) };
+});

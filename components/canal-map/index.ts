@@ -1,0 +1,7 @@
+export { CanalMap, CONVENTION_LABEL, orientationWords, type CanalMapProps } from "./canal-map";
+export { MapLegend } from "./map-legend";
+export { LesionShape, lesionAccessibleName, type MapLesion, type LesionSaveState } from "./lesion-shape";
+export { type GhostLesion } from "./ghost-shape";
+export { GRADE_ENCODING, ZONE_ENCODING, ORIENTATION_NOTE } from "./encoding";
+export * from "./map-geometry";
+export { clientToSvg } from "./pointer";

@@ -1,0 +1,126 @@
+import { memo, useMemo, type KeyboardEvent, type PointerEvent } from "react";
+import { describeSite, type DisplayConvention } from "@/lib/geometry";
+import type { LesionDto } from "@/lib/validation/lesions";
+import { BIOPSY_TAG, GRADE_ENCODING, SELECTION_RING, TREATED_MARK, UNSAVED_MARK } from "./encoding";
+import { centreOf, isPointLesion, pointOfSite, polar, radiusOfCm, sectorOf, sectorPath } from "./map-geometry";
+import { patternId } from "./patterns";
+
+/** What the map needs of a lesion; LesionDto satisfies it. */
+export type MapLesion = Pick<
+  LesionDto,
+  "id" | "label" | "grade" | "clockStartH" | "clockEndH" | "distanceStartCm" | "distanceEndCm" | "treated" | "biopsyLabels"
+>;
+
+export type LesionSaveState = "saving" | "failed";
+
+/** The screen-reader name of a lesion, e.g. "L2: HSIL, 1 to 3 o'clock (…), 1–2 cm from the verge". */
+export function lesionAccessibleName(l: MapLesion, conv: DisplayConvention): string {
+  const parts = [`${l.label}: ${GRADE_ENCODING[l.grade].label}, ${describeSite(l.clockStartH, l.clockEndH, l.distanceStartCm, l.distanceEndCm, conv)}`];
+  if (l.treated) parts.push("treated");
+  if (l.biopsyLabels.length) parts.push(`biopsy ${l.biopsyLabels.join(", ")}`);
+  return parts.join(", ");
+}
+
+const POINT_RADIUS = 9;
+/** Invisible stroke around each shape: the hit target stays ≥ 44 px on a tablet. */
+const HIT_STROKE = 30;
+
+interface Props {
+  lesion: MapLesion;
+  conv: DisplayConvention;
+  prefix: string;
+  selected: boolean;
+  saveState?: LesionSaveState;
+  focusable: boolean;
+  onPointerDown?: (id: string, e: PointerEvent<SVGGElement>) => void;
+  onKeyDown?: (id: string, e: KeyboardEvent<SVGGElement>) => void;
+}
+
+function LesionShapeInner({ lesion, conv, prefix, selected, saveState, focusable, onPointerDown, onKeyDown }: Props) {
+  const enc = GRADE_ENCODING[lesion.grade];
+  const shape = useMemo(() => {
+    const point = isPointLesion(lesion);
+    const centre = centreOf(lesion);
+    const c = pointOfSite(centre.storedH, centre.cm, conv);
+    const body = point ? null : sectorPath(sectorOf(lesion, conv)) ?? "";
+    const halo = point ? null : sectorPath(sectorOf(lesion, conv, TREATED_MARK.haloPx)) ?? "";
+    const ring = point ? null : sectorPath(sectorOf(lesion, conv, SELECTION_RING.padPx + (lesion.treated ? TREATED_MARK.haloPx : 0))) ?? "";
+    const geo = sectorOf(lesion, conv);
+    const mid = (geo.startAngle + geo.endAngle) / 2;
+    const outerEdge = point ? { x: c.x, y: c.y - POINT_RADIUS - 8 } : polar(mid, geo.outerRadius + TREATED_MARK.haloPx + 8);
+    const innerEdge = point ? { x: c.x + POINT_RADIUS + 12, y: c.y } : polar(mid, Math.max(geo.innerRadius - 14, radiusOfCm(8)));
+    return { point, c, body, halo, ring, outerEdge, innerEdge, name: lesionAccessibleName(lesion, conv) };
+  }, [lesion, conv]);
+
+  const fill = `url(#${patternId(prefix, lesion.grade)})`;
+  const outline = saveState === "failed" ? UNSAVED_MARK.stroke : enc.strokeHue;
+  const drawBody = (extra: Record<string, unknown>) =>
+    shape.point ? <circle cx={shape.c.x} cy={shape.c.y} r={POINT_RADIUS} {...extra} /> : <path d={shape.body!} {...extra} />;
+  const tagText = lesion.biopsyLabels.join("");
+  const tagWidth = Math.max(BIOPSY_TAG.size, 8 + tagText.length * 10);
+
+  return (
+    <g
+      role="button"
+      tabIndex={focusable ? 0 : -1}
+      aria-label={shape.name + (saveState === "failed" ? ", not saved" : "")}
+      aria-pressed={selected}
+      data-lesion-id={lesion.id}
+      className="group cursor-pointer outline-none"
+      opacity={saveState === "saving" ? 0.75 : 1}
+      onPointerDown={onPointerDown ? (e) => onPointerDown(lesion.id, e) : undefined}
+      onKeyDown={onKeyDown ? (e) => onKeyDown(lesion.id, e) : undefined}
+    >
+      {drawBody({ fill: "none", stroke: "transparent", strokeWidth: HIT_STROKE, pointerEvents: "all" })}
+      {lesion.treated && !shape.point ? (
+        <path d={shape.halo!} fill="none" stroke="var(--color-ink)" strokeWidth={TREATED_MARK.strokeWidth} strokeDasharray={TREATED_MARK.dash} />
+      ) : null}
+      {drawBody({ fill, stroke: outline, strokeWidth: saveState === "failed" ? UNSAVED_MARK.width : enc.outlineWidth, strokeDasharray: saveState === "failed" ? UNSAVED_MARK.dash : enc.outlineDash, strokeLinecap: "round", strokeLinejoin: "round" })}
+      {enc.doubleOutline ? drawBody({ fill: "none", stroke: "var(--color-paper)", strokeWidth: 2 }) : null}
+      {/* Focus ring: drawn by us because outlines on SVG groups are unreliable across browsers. */}
+      {shape.point ? (
+        <circle cx={shape.c.x} cy={shape.c.y} r={POINT_RADIUS + 7} fill="none" stroke="var(--color-lagoon-900)" strokeWidth={3} strokeDasharray="4 3" className="opacity-0 group-focus-visible:opacity-100" />
+      ) : (
+        <path d={shape.ring!} fill="none" stroke="var(--color-lagoon-900)" strokeWidth={3} strokeDasharray="4 3" className="opacity-0 group-focus-visible:opacity-100" />
+      )}
+      {selected ? (
+        shape.point ? (
+          <circle cx={shape.c.x} cy={shape.c.y} r={POINT_RADIUS + 4} fill="none" stroke={SELECTION_RING.stroke} strokeWidth={SELECTION_RING.width} />
+        ) : (
+          <path d={shape.ring!} fill="none" stroke={SELECTION_RING.stroke} strokeWidth={SELECTION_RING.width} />
+        )
+      ) : null}
+      {lesion.treated ? (
+        <g aria-hidden="true" pointerEvents="none">
+          <circle cx={shape.outerEdge.x} cy={shape.outerEdge.y} r={TREATED_MARK.markRadius} fill="var(--color-panel)" stroke="var(--color-ink)" strokeWidth={2} />
+          <circle cx={shape.outerEdge.x} cy={shape.outerEdge.y} r={2.2} fill="var(--color-ink)" />
+        </g>
+      ) : null}
+      {tagText ? (
+        <g aria-hidden="true" pointerEvents="none">
+          <rect x={shape.innerEdge.x - tagWidth / 2} y={shape.innerEdge.y - BIOPSY_TAG.size / 2} width={tagWidth} height={BIOPSY_TAG.size} fill="var(--color-panel)" stroke="var(--color-ink)" strokeWidth={1.5} />
+          <text x={shape.innerEdge.x} y={shape.innerEdge.y + 5} textAnchor="middle" fontSize={13} fontWeight={700} fill="var(--color-ink)">{tagText}</text>
+        </g>
+      ) : null}
+      <text
+        x={shape.point ? shape.c.x : shape.c.x}
+        y={shape.point ? shape.c.y - POINT_RADIUS - 6 : shape.c.y + 5}
+        textAnchor="middle"
+        fontSize={14}
+        fontWeight={700}
+        fill="var(--color-ink)"
+        stroke="var(--color-panel)"
+        strokeWidth={4}
+        paintOrder="stroke"
+        pointerEvents="none"
+        aria-hidden="true"
+      >
+        {lesion.label}
+        {saveState === "failed" ? " !" : ""}
+      </text>
+    </g>
+  );
+}
+
+/** One lesion; memoised so a tap or drag re-renders only the lesions that changed. */
+export const LesionShape = memo(LesionShapeInner);

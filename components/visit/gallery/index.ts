@@ -1,0 +1,2 @@
+export { VisitGallery, type VisitGalleryProps } from "./visit-gallery";
+export { attachmentPlace } from "./describe-attachment";

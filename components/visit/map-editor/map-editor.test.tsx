@@ -1,0 +1,131 @@
+import { describe, expect, it, vi } from "vitest";
+import { fireEvent, render, screen } from "@testing-library/react";
+import { radiusOfCm, VIEW, type MapExtent, type MapLesion } from "@/components/canal-map";
+import { toDisplayHours, type DisplayConvention } from "@/lib/geometry";
+import { MapEditor, type MapEditorProps } from "./map-editor";
+
+// jsdom has no layout and no getScreenCTM: the editor falls back to the bounding rectangle,
+// which we mock. Scale 2 (the SVG drawn at twice its viewBox size) at an offset, so a wrong
+// conversion cannot pass by accident.
+const RECT = { left: 40, top: 30, width: VIEW.width * 2, height: VIEW.height * 2 };
+
+function mockRect(container: HTMLElement) {
+  const svg = container.querySelector("svg")!;
+  svg.getBoundingClientRect = () => ({ ...RECT, x: RECT.left, y: RECT.top, right: RECT.left + RECT.width, bottom: RECT.top + RECT.height, toJSON: () => RECT }) as DOMRect;
+  return svg;
+}
+
+/** Screen point where a display hour and distance are drawn: our own radial scale, 30° per hour. */
+function screenAt(displayH: number, cm: number) {
+  const a = (displayH * Math.PI) / 6; // 30 degrees per clock hour (domain.md §1), clockwise from the top
+  const r = radiusOfCm(cm);
+  const x = r * Math.sin(a);
+  const y = -r * Math.cos(a);
+  const s = RECT.width / VIEW.width;
+  return { clientX: RECT.left + (x - VIEW.minX) * s, clientY: RECT.top + (y - VIEW.minY) * s };
+}
+
+function setup(over: Partial<MapEditorProps> = {}) {
+  const props: MapEditorProps = {
+    lesions: [],
+    convention: "lithotomy",
+    readOnly: false,
+    selectedId: null,
+    onSelect: vi.fn(),
+    onCreate: vi.fn(),
+    onChange: vi.fn(),
+    onRequestDelete: vi.fn(),
+    ...over,
+  };
+  const view = render(<MapEditor {...props} />);
+  const svg = mockRect(view.container);
+  return { ...view, svg, props };
+}
+
+function tap(svg: Element, at: { clientX: number; clientY: number }) {
+  fireEvent.pointerDown(svg, { ...at, pointerId: 1, button: 0, pointerType: "touch" });
+  fireEvent.pointerUp(svg, { ...at, pointerId: 1, button: 0, pointerType: "touch" });
+}
+
+const midH = (e: MapExtent) => {
+  const len = (e.clockEndH - e.clockStartH + 12) % 12;
+  return (e.clockStartH + len / 2) % 12;
+};
+
+// Where each convention draws stored (lithotomy) 3 o'clock, as published, not as computed:
+// lithotomy 3 = patient's left; prone jack-knife turns the face half a circle, so the
+// patient's left reads 9 (domain.md §1, derived, from memory); left lateral keeps
+// lithotomy numbering (domain.md §1: many clinicians keep it; no published convention).
+const CASES: Array<[DisplayConvention, number]> = [
+  ["lithotomy", 3],
+  ["prone_jackknife", 9],
+  ["left_lateral", 3],
+];
+
+describe("MapEditor: a tap is stored in the one anatomical frame", () => {
+  for (const [conv, expectedDisplayH] of CASES) {
+    it(`${conv}: a tap where stored 3 o'clock, 2 cm is drawn stores 3.0 h, 2.0 cm — the patient's left`, () => {
+      const displayH = toDisplayHours(3, conv);
+      expect(displayH).toBe(expectedDisplayH);
+      const { svg, props, rerender, container } = setup({ convention: conv });
+      tap(svg, screenAt(displayH, 2));
+      expect(props.onCreate).toHaveBeenCalledTimes(1);
+      const extent = (props.onCreate as ReturnType<typeof vi.fn>).mock.calls[0][0] as MapExtent;
+      // Default extent 1 h × 1 cm centred on the tap (editor design), snapped to 0.5.
+      expect(extent.clockStartH).toBeCloseTo(2.5, 6);
+      expect(extent.clockEndH).toBeCloseTo(3.5, 6);
+      expect(midH(extent)).toBeCloseTo(3.0, 6);
+      expect((extent.distanceStartCm + extent.distanceEndCm) / 2).toBeCloseTo(2.0, 6);
+
+      const lesion: MapLesion = { id: "l1", label: "L1", grade: "hsil", treated: false, biopsyLabels: [], ...extent };
+      rerender(<MapEditor {...props} lesions={[lesion]} />);
+      // Lithotomy 3 o'clock is the patient's left lateral (domain.md §1), in every convention.
+      expect(screen.getByRole("button", { name: /HSIL, .*left lateral/ })).toBeTruthy();
+      const label = container.querySelector(`[data-anatomical-at="${expectedDisplayH}"]`);
+      expect(label?.textContent).toBe("Patient's left");
+    });
+  }
+});
+
+describe("MapEditor: gestures and keys", () => {
+  it("a sweep from 11 to 1 o'clock across 12 gives a clockwise arc of 2 h", () => {
+    const { svg, props } = setup();
+    const opts = { pointerId: 7, button: 0, pointerType: "mouse" };
+    fireEvent.pointerDown(svg, { ...screenAt(11, 1), ...opts });
+    fireEvent.pointerMove(svg, { ...screenAt(11.5, 1), ...opts });
+    fireEvent.pointerMove(svg, { ...screenAt(0, 1), ...opts });
+    fireEvent.pointerMove(svg, { ...screenAt(0.5, 1), ...opts });
+    fireEvent.pointerUp(svg, { ...screenAt(1, 1), ...opts });
+    const extent = (props.onCreate as ReturnType<typeof vi.fn>).mock.calls[0][0] as MapExtent;
+    // 30° per hour; clockwise 11 → 1 passes 12 and is 2 h long, not 10 (domain.md §1 geometry).
+    expect(extent.clockStartH).toBeCloseTo(11, 6);
+    expect(extent.clockEndH).toBeCloseTo(1, 6);
+    expect((extent.clockEndH - extent.clockStartH + 12) % 12).toBeCloseTo(2, 6);
+  });
+
+  it("the arrow key turns a focused lesion by half an hour, saved once per key", () => {
+    const lesion: MapLesion = { id: "l1", label: "L1", grade: "lsil", treated: false, biopsyLabels: [], clockStartH: 3, clockEndH: 4, distanceStartCm: 1, distanceEndCm: 2 };
+    const { props } = setup({ lesions: [lesion], selectedId: "l1" });
+    const shape = screen.getByRole("button", { name: /^L1: LSIL/ });
+    shape.focus();
+    fireEvent.keyDown(shape, { key: "ArrowRight" });
+    expect(props.onChange).toHaveBeenCalledTimes(1);
+    // Editor grid: half-hour steps (design brief), the distances untouched.
+    expect(props.onChange).toHaveBeenCalledWith("l1", { clockStartH: 3.5, clockEndH: 4.5, distanceStartCm: 1, distanceEndCm: 2 });
+    fireEvent.keyDown(shape, { key: "ArrowLeft", shiftKey: true });
+    expect(props.onChange).toHaveBeenLastCalledWith("l1", { clockStartH: 3, clockEndH: 3.5, distanceStartCm: 1, distanceEndCm: 2 });
+  });
+
+  it("read-only: a tap places nothing and keys change nothing", () => {
+    const lesion: MapLesion = { id: "l1", label: "L1", grade: "lsil", treated: false, biopsyLabels: [], clockStartH: 3, clockEndH: 4, distanceStartCm: 1, distanceEndCm: 2 };
+    const { svg, props } = setup({ readOnly: true, lesions: [lesion] });
+    tap(svg, screenAt(6, 2));
+    const shape = screen.getByRole("button", { name: /^L1: LSIL/ });
+    fireEvent.keyDown(shape, { key: "ArrowRight" });
+    fireEvent.keyDown(shape, { key: "Delete" });
+    expect(props.onCreate).not.toHaveBeenCalled();
+    expect(props.onChange).not.toHaveBeenCalled();
+    expect(props.onRequestDelete).not.toHaveBeenCalled();
+    expect(svg.querySelector("[data-handle]")).toBeNull();
+  });
+});

@@ -1,0 +1,162 @@
+"use client";
+// The interactive canal map: gestures and keys in, extents out. It holds no server state;
+// the owner (VisitMapEditor) saves. Tested on its own in map-editor.test.tsx.
+import { memo, useCallback, useEffect, useLayoutEffect, useMemo, useRef, type KeyboardEvent, type PointerEvent } from "react";
+import { CanalMap, sectorOf, polar, type GhostLesion, type LesionSaveState, type MapExtent, type MapLesion } from "@/components/canal-map";
+import type { DisplayConvention } from "@/lib/geometry";
+import type { Grade } from "@/lib/domain/vocab";
+import { moveExtent, resizeArc, resizeDepth, STEP_CM, STEP_H, type HandleKind } from "./extent-math";
+import { useMapGestures } from "./use-map-gestures";
+
+export interface MapEditorProps {
+  lesions: readonly MapLesion[];
+  convention: DisplayConvention;
+  readOnly: boolean;
+  selectedId: string | null;
+  onSelect: (id: string | null) => void;
+  /** A new extent from a tap or a sweep; grade and the rest are the owner's business. */
+  onCreate: (extent: MapExtent) => void;
+  /** A finished change of an existing lesion's extent (pointerup or a key press). */
+  onChange: (id: string, extent: MapExtent) => void;
+  onRequestDelete: (id: string) => void;
+  saveStates?: Readonly<Record<string, LesionSaveState | undefined>>;
+  ghosts?: readonly GhostLesion[];
+  /** A lesion to move keyboard focus to once it is on the map (e.g. after "New lesion"). */
+  focusId?: string | null;
+  /** Grade the lesion being drawn is shown with (the grade new lesions will get). */
+  newGrade?: Grade;
+}
+
+export const KEY_HELP = "Tap or drag on the map to add · Tab to a lesion · ← → turn ½ h · ↑ ↓ deeper / shallower ½ cm · Shift + arrows resize · Delete removes · Esc deselects";
+
+const extentOf = (l: MapExtent): MapExtent => ({ clockStartH: l.clockStartH, clockEndH: l.clockEndH, distanceStartCm: l.distanceStartCm, distanceEndCm: l.distanceEndCm });
+
+export function MapEditor(props: MapEditorProps) {
+  const { lesions, convention, readOnly, selectedId, onSelect, onCreate, onChange, onRequestDelete, saveStates, ghosts, focusId, newGrade = "lsil" } = props;
+  const svgRef = useRef<SVGSVGElement | null>(null);
+  const { preview, svgHandlers, startMove, startHandle } = useMapGestures({ svgRef, conv: convention, enabled: !readOnly, onCreate, onChange });
+
+  // Latest values for the stable callbacks handed to memoised lesion shapes.
+  const latest = useRef({ lesions, selectedId, readOnly });
+  useLayoutEffect(() => {
+    latest.current = { lesions, selectedId, readOnly };
+  });
+  const find = (id: string) => latest.current.lesions.find((l) => l.id === id);
+
+  const onLesionPointerDown = useCallback(
+    (id: string, e: PointerEvent<SVGGElement>) => {
+      e.stopPropagation();
+      onSelect(id);
+      const l = find(id);
+      if (l && !latest.current.readOnly) startMove(id, extentOf(l), e);
+    },
+    [onSelect, startMove],
+  );
+
+  const onLesionKeyDown = useCallback(
+    (id: string, e: KeyboardEvent<SVGGElement>) => {
+      const l = find(id);
+      if (!l) return;
+      const key = e.key;
+      if (key === "Enter" || key === " ") {
+        e.preventDefault();
+        onSelect(id);
+        return;
+      }
+      if (key === "Escape") {
+        e.preventDefault();
+        onSelect(null);
+        return;
+      }
+      if (latest.current.readOnly) return;
+      if (key === "Delete" || key === "Backspace") {
+        e.preventDefault();
+        onRequestDelete(id);
+        return;
+      }
+      const from = extentOf(l);
+      let next: MapExtent | null = null;
+      // Right turns clockwise on screen; clockwise is clockwise in every convention.
+      if (key === "ArrowRight") next = e.shiftKey ? resizeArc(from, STEP_H) : moveExtent(from, STEP_H, 0);
+      else if (key === "ArrowLeft") next = e.shiftKey ? resizeArc(from, -STEP_H) : moveExtent(from, -STEP_H, 0);
+      else if (key === "ArrowUp") next = e.shiftKey ? resizeDepth(from, STEP_CM) : moveExtent(from, 0, STEP_CM);
+      else if (key === "ArrowDown") next = e.shiftKey ? resizeDepth(from, -STEP_CM) : moveExtent(from, 0, -STEP_CM);
+      if (!next) return;
+      e.preventDefault();
+      if (latest.current.selectedId !== id) onSelect(id);
+      onChange(id, next);
+    },
+    [onSelect, onChange, onRequestDelete],
+  );
+
+  useEffect(() => {
+    if (!focusId) return;
+    const el = svgRef.current?.querySelector<SVGGElement>(`[data-lesion-id="${focusId}"]`);
+    el?.focus();
+  }, [focusId, lesions]);
+
+  // While dragging, the moving lesion is drawn from the preview; every other lesion keeps
+  // its object identity, so its memoised shape is not redrawn.
+  const shown = useMemo(() => {
+    if (!preview?.id) return lesions;
+    return lesions.map((l) => (l.id === preview.id ? { ...l, ...preview.extent } : l));
+  }, [lesions, preview]);
+  const draft: MapLesion | null = preview && !preview.id ? { id: "draft", label: "New", grade: newGrade, treated: false, biopsyLabels: [], ...preview.extent } : null;
+  const selected = !readOnly && selectedId ? shown.find((l) => l.id === selectedId) : undefined;
+
+  return (
+    <div className="flex flex-col" onKeyDown={(e) => e.key === "Escape" && onSelect(null)}>
+      <div>
+        <CanalMap
+          lesions={draft ? [...shown, draft] : shown}
+          convention={convention}
+          selectedId={selectedId}
+          ghosts={ghosts}
+          saveStates={saveStates}
+          onLesionPointerDown={onLesionPointerDown}
+          onLesionKeyDown={onLesionKeyDown}
+          svgRef={svgRef}
+          title={readOnly ? "Canal map (read only)" : "Canal map: tap to add a lesion"}
+          svgProps={{ ...svgHandlers, style: { touchAction: readOnly ? "auto" : "none" }, "aria-disabled": readOnly || undefined }}
+          overlay={selected ? <Handles lesion={selected} conv={convention} onStart={startHandle} /> : null}
+        />
+      </div>
+      <p className="mt-1 text-sm text-ink-soft" id="map-key-help">
+        {readOnly ? "Read only: select a lesion with Tab and Enter to see its details." : KEY_HELP}
+      </p>
+    </div>
+  );
+}
+
+const HANDLE_R = 9;
+const HANDLE_HIT_R = 24;
+
+const Handles = memo(function Handles({ lesion, conv, onStart }: { lesion: MapLesion; conv: DisplayConvention; onStart: (id: string, h: HandleKind, from: MapExtent, e: PointerEvent) => unknown }) {
+  const g = sectorOf(lesion, conv);
+  const midR = (g.innerRadius + g.outerRadius) / 2;
+  const midA = (g.startAngle + g.endAngle) / 2;
+  const spots: Array<[HandleKind, { x: number; y: number }, string]> = [
+    ["start", polar(g.startAngle, midR), "start of the arc"],
+    ["end", polar(g.endAngle, midR), "end of the arc"],
+    ["inner", polar(midA, g.innerRadius), "deep edge"],
+    ["outer", polar(midA, g.outerRadius), "shallow edge"],
+  ];
+  return (
+    <g aria-hidden="true">
+      {spots.map(([kind, p]) => (
+        <g
+          key={kind}
+          data-handle={kind}
+          className="cursor-grab"
+          onPointerDown={(e) => {
+            e.stopPropagation();
+            onStart(lesion.id, kind, extentOf(lesion), e);
+          }}
+        >
+          <circle cx={p.x} cy={p.y} r={HANDLE_HIT_R} fill="transparent" />
+          <circle cx={p.x} cy={p.y} r={HANDLE_R} fill="var(--color-panel)" stroke="var(--color-lagoon-600)" strokeWidth={3} />
+        </g>
+      ))}
+    </g>
+  );
+});

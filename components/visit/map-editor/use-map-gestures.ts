@@ -1,0 +1,122 @@
+// Pointer gestures on the canal map: place (tap), sweep (drag from a tap), move a lesion,
+// drag a handle. Pointer events cover mouse, pen and a gloved finger alike. During a drag only
+// a local preview changes; the owner hears about it once, on pointerup.
+import { useCallback, useRef, useState, type PointerEvent } from "react";
+import { clientToSvg, OUTER_RADIUS, siteOfPoint, type MapExtent } from "@/components/canal-map";
+import { normalizeHours, toDisplayHours, type DisplayConvention } from "@/lib/geometry";
+import { dragHandle, moveExtent, sameExtent, sweepExtent, tapExtent, turnH, type HandleKind } from "./extent-math";
+
+type Gesture =
+  | { kind: "create" }
+  | { kind: "move"; id: string; from: MapExtent }
+  | { kind: "handle"; id: string; handle: HandleKind; from: MapExtent };
+
+interface Active {
+  gesture: Gesture;
+  pointerId: number;
+  anchorDisplayH: number;
+  anchorCm: number;
+  lastDisplayH: number;
+  sweepH: number;
+  extent: MapExtent | null;
+}
+
+export type Preview = { id: string | null; extent: MapExtent };
+
+interface Options {
+  svgRef: React.RefObject<SVGSVGElement | null>;
+  conv: DisplayConvention;
+  enabled: boolean;
+  onCreate: (extent: MapExtent) => void;
+  onChange: (id: string, extent: MapExtent) => void;
+}
+
+/** Taps beyond the drawn face (on the numbers and labels) do not place anything. */
+const FACE_SLACK = 14;
+
+export function useMapGestures({ svgRef, conv, enabled, onCreate, onChange }: Options) {
+  const active = useRef<Active | null>(null);
+  const [preview, setPreview] = useState<Preview | null>(null);
+
+  const locate = useCallback(
+    (e: PointerEvent) => {
+      const svg = svgRef.current;
+      if (!svg) return null;
+      const p = clientToSvg(svg, e.clientX, e.clientY);
+      const site = siteOfPoint(p, conv);
+      return { p, displayH: toDisplayHours(site.storedH, conv), cm: site.cm, r: Math.hypot(p.x, p.y) };
+    },
+    [svgRef, conv],
+  );
+
+  const begin = useCallback(
+    (e: PointerEvent, gesture: Gesture) => {
+      const at = locate(e);
+      if (!at) return false;
+      if (gesture.kind === "create" && at.r > OUTER_RADIUS + FACE_SLACK) return false;
+      active.current = { gesture, pointerId: e.pointerId, anchorDisplayH: at.displayH, anchorCm: at.cm, lastDisplayH: at.displayH, sweepH: 0, extent: null };
+      try {
+        svgRef.current?.setPointerCapture?.(e.pointerId);
+      } catch {
+        // Capture is an optimisation (moves outside the SVG keep coming); without it we still work.
+      }
+      if (gesture.kind === "create") {
+        const extent = tapExtent(at.displayH, at.cm, conv);
+        active.current.extent = extent;
+        setPreview({ id: null, extent });
+      }
+      return true;
+    },
+    [locate, svgRef, conv],
+  );
+
+  const step = useCallback(
+    (e: PointerEvent) => {
+      const a = active.current;
+      if (!a || e.pointerId !== a.pointerId) return;
+      const at = locate(e);
+      if (!at) return;
+      a.sweepH += turnH(a.lastDisplayH, at.displayH);
+      a.lastDisplayH = at.displayH;
+      const g = a.gesture;
+      let extent: MapExtent;
+      if (g.kind === "create") extent = sweepExtent(a.anchorDisplayH, a.anchorCm, a.sweepH, at.cm, conv);
+      else if (g.kind === "move") extent = moveExtent(g.from, a.sweepH, at.cm - a.anchorCm);
+      else extent = dragHandle(g.from, g.handle, normalizeHours(at.displayH), at.cm, conv);
+      if (a.extent && sameExtent(a.extent, extent)) return;
+      a.extent = extent;
+      setPreview({ id: g.kind === "create" ? null : g.id, extent });
+    },
+    [locate, conv],
+  );
+
+  const end = useCallback(
+    (e: PointerEvent, cancelled = false) => {
+      const a = active.current;
+      if (!a || e.pointerId !== a.pointerId) return;
+      if (!cancelled) step(e);
+      active.current = null;
+      setPreview(null);
+      if (cancelled || !a.extent) return;
+      const g = a.gesture;
+      if (g.kind === "create") onCreate(a.extent);
+      else if (!sameExtent(g.from, a.extent)) onChange(g.id, a.extent);
+    },
+    [step, onCreate, onChange],
+  );
+
+  const svgHandlers = {
+    onPointerDown: (e: PointerEvent<SVGSVGElement>) => {
+      if (!enabled || (e.pointerType === "mouse" && e.button !== 0)) return;
+      if (begin(e, { kind: "create" })) e.preventDefault();
+    },
+    onPointerMove: (e: PointerEvent<SVGSVGElement>) => step(e),
+    onPointerUp: (e: PointerEvent<SVGSVGElement>) => end(e),
+    onPointerCancel: (e: PointerEvent<SVGSVGElement>) => end(e, true),
+  };
+
+  const startMove = useCallback((id: string, from: MapExtent, e: PointerEvent) => enabled && begin(e, { kind: "move", id, from }), [begin, enabled]);
+  const startHandle = useCallback((id: string, handle: HandleKind, from: MapExtent, e: PointerEvent) => enabled && begin(e, { kind: "handle", id, handle, from }), [begin, enabled]);
+
+  return { preview, svgHandlers, startMove, startHandle };
+}

@@ -1,0 +1,160 @@
+"use client";
+// The visit's canal map screen: map, inspector and lesion table, saved through SWR.
+import { useCallback, useEffect, useMemo, useRef, useState } from "react";
+import { CONVENTION_LABEL, MapLegend, type LesionSaveState, type MapExtent } from "@/components/canal-map";
+import { sendJson } from "@/components/data/fetcher";
+import { Caution } from "@/components/ui/caution";
+import { GRADE_LABEL, GRADES, type Grade } from "@/lib/domain/vocab";
+import type { DisplayConvention } from "@/lib/geometry";
+import { ConventionSwitch } from "./convention-switch";
+import { tapExtent } from "./extent-math";
+import { LesionForm } from "./lesion-form";
+import { LesionTable } from "./lesion-table";
+import { MapEditor } from "./map-editor";
+import { useLesionStore } from "./use-lesion-store";
+
+export interface VisitMapEditorProps {
+  visitId: string;
+  initialConvention: DisplayConvention;
+  /** False for roles that may only read (reviewer, admin); the server refuses their writes anyway. */
+  canEdit?: boolean;
+}
+
+export function VisitMapEditor({ visitId, initialConvention, canEdit = true }: VisitMapEditorProps) {
+  const store = useLesionStore(visitId);
+  const [conv, setConv] = useState<DisplayConvention>(initialConvention);
+  const [prefNotice, setPrefNotice] = useState<string | null>(null);
+  const [rawSelected, setSelected] = useState<string | null>(null);
+  const [focusId, setFocusId] = useState<string | null>(null);
+  const [confirmId, setConfirmId] = useState<string | null>(null);
+  const [newGrade, setNewGrade] = useState<Grade>("lsil");
+  const confirmRef = useRef<HTMLButtonElement>(null);
+
+  const readOnly = !canEdit || (store.visit?.readOnly ?? true);
+  const selectedId = rawSelected ? store.resolveId(rawSelected) : null;
+  const selected = store.lesions.find((l) => l.id === selectedId) ?? null;
+  const { create, change, remove } = store;
+
+  const saveStates = useMemo(() => {
+    const out: Record<string, LesionSaveState | undefined> = {};
+    for (const [id, s] of Object.entries(store.status)) out[id] = s?.state;
+    return out;
+  }, [store.status]);
+
+  const onCreate = useCallback(
+    (e: MapExtent) => {
+      const id = create({ ...e, grade: newGrade, vessels: [] });
+      setSelected(id);
+      return id;
+    },
+    [create, newGrade],
+  );
+  const onChange = useCallback((id: string, e: MapExtent) => change(id, e), [change]);
+  const onRequestDelete = useCallback((id: string) => setConfirmId(id), []);
+
+  useEffect(() => {
+    if (confirmId) confirmRef.current?.focus();
+  }, [confirmId]);
+
+  const chooseConvention = async (next: DisplayConvention) => {
+    const before = conv;
+    setConv(next);
+    try {
+      await sendJson("PATCH", "/api/me/preferences", { displayConvention: next });
+      setPrefNotice(null);
+    } catch {
+      setPrefNotice(`Showing ${CONVENTION_LABEL[next]} numbering here, but the choice could not be saved for next time (was ${CONVENTION_LABEL[before]}).`);
+    }
+  };
+
+  if (store.error && !store.visit) {
+    return <Caution tone="danger" title="The map could not be loaded">{store.error.message}</Caution>;
+  }
+  if (!store.visit) return <p role="status" className="text-ink-soft">Loading the map…</p>;
+
+  const confirmLesion = store.lesions.find((l) => l.id === confirmId);
+  const position = store.visit.patientPosition;
+
+  return (
+    <div className="flex flex-col gap-3">
+      {readOnly ? (
+        <div role="status" className="rounded-md border-l-4 border-rule-strong bg-panel px-3 py-2 text-sm">
+          <p className="font-bold">Read only</p>
+          <p>{store.visit.status === "signed" ? "This visit is signed: the map is shown as recorded and cannot be changed." : "You can view this map but not change it."}</p>
+        </div>
+      ) : null}
+      {store.notice ? (
+        <div className="flex items-start gap-2">
+          <div className="flex-1"><Caution tone={store.notice.tone} title={store.notice.text} /></div>
+          <button type="button" onClick={store.dismissNotice} className="min-h-11 rounded-md border border-rule-strong bg-panel px-3 text-sm font-semibold">Dismiss</button>
+        </div>
+      ) : null}
+      {prefNotice ? <Caution title={prefNotice} /> : null}
+
+      <div className="flex flex-wrap items-center gap-3">
+        <ConventionSwitch value={conv} onChange={(v) => void chooseConvention(v)} />
+        {position !== conv ? <span className="text-sm text-ink-soft">Examined in {CONVENTION_LABEL[position].toLowerCase()} position.</span> : null}
+        {!readOnly ? (
+          <div className="ml-auto flex flex-wrap items-center gap-2">
+            <label className="text-sm font-semibold">
+              New lesions:{" "}
+              <select value={newGrade} onChange={(e) => setNewGrade(e.target.value as Grade)} className="min-h-11 rounded-md border border-rule-strong bg-panel px-2">
+                {GRADES.map((g) => <option key={g} value={g}>{GRADE_LABEL[g]}</option>)}
+              </select>
+            </label>
+            <button
+              type="button"
+              onClick={() => setFocusId(onCreate(tapExtent(0, 1, conv)))}
+              className="min-h-11 rounded-md bg-lagoon-600 px-4 font-semibold text-white hover:bg-lagoon-700"
+            >
+              New lesion
+            </button>
+          </div>
+        ) : null}
+      </div>
+
+      {confirmLesion ? (
+        <div role="alertdialog" aria-label={`Delete lesion ${confirmLesion.label}?`} className="flex flex-wrap items-center gap-3 rounded-md border border-danger-rule bg-danger-bg px-3 py-2 text-danger-ink">
+          <span className="font-semibold">Delete lesion {confirmLesion.label}? Its details go with it.</span>
+          <button ref={confirmRef} type="button" className="min-h-11 rounded-md bg-danger-ink px-4 font-semibold text-white" onClick={() => { remove(confirmLesion.id); setConfirmId(null); setSelected(null); }}>Delete</button>
+          <button type="button" className="min-h-11 rounded-md border border-rule-strong bg-panel px-4 font-semibold text-ink" onClick={() => setConfirmId(null)}>Keep</button>
+        </div>
+      ) : null}
+
+      <div className="grid gap-4 lg:grid-cols-[minmax(0,3fr)_minmax(320px,2fr)]">
+        <div className="rounded-lg border border-rule bg-panel p-2">
+          <MapEditor
+            lesions={store.lesions}
+            convention={conv}
+            readOnly={readOnly}
+            selectedId={selectedId}
+            onSelect={setSelected}
+            onCreate={onCreate}
+            onChange={onChange}
+            onRequestDelete={onRequestDelete}
+            saveStates={saveStates}
+            focusId={focusId}
+            newGrade={newGrade}
+          />
+        </div>
+        <aside aria-label="Selected lesion" className="rounded-lg border border-rule bg-panel p-3 lg:max-h-[calc(100vh-8rem)] lg:overflow-y-auto">
+          {selected ? (
+            <LesionForm
+              key={selected.id}
+              lesion={selected}
+              convention={conv}
+              readOnly={readOnly}
+              saveInfo={store.status[selected.id]}
+              onCommit={(patch) => change(selected.id, patch)}
+              onDelete={() => setConfirmId(selected.id)}
+            />
+          ) : (
+            <p className="text-ink-soft">{readOnly ? "Select a lesion on the map or in the table to see its details." : "Tap the map where you see a lesion, or drag to sweep its extent. Select a lesion to edit it here."}</p>
+          )}
+        </aside>
+      </div>
+      <LesionTable lesions={store.lesions} conv={conv} selectedId={selectedId} status={store.status} onSelect={setSelected} />
+      <MapLegend />
+    </div>
+  );
+}

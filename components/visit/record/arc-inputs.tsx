@@ -1,0 +1,48 @@
+"use client";
+import { Button } from "@/components/ui/button";
+import { formatClock, fromDisplayHours, sectorName, toDisplayHours, type DisplayConvention } from "@/lib/geometry";
+import { inputClass } from "./field";
+
+/** One arc as typed: clock numbers in the viewer's display convention, 1–12. */
+export interface ArcDraft { start: string; end: string }
+
+const hourOk = (s: string) => s !== "" && Number(s) > 0 && Number(s) <= 12;
+
+/** Typed display hours → stored-frame arcs, or null while any number is missing or out of range. */
+export function toStoredArcs(all: ArcDraft[], conv: DisplayConvention) {
+  // A row left wholly blank is no arc at all (a treatment of a named lesion may have none).
+  const drafts = all.filter((d) => d.start !== "" || d.end !== "");
+  if (!drafts.every((d) => hourOk(d.start) && hourOk(d.end))) return null;
+  return drafts.map((d) => ({ startH: fromDisplayHours(Number(d.start), conv), endH: fromDisplayHours(Number(d.end), conv) }));
+}
+
+/** "11 o'clock → 2 o'clock clockwise (anterior to left anterior)", in the viewer's convention. */
+export function describeArc(a: { startH: number; endH: number }, conv: DisplayConvention) {
+  return `${formatClock(toDisplayHours(a.startH, conv))} → ${formatClock(toDisplayHours(a.endH, conv))} clockwise (${sectorName(a.startH)} to ${sectorName(a.endH)})`;
+}
+
+export function ArcInputs({ drafts, onChange, conv, error }: { drafts: ArcDraft[]; onChange: (d: ArcDraft[]) => void; conv: DisplayConvention; error?: string }) {
+  const set = (i: number, patch: Partial<ArcDraft>) => onChange(drafts.map((d, j) => (j === i ? { ...d, ...patch } : d)));
+  return (
+    <fieldset className="flex flex-col gap-2">
+      <legend className="text-sm font-semibold">Treated arcs, clockwise, in clock hours as you view them</legend>
+      {drafts.map((d, i) => {
+        const stored = toStoredArcs([d], conv)?.[0];
+        return (
+          <div key={i} className="flex flex-wrap items-end gap-2">
+            <label className="flex flex-col text-sm">From
+              <input type="number" min={0.5} max={12} step={0.5} inputMode="decimal" className={`${inputClass} w-24`} value={d.start} onChange={(e) => set(i, { start: e.target.value })} aria-label={`Arc ${i + 1} from (clock hour)`} />
+            </label>
+            <label className="flex flex-col text-sm">To
+              <input type="number" min={0.5} max={12} step={0.5} inputMode="decimal" className={`${inputClass} w-24`} value={d.end} onChange={(e) => set(i, { end: e.target.value })} aria-label={`Arc ${i + 1} to (clock hour)`} />
+            </label>
+            <Button type="button" variant="ghost" onClick={() => onChange(drafts.filter((_, j) => j !== i))} aria-label={`Remove arc ${i + 1}`}>Remove arc</Button>
+            {stored ? <p className="basis-full text-sm text-ink-soft">{describeArc(stored, conv)}</p> : null}
+          </div>
+        );
+      })}
+      <div><Button type="button" variant="secondary" onClick={() => onChange([...drafts, { start: "", end: "" }])}>Add an arc</Button></div>
+      {error ? <p className="text-sm font-semibold text-danger-ink">✕ {error}</p> : null}
+    </fieldset>
+  );
+}

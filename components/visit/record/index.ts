@@ -1,0 +1,1 @@
+export { VisitRecordPanels } from "./visit-record-panels";

@@ -1,0 +1,140 @@
+import "server-only";
+import { and, asc, eq } from "drizzle-orm";
+import { db } from "../client";
+import { attachments, lesions, visits } from "../schema";
+import { inScope, type SiteScope } from "./scope";
+import { loadVisit, lockDraftVisit } from "./visit-access";
+import { AppError } from "@/lib/errors";
+
+const listColumns = {
+  id: attachments.id,
+  visitId: attachments.visitId,
+  lesionId: attachments.lesionId,
+  kind: attachments.kind,
+  contentType: attachments.contentType,
+  byteSize: attachments.byteSize,
+  sha256: attachments.sha256,
+  caption: attachments.caption,
+  hasThumb: attachments.thumbKey,
+  createdAt: attachments.createdAt,
+  lesionLabel: lesions.label,
+  lesionGrade: lesions.grade,
+  clockStartH: lesions.clockStartH,
+  clockEndH: lesions.clockEndH,
+  distanceStartCm: lesions.distanceStartCm,
+  distanceEndCm: lesions.distanceEndCm,
+};
+
+/** A visit's attachments with the map position of the lesion each one belongs to. */
+export async function listAttachmentsForVisit(scope: SiteScope, visitId: string) {
+  const visit = await loadVisit(db, scope, visitId);
+  const rows = await db
+    .select(listColumns)
+    .from(attachments)
+    .leftJoin(lesions, eq(lesions.id, attachments.lesionId))
+    .where(and(eq(attachments.visitId, visitId), inScope(attachments.siteId, scope)))
+    .orderBy(asc(attachments.createdAt), asc(attachments.id));
+  const items = rows.map(({ hasThumb, lesionLabel, lesionGrade, clockStartH, clockEndH, distanceStartCm, distanceEndCm, ...a }) => ({
+    ...a,
+    hasThumb: Boolean(hasThumb),
+    createdAt: a.createdAt.toISOString(),
+    lesion:
+      a.lesionId && lesionLabel && lesionGrade && clockStartH !== null && clockEndH !== null && distanceStartCm !== null && distanceEndCm !== null
+        ? { label: lesionLabel, grade: lesionGrade, clockStartH, clockEndH, distanceStartCm, distanceEndCm }
+        : null,
+  }));
+  const lesionRows = await db
+    .select({ id: lesions.id, label: lesions.label })
+    .from(lesions)
+    .where(and(eq(lesions.visitId, visitId), inScope(lesions.siteId, scope)))
+    .orderBy(asc(lesions.label));
+  return { visit, attachments: items, lesions: lesionRows };
+}
+
+export type AttachmentListItem = Awaited<ReturnType<typeof listAttachmentsForVisit>>["attachments"][number];
+
+/** True when the lesion was recorded at this visit. */
+export async function lesionBelongsToVisit(scope: SiteScope, visitId: string, lesionId: string): Promise<boolean> {
+  const [row] = await db
+    .select({ id: lesions.id })
+    .from(lesions)
+    .where(and(eq(lesions.id, lesionId), eq(lesions.visitId, visitId), inScope(lesions.siteId, scope)))
+    .limit(1);
+  return Boolean(row);
+}
+
+export interface NewAttachment {
+  id: string;
+  lesionId: string | null;
+  kind: "photo" | "document";
+  contentType: string;
+  byteSize: number;
+  sha256: string;
+  objectKey: string;
+  thumbKey: string | null;
+  caption: string | null;
+}
+
+/**
+ * The row, written after its objects are stored. The lesion is checked again inside the
+ * transaction so a lesion deleted meanwhile cannot leave a dangling link.
+ */
+export async function insertAttachment(scope: SiteScope, visitId: string, a: NewAttachment) {
+  return db.transaction(async (tx) => {
+    const [visit] = await tx
+      .select({ id: visits.id, siteId: visits.siteId, patientId: visits.patientId })
+      .from(visits)
+      .where(and(eq(visits.id, visitId), inScope(visits.siteId, scope)))
+      .for("share")
+      .limit(1);
+    if (!visit) throw new AppError("not_found");
+    if (a.lesionId) {
+      const [l] = await tx.select({ id: lesions.id }).from(lesions).where(and(eq(lesions.id, a.lesionId), eq(lesions.visitId, visitId))).limit(1);
+      if (!l) throw new AppError("invalid", undefined, { lesionId: ["This lesion is not part of this visit."] });
+    }
+    const [row] = await tx
+      .insert(attachments)
+      .values({ ...a, visitId, siteId: visit.siteId, uploadedBy: scope.userId })
+      .returning({ id: attachments.id, createdAt: attachments.createdAt });
+    return { ...row!, siteId: visit.siteId, patientId: visit.patientId };
+  });
+}
+
+/** One attachment the caller's sites may see, with what the download needs; or not_found. */
+export async function findAttachment(scope: SiteScope, attachmentId: string) {
+  const [row] = await db
+    .select({
+      id: attachments.id,
+      visitId: attachments.visitId,
+      siteId: attachments.siteId,
+      kind: attachments.kind,
+      contentType: attachments.contentType,
+      byteSize: attachments.byteSize,
+      sha256: attachments.sha256,
+      objectKey: attachments.objectKey,
+      thumbKey: attachments.thumbKey,
+      patientId: visits.patientId,
+      visitDate: visits.visitDate,
+    })
+    .from(attachments)
+    .innerJoin(visits, eq(visits.id, attachments.visitId))
+    .where(and(eq(attachments.id, attachmentId), inScope(attachments.siteId, scope)))
+    .limit(1);
+  if (!row) throw new AppError("not_found");
+  return row;
+}
+
+/** Removes the row while the visit is a draft (423 once signed); returns the keys to delete. */
+export async function deleteAttachment(scope: SiteScope, attachmentId: string) {
+  return db.transaction(async (tx) => {
+    const [row] = await tx
+      .select({ id: attachments.id, visitId: attachments.visitId, siteId: attachments.siteId, objectKey: attachments.objectKey, thumbKey: attachments.thumbKey })
+      .from(attachments)
+      .where(and(eq(attachments.id, attachmentId), inScope(attachments.siteId, scope)))
+      .limit(1);
+    if (!row) throw new AppError("not_found");
+    const visit = await lockDraftVisit(tx, scope, row.visitId);
+    await tx.delete(attachments).where(eq(attachments.id, row.id));
+    return { ...row, patientId: visit.patientId };
+  });
+}

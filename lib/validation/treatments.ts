@@ -1,0 +1,86 @@
+import { z } from "zod";
+import { MODALITIES } from "@/lib/domain/vocab";
+import { assessDoses, assessExtent, doseEntrySchema, type DoseAssessment, type DoseEntry, type ExtentAssessment } from "@/lib/dosing";
+import type { Arc } from "@/lib/geometry/arcs";
+
+// Treatment and local-anaesthetic forms, shared by the client and the routes, plus the two
+// gates the server applies before it stores an entry. Pure: the routes pass in what the
+// database holds; nothing here trusts a figure computed by the client.
+
+const TOPICAL = new Set(["topical_imiquimod", "topical_fluorouracil", "topical_cidofovir"]);
+export const isTopical = (m: string) => TOPICAL.has(m);
+
+const clockH = z
+  .number({ message: "Clock position must be a number of hours." })
+  .min(0, "Clock hours run from 0 to 12.")
+  .lt(12, "Clock hours run from 0 up to (not including) 12; 12 o'clock is stored as 0.");
+
+/** A clockwise arc in the stored (lithotomy) frame. */
+export const treatedArcSchema = z
+  .object({ startH: clockH, endH: clockH })
+  .refine((a) => Math.abs(a.startH - a.endH) > 1e-9, { message: "An arc must cover part of the circumference: start and end differ.", path: ["endH"] });
+
+const reason = (what: string) => z.string().trim().min(3, `Give the reason for ${what} (at least 3 characters).`).max(1000, "Keep the reason under 1,000 characters.");
+
+export const treatmentSchema = z
+  .object({
+    lesionId: z.string().uuid("Not a lesion of this visit.").nullable().optional(),
+    modality: z.enum(MODALITIES, { message: "Choose how the area was treated." }),
+    regimen: z.string().trim().max(500, "Keep the regimen under 500 characters.").nullable().optional(),
+    arcs: z.array(treatedArcSchema).max(12, "At most 12 arcs per treatment."),
+    extentOverrideReason: reason("treating this much of the circumference").nullable().optional(),
+    note: z.string().trim().max(2000, "Keep the note under 2,000 characters.").nullable().optional(),
+  })
+  .refine((t) => !isTopical(t.modality) || (t.regimen ?? "").length > 0, { message: "Write the regimen for a topical agent (what, how often, how long).", path: ["regimen"] })
+  .refine((t) => isTopical(t.modality) || t.arcs.length > 0 || !!t.lesionId, { message: "Name the lesion treated or enter at least one treated arc.", path: ["arcs"] });
+export type TreatmentInput = z.infer<typeof treatmentSchema>;
+
+export const anaestheticSchema = doseEntrySchema.extend({
+  overrideReason: reason("going over the maximum").nullable().optional(),
+});
+export type AnaestheticInput = z.infer<typeof anaestheticSchema>;
+
+export interface DoseGate {
+  before: DoseAssessment;
+  after: DoseAssessment;
+  /** The new entry leaves some agent, or the combined share, over its maximum. */
+  over: boolean;
+  /** Some total is at or above the warning share (80 %) but none is over. */
+  near: boolean;
+  message: string;
+}
+
+function mg(n: number) {
+  return `${Math.round(n * 10) / 10} mg`;
+}
+
+/** What the visit's running totals become if `added` is stored; the server refuses `over` without a reason. */
+export function gateDose(existing: readonly DoseEntry[], added: DoseEntry, weightKg?: number | null): DoseGate {
+  const w = weightKg ?? undefined;
+  const before = assessDoses(existing, w);
+  const after = assessDoses([...existing, added], w);
+  const overAgents = after.agents.filter((a) => a.level === "over");
+  const over = overAgents.length > 0 || after.combined.level === "over";
+  const near = !over && (after.agents.some((a) => a.level === "near") || after.combined.level === "near");
+  let message = "Within the maximum.";
+  if (overAgents.length) {
+    message = overAgents.map((a) => `This brings ${a.agent} to ${mg(a.totalMg)}, over the maximum of ${mg(a.maxMg)}. ${a.explanation}`).join(" ");
+  } else if (over) {
+    message = `Each agent is under its own maximum, but together they reach ${Math.round(after.combined.fraction * 100)}% of the combined allowance (local anaesthetic toxicity adds up).`;
+  } else if (near) {
+    message = "The running total is close to the maximum (80% or more).";
+  }
+  return { before, after, over, near, message };
+}
+
+export interface ExtentGate {
+  assessment: ExtentAssessment;
+  /** The visit's treated union reaches the caution level with this treatment's arcs added. */
+  needsReason: boolean;
+}
+
+/** The union of all the visit's treated arcs with the new ones, against the site's caution level. */
+export function gateExtent(existingArcs: readonly Arc[], addedArcs: readonly Arc[], cautionFraction: number): ExtentGate {
+  const assessment = assessExtent([...existingArcs, ...addedArcs], cautionFraction);
+  return { assessment, needsReason: addedArcs.length > 0 && assessment.level === "caution" };
+}
