@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import Link from "next/link";
 import { redirect } from "next/navigation";
 import { Wordmark } from "@/components/ui/wordmark";
 import { getCurrentUser } from "@/lib/auth/guard";
@@ -6,14 +7,18 @@ import { SignInForm } from "./sign-in-form";
 
 export const metadata: Metadata = { title: "Sign in" };
 
-export default async function SignInPage() {
+export default async function SignInPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
   if (await getCurrentUser()) redirect("/");
+  const sp = await searchParams;
+  const notice = sp.welcome ? "Your password is set. Sign in to start." : sp.reset ? "Your password was changed. Sign in with the new one." : null;
   return (
     <main className="mx-auto flex min-h-screen max-w-md flex-col justify-center px-6">
       <div className="rounded-xl border border-rule bg-panel p-8 shadow-sm">
         <h1 className="mb-1"><Wordmark /></h1>
         <p className="mb-6 text-ink-soft">Lesion maps and follow-up for the anal precancer clinic.</p>
+        {notice ? <p role="status" className="mb-4 rounded-md bg-lagoon-50 px-3 py-2 text-lagoon-900">{notice}</p> : null}
         <SignInForm />
+        <p className="mt-4 text-sm"><Link href="/forgot-password" className="font-semibold text-lagoon-700 underline">Forgot your password?</Link></p>
       </div>
     </main>
   );

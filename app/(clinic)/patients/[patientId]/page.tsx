@@ -9,6 +9,7 @@ import { uuidParam } from "@/lib/http/route";
 import { NewVisitForm } from "@/components/patient/new-visit-form";
 import { FollowupBanner } from "@/components/followup/overdue-flag";
 import { ScreeningGuidance } from "@/components/followup/screening-guidance";
+import { OpenDisagreements } from "@/components/review/open-disagreements";
 
 export const metadata = { title: "Patient" };
 
@@ -26,7 +27,13 @@ export default async function PatientPage({ params }: { params: Promise<{ patien
   return (
     <AppShell user={user}>
       <p className="text-sm"><Link href="/patients" className="text-lagoon-700 underline">Patients</Link> /</p>
-      <h1 className="mt-1 text-2xl font-bold">{patient.familyName}, {patient.givenName}</h1>
+      <div className="mt-1 flex flex-wrap items-center gap-3">
+        <h1 className="text-2xl font-bold">{patient.familyName}, {patient.givenName}</h1>
+        <nav aria-label="Patient views" className="no-print ml-auto flex gap-2">
+          <Link href={`/patients/${patient.id}/timeline`} className="inline-flex min-h-11 items-center rounded-md border border-rule-strong bg-panel px-4 font-semibold hover:bg-lagoon-50">Timeline</Link>
+          <Link href={`/patients/${patient.id}/compare`} className="inline-flex min-h-11 items-center rounded-md border border-rule-strong bg-panel px-4 font-semibold hover:bg-lagoon-50">Compare visits</Link>
+        </nav>
+      </div>
       <dl className="mt-3 grid grid-cols-2 gap-x-8 gap-y-1 text-sm sm:grid-cols-4">
         <div><dt className="text-ink-soft">MRN</dt><dd className="font-semibold tabular-nums">{patient.mrn}</dd></div>
         <div><dt className="text-ink-soft">Date of birth</dt><dd className="font-semibold tabular-nums">{patient.dateOfBirth}</dd></div>
@@ -35,6 +42,7 @@ export default async function PatientPage({ params }: { params: Promise<{ patien
       </dl>
       <div className="mt-4 space-y-3">
         <FollowupBanner patientId={patient.id} user={user} />
+        <OpenDisagreements patientId={patient.id} canResolve={user.role === "clinician" || user.role === "admin"} />
         <details className="rounded-md border border-rule bg-panel px-4 py-2">
           <summary className="min-h-11 cursor-pointer py-2 font-semibold">Screening guidance (IANS 2024)</summary>
           <ScreeningGuidance riskGroup={patient.riskGroup} dateOfBirth={patient.dateOfBirth} riskDate={patient.riskDate} />

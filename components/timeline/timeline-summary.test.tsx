@@ -1,0 +1,55 @@
+import { describe, expect, it } from "vitest";
+import { summarizeTimeline, timeSinceWords } from "./timeline-summary";
+import type { Timeline } from "./timeline-types";
+
+// A worked history, written by hand:
+// 2025-01-10: T1 HSIL (treated at this visit). 2025-07-10: T1 not found after treatment (cleared),
+// T2 LSIL new. 2026-01-10: T1 found again at the treated site (recurrent), histology SCC, so its
+// effective grade is suspected cancer (histology decides: Darragh 2012 LAST; SCC mapped to the
+// top of the impression scale); T2 persistent LSIL.
+// Cleared / recurrent as defined in ../shared/domain.md §4 (Liu 2018; recurrent: common practice).
+const v = (id: string, visitDate: string) => ({ id, visitDate, status: "signed" as const, patientPosition: "lithotomy" as const, examiner: "Dr A", examinerId: "u1" });
+const lesion = (id: string, visitId: string, trackId: string, effectiveGrade: "lsil" | "hsil" | "suspected_cancer", treated = false) => ({
+  id, visitId, trackId, label: "L1", clockStartH: 1, clockEndH: 2, distanceStartCm: 1, distanceEndCm: 2, zone: "distal_canal" as const,
+  grade: effectiveGrade === "suspected_cancer" ? ("hsil" as const) : effectiveGrade, version: 1, histology: null, effectiveGrade, biopsyLabels: [], treated,
+});
+const timeline = {
+  patient: { id: "p", siteId: "s", name: "Doe, A", mrn: "1" },
+  visits: [v("v1", "2025-01-10"), v("v2", "2025-07-10"), v("v3", "2026-01-10")],
+  tracks: [{ id: "t1", label: "T1" }, { id: "t2", label: "T2" }],
+  lesions: [lesion("a", "v1", "t1", "hsil", true), lesion("b", "v2", "t2", "lsil"), lesion("c", "v3", "t1", "suspected_cancer"), lesion("d", "v3", "t2", "lsil")],
+  statuses: [
+    { trackId: "t1", visitId: "v1", status: "new" as const, effectiveGrade: "hsil" as const, reason: "first" },
+    { trackId: "t1", visitId: "v2", status: "cleared" as const, effectiveGrade: null, reason: "not found after treatment" },
+    { trackId: "t1", visitId: "v3", status: "recurrent" as const, effectiveGrade: "suspected_cancer" as const, reason: "found again" },
+    { trackId: "t2", visitId: "v2", status: "new" as const, effectiveGrade: "lsil" as const, reason: "first" },
+    { trackId: "t2", visitId: "v3", status: "persistent" as const, effectiveGrade: "lsil" as const, reason: "same" },
+  ],
+  checks: [{ visitId: "v2", trackId: "t1", outcome: "not_found" as const }],
+  perVisit: [],
+  reviews: [],
+} as unknown as Timeline;
+
+describe("summarizeTimeline", () => {
+  const s = summarizeTimeline(timeline);
+  it("counts tracks by their latest status", () => {
+    expect(s.countsByStatus.recurrent).toBe(1);
+    expect(s.countsByStatus.persistent).toBe(1);
+    expect(s.countsByStatus.cleared).toBe(0);
+  });
+  it("finds the last HSIL or worse at the latest visit where one was seen", () => {
+    expect(s.lastHsilOrWorse).toEqual({ visitDate: "2026-01-10", trackLabels: ["T1"] });
+  });
+  it("lists treated sites with the visit they were treated at", () => {
+    expect(s.treated).toEqual([{ trackId: "t1", label: "T1", visitDates: ["2025-01-10"] }]);
+  });
+  it("flags a track whose current effective grade is suspected cancer", () => {
+    expect(s.suspectedCancer).toEqual(["T1"]);
+  });
+});
+
+describe("timeSinceWords (calendar months counted by hand)", () => {
+  it("2025-01-15 to 2026-03-20 is 1 year 2 months", () => expect(timeSinceWords("2025-01-15", "2026-03-20")).toBe("1 year 2 months"));
+  it("a month not yet complete does not count: 2025-01-31 to 2025-02-27 is 27 days", () => expect(timeSinceWords("2025-01-31", "2025-02-27")).toBe("27 days"));
+  it("exactly six months", () => expect(timeSinceWords("2025-03-01", "2025-09-01")).toBe("6 months"));
+});
