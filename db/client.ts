@@ -16,20 +16,72 @@ export function onQuery(listener: (query: string) => void): () => void {
   return () => queryListeners.delete(listener);
 }
 
-// One pool per process, reused across hot reloads in development.
-const globalForDb = globalThis as unknown as { __dentateSql?: postgres.Sql };
-
-export const sql: postgres.Sql =
-  globalForDb.__dentateSql ??
-  postgres(databaseUrl(), {
+function openPool(): postgres.Sql {
+  return postgres(databaseUrl(), {
     max: Number(process.env.DATABASE_POOL_MAX ?? 10),
     idle_timeout: 30,
     connect_timeout: 5,
+    // Reconnect attempts back off to at most 1 s (the driver's default climbs to 20 s), so
+    // requests queued during a short outage are served soon after the database is back.
+    backoff: (attempt: number) => Math.min(0.05 * 2 ** attempt, 1),
     onnotice: () => {},
+    onclose: () => schedulePoolSwap(),
     debug: (_connection, query) => {
       for (const l of queryListeners) l(query);
     },
   });
+}
+
+// postgres.js 3.4.x can leave a pooled connection unusable after the server goes away mid-
+// transaction (its rollback is queued on a closed socket; the stale write buffer then swallows
+// the next StartupMessage, so that connection only ever times out: upstream issues #1066/#1154).
+// So whenever a connection closes, later queries go to a fresh pool; the old one is ended once
+// what it already accepted has had time to finish. Idle closes swap too, which costs nothing.
+let current: postgres.Sql | null = null;
+let firstPool: postgres.Sql | null = null;
+let lastSwap = 0;
+let pendingSwap: NodeJS.Timeout | null = null;
+let shuttingDown = false;
+function schedulePoolSwap(): void {
+  if (shuttingDown || pendingSwap || !current) return;
+  // At most one swap a second, but never drop one: a close inside the window swaps at its end.
+  const wait = Math.max(0, lastSwap + 1_000 - Date.now());
+  pendingSwap = setTimeout(swapPool, wait);
+  pendingSwap.unref();
+}
+function swapPool(): void {
+  pendingSwap = null;
+  if (shuttingDown || !current) return;
+  lastSwap = Date.now();
+  const old = current;
+  current = openPool();
+  // drizzle installs its own type parsers on the client it was given; the new pool needs them too.
+  if (firstPool) {
+    Object.assign(current.options.parsers, firstPool.options.parsers);
+    Object.assign(current.options.serializers, firstPool.options.serializers);
+  }
+  setTimeout(() => void old.end({ timeout: 5 }).catch(() => {}), 30_000).unref();
+}
+function pool(): postgres.Sql {
+  if (!current) firstPool = current = openPool();
+  return current;
+}
+
+// The exported client always forwards to the current pool.
+const forwarding = new Proxy((() => {}) as unknown as postgres.Sql, {
+  apply: (_t, _this, args) => (pool() as unknown as (...a: unknown[]) => unknown)(...args),
+  get: (_t, prop) => {
+    if (prop === "end") shuttingDown = true;
+    return Reflect.get(pool(), prop);
+  },
+  set: (_t, prop, value) => Reflect.set(pool(), prop, value),
+  has: (_t, prop) => Reflect.has(pool(), prop),
+});
+
+// One client per process, reused across hot reloads in development.
+const globalForDb = globalThis as unknown as { __dentateSql?: postgres.Sql };
+
+export const sql: postgres.Sql = globalForDb.__dentateSql ?? forwarding;
 if (process.env.NODE_ENV !== "production") globalForDb.__dentateSql = sql;
 
 export const db = drizzle(sql, { schema });

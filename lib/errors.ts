@@ -60,9 +60,25 @@ export interface ErrorBody {
 // PostgreSQL unavailability: connection refused/reset, server shutting down, too many clients.
 const DB_DOWN_CODES = new Set(["ECONNREFUSED", "ECONNRESET", "CONNECT_TIMEOUT", "CONNECTION_CLOSED", "CONNECTION_ENDED", "CONNECTION_DESTROYED", "57P01", "57P02", "57P03", "53300", "08006", "08001", "08003"]);
 
-export function isDatabaseDown(err: unknown): boolean {
-  const code = (err as { code?: string } | null)?.code;
-  return typeof code === "string" && DB_DOWN_CODES.has(code);
+// The driver's error is often wrapped (drizzle's query error keeps it as `cause`; a refused
+// connection to a host with several addresses is an AggregateError), so look a few levels deep.
+export function isDatabaseDown(err: unknown, depth = 0): boolean {
+  if (!err || typeof err !== "object" || depth > 4) return false;
+  const e = err as { code?: unknown; cause?: unknown; errors?: unknown };
+  if (typeof e.code === "string" && DB_DOWN_CODES.has(e.code)) return true;
+  if (Array.isArray(e.errors) && e.errors.some((inner) => isDatabaseDown(inner, depth + 1))) return true;
+  return isDatabaseDown(e.cause, depth + 1);
+}
+
+// PostgreSQL class 22 "data exception" (SQLSTATE, PostgreSQL manual appendix A): the value
+// itself cannot be stored, e.g. 22021 a NUL character in text, 22008 February 30th, 22003 a
+// number out of range. The client sent it, so it is a 400, and the statement wrote nothing.
+// A safety net behind the zod schemas, which should refuse such values first.
+export function isRefusedData(err: unknown, depth = 0): boolean {
+  if (!err || typeof err !== "object" || depth > 4) return false;
+  const e = err as { code?: unknown; cause?: unknown; severity?: unknown };
+  if (typeof e.code === "string" && e.code.startsWith("22") && e.code.length === 5 && typeof e.severity === "string") return true;
+  return isRefusedData(e.cause, depth + 1);
 }
 
 export function errorToBody(err: unknown): { status: number; body: ErrorBody } {
@@ -72,6 +88,10 @@ export function errorToBody(err: unknown): { status: number; body: ErrorBody } {
   if (isDatabaseDown(err)) {
     const e = new AppError("unavailable");
     return { status: e.status, body: { error: { code: e.code, message: e.message } } };
+  }
+  if (isRefusedData(err)) {
+    const e = new AppError("invalid", "Some of the values sent cannot be stored (for example a date that does not exist or a hidden control character).", { _: ["A value cannot be stored."] });
+    return { status: e.status, body: { error: { code: e.code, message: e.message, fields: e.fields } } };
   }
   console.error("[dentate] unexpected error", err);
   return { status: 500, body: { error: { code: "internal", message: "Something went wrong. The team has been told." } } };

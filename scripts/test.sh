@@ -31,11 +31,13 @@ export DENTATE_DIST_DIR=".next-test"
 APP_PID=""
 WORKER_PID=""
 cleanup() {
+  local rc=$?
   [ -n "$APP_PID" ] && kill "$APP_PID" 2>/dev/null && wait "$APP_PID" 2>/dev/null
   [ -n "$WORKER_PID" ] && kill "$WORKER_PID" 2>/dev/null && wait "$WORKER_PID" 2>/dev/null
   stop_s3_fake
   stop_mail_fake
   psql_super "$PG_PORT" -d postgres -c "drop database if exists $DB with (force)" >/dev/null 2>&1 || true
+  exit "$rc"
 }
 trap cleanup EXIT
 
@@ -74,4 +76,6 @@ else
   extra_failed=$((extra_failed + 1))
 fi
 
-node scripts/lib/count-results.mjs "$extra_failed" "$OUT"/unit.json "$OUT"/int.json "$OUT"/e2e.json
+status=0
+node scripts/lib/count-results.mjs "$extra_failed" "$OUT"/unit.json "$OUT"/int.json "$OUT"/e2e.json || status=$?
+exit "$status"

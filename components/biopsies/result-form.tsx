@@ -8,7 +8,7 @@ import { AIN_GRADES, HISTOLOGY, HISTOLOGY_LABEL, P16 } from "@/lib/domain/vocab"
 const P16_LABEL: Record<(typeof P16)[number], string> = { block_positive: "Block positive", not_block: "Positive, not block-type", negative: "Negative", not_done: "Not done" };
 
 /** Enter the laboratory result for one specimen. */
-export function ResultForm({ biopsyId, specimen }: { biopsyId: string; specimen: string }) {
+export function ResultForm({ biopsyId, specimen, onSaved }: { biopsyId: string; specimen: string; onSaved?: () => unknown }) {
   const router = useRouter();
   const [histology, setHistology] = useState<string>("");
   const [ain, setAin] = useState<string>("");
@@ -22,7 +22,8 @@ export function ResultForm({ biopsyId, specimen }: { biopsyId: string; specimen:
     setError(null);
     try {
       await sendJson("PATCH", `/api/biopsies/${biopsyId}`, { histology, ainGrade: ain || null, p16 });
-      router.refresh();
+      if (onSaved) await onSaved();
+      else router.refresh();
     } catch (err) {
       setError(err instanceof ApiError ? Object.values(err.fields ?? {})[0]?.[0] ?? err.message : "Not saved.");
     } finally {

@@ -6,6 +6,7 @@ import { LesionShape, type LesionSaveState, type MapLesion } from "./lesion-shap
 import { MapFace } from "./map-face";
 import { VIEW_BOX } from "./map-geometry";
 import { GradePatternDefs, safeId } from "./patterns";
+import { TreatedRing, type TreatedArc } from "./treated-ring";
 
 export const CONVENTION_LABEL: Record<DisplayConvention, string> = {
   lithotomy: "Lithotomy",
@@ -20,6 +21,9 @@ export interface CanalMapProps {
   /** Previous visit's lesions, drawn faint and dashed for follow-up. */
   ghosts?: readonly GhostLesion[];
   onGhostSelect?: (id: string) => void;
+  selectedGhostId?: string | null;
+  /** This visit's treated arcs (stored hours), drawn as a band just outside the verge. */
+  treatedArcs?: readonly TreatedArc[];
   saveStates?: Readonly<Record<string, LesionSaveState | undefined>>;
   /** Lesions are keyboard-focusable (true on every screen that lets you select). */
   focusable?: boolean;
@@ -44,7 +48,7 @@ export function orientationWords(conv: DisplayConvention): string {
  * decide. Selection, gestures and saving belong to the screen that uses it.
  */
 export function CanalMap(props: CanalMapProps) {
-  const { lesions, convention, selectedId, ghosts, saveStates, focusable = true, overlay, svgRef, svgProps } = props;
+  const { lesions, convention, selectedId, ghosts, selectedGhostId, treatedArcs, saveStates, focusable = true, overlay, svgRef, svgProps } = props;
   const prefix = safeId(useId());
   const desc = useMemo(() => orientationWords(convention), [convention]);
   return (
@@ -63,10 +67,11 @@ export function CanalMap(props: CanalMapProps) {
         <GradePatternDefs prefix={prefix} />
       </defs>
       <MapFace conv={convention} />
+      {treatedArcs?.length ? <TreatedRing arcs={treatedArcs} conv={convention} /> : null}
       {ghosts?.length ? (
         <g opacity={GHOST_MARK.opacity}>
           {ghosts.map((g) => (
-            <GhostShape key={g.id} ghost={g} conv={convention} onSelect={props.onGhostSelect} />
+            <GhostShape key={g.id} ghost={g} conv={convention} selected={g.id === selectedGhostId} onSelect={props.onGhostSelect} />
           ))}
         </g>
       ) : null}

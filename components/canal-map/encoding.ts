@@ -81,6 +81,11 @@ export const TREATED_MARK = { haloPx: 6, dash: "6 4", strokeWidth: 2, markRadius
 export const BIOPSY_TAG = { size: 18, words: "square tag with the specimen letter" } as const;
 /** Previous visit's lesions: faint, dashed, labelled with their track. */
 export const GHOST_MARK = { dash: "5 5", opacity: 0.6, strokeWidth: 2, words: "faint dashed outline with its track label" } as const;
+/**
+ * Treated arcs of this visit: a band just outside the verge ring, drawn as radial rungs between
+ * two thin rails (a "ladder"). No grade uses rungs or rails, so it reads in greyscale too.
+ */
+export const TREATED_RING = { innerGapPx: 3, widthPx: 12, rung: "2.5 3", rail: 1.4, stroke: "var(--color-ink)", words: "ladder band just outside the verge: treated arc this visit" } as const;
 /** Selected lesion: a thick ring in the interface colour, with handles when editable. */
 export const SELECTION_RING = { stroke: "var(--color-lagoon-600)", width: 4, padPx: 4 } as const;
 /** A lesion whose save failed: a thick broken outline in the danger colour and a "!" badge. */

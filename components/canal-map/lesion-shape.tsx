@@ -60,6 +60,7 @@ function LesionShapeInner({ lesion, conv, prefix, selected, saveState, focusable
   const tagWidth = Math.max(BIOPSY_TAG.size, 8 + tagText.length * 10);
 
   return (
+    <>
     <g
       role="button"
       tabIndex={focusable ? 0 : -1}
@@ -90,6 +91,9 @@ function LesionShapeInner({ lesion, conv, prefix, selected, saveState, focusable
           <path d={shape.ring!} fill="none" stroke={SELECTION_RING.stroke} strokeWidth={SELECTION_RING.width} />
         )
       ) : null}
+    </g>
+    {/* Visible marks sit outside the button, so its spoken name is the whole of its label. */}
+    <g aria-hidden="true" pointerEvents="none">
       {lesion.treated ? (
         <g aria-hidden="true" pointerEvents="none">
           <circle cx={shape.outerEdge.x} cy={shape.outerEdge.y} r={TREATED_MARK.markRadius} fill="var(--color-panel)" stroke="var(--color-ink)" strokeWidth={2} />
@@ -119,6 +123,7 @@ function LesionShapeInner({ lesion, conv, prefix, selected, saveState, focusable
         {saveState === "failed" ? " !" : ""}
       </text>
     </g>
+    </>
   );
 }
 

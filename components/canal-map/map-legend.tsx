@@ -1,6 +1,6 @@
 import { useId } from "react";
 import { GRADES } from "@/lib/domain/vocab";
-import { BIOPSY_TAG, GHOST_MARK, GRADE_ENCODING, ORIENTATION_NOTE, TREATED_MARK, UNSAVED_MARK, ZONE_ENCODING } from "./encoding";
+import { BIOPSY_TAG, GHOST_MARK, GRADE_ENCODING, ORIENTATION_NOTE, TREATED_MARK, TREATED_RING, UNSAVED_MARK, ZONE_ENCODING } from "./encoding";
 import { GradePattern, safeId } from "./patterns";
 
 const SWATCH = "M3 25 L3 9 Q20 -1 37 9 L37 25 Q20 17 3 25 Z";
@@ -41,6 +41,14 @@ export function MapLegend({ showGhosts = false, compact = false }: { showGhosts?
             <circle cx={20} cy={13} r={2.2} fill="var(--color-ink)" />
           </Swatch>
           <span><span className="font-semibold">Treated</span> <span className="text-ink-soft">— {TREATED_MARK.words}</span></span>
+        </li>
+        <li className="flex items-center gap-2">
+          <Swatch>
+            <path d="M2 22 Q20 4 38 22" fill="none" stroke={TREATED_RING.stroke} strokeWidth={TREATED_RING.widthPx - 2} strokeDasharray={TREATED_RING.rung} />
+            <path d="M2 22 Q20 4 38 22" fill="none" stroke={TREATED_RING.stroke} strokeWidth={TREATED_RING.rail} transform="translate(0 -5.5)" />
+            <path d="M2 22 Q20 4 38 22" fill="none" stroke={TREATED_RING.stroke} strokeWidth={TREATED_RING.rail} transform="translate(0 5.5)" />
+          </Swatch>
+          <span><span className="font-semibold">Treated arc</span> <span className="text-ink-soft">— {TREATED_RING.words}</span></span>
         </li>
         <li className="flex items-center gap-2">
           <Swatch>

@@ -18,6 +18,7 @@ export function navLinksFor(role: Role): NavLink[] {
       return [
         { href: "/patients", label: "Patients" },
         { href: "/worklist", label: "Worklist" },
+        { href: "/quality", label: "Quality" },
       ];
     case "admin":
       return [
@@ -27,6 +28,8 @@ export function navLinksFor(role: Role): NavLink[] {
         { href: "/staff", label: "Staff" },
         { href: "/followup-rules", label: "Follow-up rules" },
         { href: "/audit", label: "Audit" },
+        { href: "/studies", label: "Studies" },
+        { href: "/quality", label: "Quality" },
       ];
     case "research_nurse":
       return [{ href: "/studies", label: "Studies" }];

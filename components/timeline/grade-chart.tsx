@@ -33,7 +33,7 @@ export function GradeChart({ timeline }: { timeline: Timeline }) {
       <figcaption className="font-bold">Lesions by grade and treated circumference, by visit</figcaption>
       <div className="mt-2 h-72 w-full print:h-64" aria-hidden="true">
         <ResponsiveContainer width="100%" height="100%">
-          <ComposedChart data={rows} margin={{ top: 8, right: 16, bottom: 8, left: 0 }}>
+          <ComposedChart accessibilityLayer={false} data={rows} margin={{ top: 8, right: 16, bottom: 8, left: 0 }}>
             <defs>
               {GRADES.map((g) => (
                 <GradePattern key={g} id={patternId(prefix, g)} grade={g} />

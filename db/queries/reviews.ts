@@ -77,6 +77,10 @@ export async function resolveAdjudication(scope: SiteScope, adjudicationId: stri
 
 /** Open disagreements on a patient, for the patient page. */
 export async function listOpenDisagreements(scope: SiteScope, patientId: string) {
+  // Another site's patient (or none) is not found, not an empty list: the answer must not
+  // differ from the one for a record that does not exist, and must not read as "no reviews".
+  const [p] = await db.select({ id: patients.id }).from(patients).where(and(eq(patients.id, patientId), inScope(patients.siteId, scope)));
+  if (!p) throw new AppError("not_found");
   return db
     .select({ id: adjudications.id, trackLabel: lesionTracks.label, proposedStatus: adjudications.proposedStatus, comment: adjudications.comment, reviewer: users.displayName, createdAt: adjudications.createdAt, reviewId: reviews.id, visitId: reviews.visitId, comparedVisitId: reviews.comparedVisitId })
     .from(adjudications)

@@ -60,3 +60,13 @@ export async function listStaff(siteIds: string[]) {
     .where(inArray(userSites.siteId, siteIds))
     .orderBy(users.displayName);
 }
+
+/** Forget one counted attempt (a successful sign-in does not count against its address). */
+export async function releaseRateLimit(key: string): Promise<void> {
+  await db.update(rateLimits).set({ count: dsql`greatest(${rateLimits.count} - 1, 0)` }).where(eq(rateLimits.key, key));
+}
+
+/** Start the window afresh (a successful sign-in clears the account's failed attempts). */
+export async function resetRateLimit(key: string): Promise<void> {
+  await db.delete(rateLimits).where(eq(rateLimits.key, key));
+}

@@ -27,6 +27,7 @@ async function main() {
     await tx.insert(s.studySites).values({ studyId: study!.id, siteId: siteId("HBR") });
 
     let subject = 0;
+    let withdrawnDone = false;
     for (const p of scenario) {
       const sid = siteId(p.siteCode);
       const [patient] = await tx.insert(s.patients).values({
@@ -86,9 +87,14 @@ async function main() {
       }
       if (p.siteCode === "HBR" && p.consentResearch) {
         subject++;
+        // One participant withdraws the day after their first visit, so exports show the cut.
+        const withdraws = !withdrawnDone && p.visits.length >= 3;
+        if (withdraws) withdrawnDone = true;
+        const next = new Date(`${p.visits[0]!.date}T00:00:00Z`);
+        next.setUTCDate(next.getUTCDate() + 1);
         await tx.insert(s.enrolments).values({
           studyId: study!.id, patientId: patient!.id, siteId: sid, studySubjectId: `ABL-${String(subject).padStart(3, "0")}`,
-          consentDate: p.visits[0]!.date, withdrawnOn: subject === 4 ? "2025-06-30" : null,
+          consentDate: p.visits[0]!.date, withdrawnOn: withdraws ? next.toISOString().slice(0, 10) : null,
         });
       }
     }

@@ -1,5 +1,5 @@
 import "server-only";
-import { findUserCredentials, hitRateLimit } from "@/db/queries/users";
+import { findUserCredentials, hitRateLimit, releaseRateLimit, resetRateLimit } from "@/db/queries/users";
 import { recordAudit } from "@/db/queries/audit";
 import { AppError } from "@/lib/errors";
 import type { Role } from "@/lib/domain/vocab";
@@ -15,9 +15,13 @@ export const SIGN_IN_LIMITS = { perAccount: 10, perAddress: 50, windowSeconds: 1
  * password.
  */
 export async function signIn(email: string, password: string, ip: string): Promise<{ sessionId: string; userId: string; role: Role }> {
+  // Counted before the password is checked, atomically, so a burst cannot slip past the limit;
+  // a successful sign-in then gives its attempt back (only failures accumulate).
+  const accountKey = `sign-in:account:${email}`;
+  const addressKey = `sign-in:ip:${ip}`;
   const [accountHits, addressHits] = await Promise.all([
-    hitRateLimit(`sign-in:account:${email}`, SIGN_IN_LIMITS.windowSeconds),
-    hitRateLimit(`sign-in:ip:${ip}`, SIGN_IN_LIMITS.windowSeconds),
+    hitRateLimit(accountKey, SIGN_IN_LIMITS.windowSeconds),
+    hitRateLimit(addressKey, SIGN_IN_LIMITS.windowSeconds),
   ]);
   if (accountHits > SIGN_IN_LIMITS.perAccount || addressHits > SIGN_IN_LIMITS.perAddress) {
     await recordAudit({ action: "sign_in.rate_limited", ip, detail: { email } });
@@ -31,6 +35,7 @@ export async function signIn(email: string, password: string, ip: string): Promi
     await recordAudit({ userId: account?.id ?? null, action: "sign_in.failed", ip, detail: { email } });
     throw new AppError("unauthenticated", "That e-mail and password do not match an active account.");
   }
+  await Promise.all([resetRateLimit(accountKey), releaseRateLimit(addressKey)]);
   const sessionId = await createSession(account.id);
   await recordAudit({ userId: account.id, action: "sign_in.succeeded", ip });
   return { sessionId, userId: account.id, role: account.role };

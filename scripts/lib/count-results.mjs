@@ -16,8 +16,12 @@ for (const f of files) {
   passed += r.numPassedTests ?? 0;
   failed += r.numFailedTests ?? 0;
   skipped += (r.numPendingTests ?? 0) + (r.numTodoTests ?? 0);
-  // A file that failed to load has no tests but is a failure.
-  for (const suite of r.testResults ?? []) if (suite.status === "failed" && (suite.assertionResults ?? []).length === 0) failed += 1;
+  // A file that failed outside its tests (failed to load, a failing beforeAll/afterAll) is a
+  // failure even when every test in it passed.
+  for (const suite of r.testResults ?? []) {
+    const failedInside = (suite.assertionResults ?? []).some((a) => a.status === "failed");
+    if (suite.status === "failed" && !failedInside) failed += 1;
+  }
 }
 console.log(`${passed} passed, ${failed} failed${skipped ? `, ${skipped} skipped` : ""}`);
 process.exit(failed > 0 || passed === 0 ? 1 : 0);

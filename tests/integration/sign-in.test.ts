@@ -49,6 +49,18 @@ describe("sign-in", () => {
     expect(err.code).toBe("rate_limited");
   });
 
+  it("counts failures only: repeated successful sign-ins never lock the account out", async () => {
+    const { email } = await account();
+    for (let i = 0; i < SIGN_IN_LIMITS.perAccount + 5; i++) {
+      await expect(signIn(email, "correct horse battery", "10.2.0.1")).resolves.toHaveProperty("sessionId");
+    }
+    // A success clears earlier failures of the account.
+    for (let i = 0; i < SIGN_IN_LIMITS.perAccount - 1; i++) await signIn(email, "wrong", "10.2.0.2").catch(() => null);
+    await signIn(email, "correct horse battery", "10.2.0.2");
+    for (let i = 0; i < SIGN_IN_LIMITS.perAccount - 1; i++) await signIn(email, "wrong", "10.2.0.3").catch(() => null);
+    await expect(signIn(email, "correct horse battery", "10.2.0.3")).resolves.toHaveProperty("sessionId");
+  });
+
   it("rate-limits an address across accounts", async () => {
     const ip = `10.9.${Math.floor(Math.random() * 200)}.9`;
     let limited = false;

@@ -14,7 +14,7 @@ function LesionTableInner({ lesions, conv, selectedId, status, onSelect }: { les
     <table className="w-full border-collapse rounded-lg bg-panel text-left text-sm">
       <caption className="py-1 text-left font-bold">Lesions at this visit ({lesions.length})</caption>
       <thead className="border-b border-rule bg-lagoon-50">
-        <tr><th className="px-2 py-2">Lesion</th><th className="px-2 py-2">Impression</th><th className="px-2 py-2">Clock</th><th className="px-2 py-2">cm from verge</th><th className="px-2 py-2">Zone</th><th className="px-2 py-2">Biopsy</th><th className="px-2 py-2">State</th></tr>
+        <tr><th className="px-2 py-2">Lesion</th><th className="px-2 py-2">Track</th><th className="px-2 py-2">Impression</th><th className="px-2 py-2">Clock</th><th className="px-2 py-2">cm from verge</th><th className="px-2 py-2">Zone</th><th className="px-2 py-2">Biopsy</th><th className="px-2 py-2">State</th></tr>
       </thead>
       <tbody>
         {lesions.map((l) => {
@@ -27,6 +27,7 @@ function LesionTableInner({ lesions, conv, selectedId, status, onSelect }: { les
                   {l.label}
                 </button>
               </td>
+              <td className="px-2 py-1" data-track-cell>{l.trackLabel ?? "—"}</td>
               <td className="px-2 py-1">
                 <span aria-hidden="true" className="mr-1 inline-block size-3 rounded-full" style={{ background: GRADE_ENCODING[l.grade].hue }} />
                 {GRADE_ENCODING[l.grade].label}
@@ -39,7 +40,7 @@ function LesionTableInner({ lesions, conv, selectedId, status, onSelect }: { les
             </tr>
           );
         })}
-        {lesions.length === 0 ? <tr><td colSpan={7} className="px-2 py-4 text-center text-ink-soft">No lesions recorded yet.</td></tr> : null}
+        {lesions.length === 0 ? <tr><td colSpan={8} className="px-2 py-4 text-center text-ink-soft">No lesions recorded yet.</td></tr> : null}
       </tbody>
     </table>
   );

@@ -2,7 +2,7 @@
 // The interactive canal map: gestures and keys in, extents out. It holds no server state;
 // the owner (VisitMapEditor) saves. Tested on its own in map-editor.test.tsx.
 import { memo, useCallback, useEffect, useLayoutEffect, useMemo, useRef, type KeyboardEvent, type PointerEvent } from "react";
-import { CanalMap, sectorOf, polar, type GhostLesion, type LesionSaveState, type MapExtent, type MapLesion } from "@/components/canal-map";
+import { CanalMap, sectorOf, polar, type GhostLesion, type LesionSaveState, type MapExtent, type MapLesion, type TreatedArc } from "@/components/canal-map";
 import type { DisplayConvention } from "@/lib/geometry";
 import type { Grade } from "@/lib/domain/vocab";
 import { moveExtent, resizeArc, resizeDepth, STEP_CM, STEP_H, type HandleKind } from "./extent-math";
@@ -21,6 +21,10 @@ export interface MapEditorProps {
   onRequestDelete: (id: string) => void;
   saveStates?: Readonly<Record<string, LesionSaveState | undefined>>;
   ghosts?: readonly GhostLesion[];
+  /** Selecting an earlier track's outline (follow-up); absent = ghosts are only drawn. */
+  onGhostSelect?: (id: string) => void;
+  selectedGhostId?: string | null;
+  treatedArcs?: readonly TreatedArc[];
   /** A lesion to move keyboard focus to once it is on the map (e.g. after "New lesion"). */
   focusId?: string | null;
   /** Grade the lesion being drawn is shown with (the grade new lesions will get). */
@@ -32,7 +36,7 @@ export const KEY_HELP = "Tap or drag on the map to add · Tab to a lesion · ←
 const extentOf = (l: MapExtent): MapExtent => ({ clockStartH: l.clockStartH, clockEndH: l.clockEndH, distanceStartCm: l.distanceStartCm, distanceEndCm: l.distanceEndCm });
 
 export function MapEditor(props: MapEditorProps) {
-  const { lesions, convention, readOnly, selectedId, onSelect, onCreate, onChange, onRequestDelete, saveStates, ghosts, focusId, newGrade = "lsil" } = props;
+  const { lesions, convention, readOnly, selectedId, onSelect, onCreate, onChange, onRequestDelete, saveStates, ghosts, onGhostSelect, selectedGhostId, treatedArcs, focusId, newGrade = "lsil" } = props;
   const svgRef = useRef<SVGSVGElement | null>(null);
   const { preview, svgHandlers, startMove, startHandle } = useMapGestures({ svgRef, conv: convention, enabled: !readOnly, onCreate, onChange });
 
@@ -112,6 +116,9 @@ export function MapEditor(props: MapEditorProps) {
           convention={convention}
           selectedId={selectedId}
           ghosts={ghosts}
+          onGhostSelect={onGhostSelect}
+          selectedGhostId={selectedGhostId}
+          treatedArcs={treatedArcs}
           saveStates={saveStates}
           onLesionPointerDown={onLesionPointerDown}
           onLesionKeyDown={onLesionKeyDown}

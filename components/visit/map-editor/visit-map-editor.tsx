@@ -1,7 +1,7 @@
 "use client";
 // The visit's canal map screen: map, inspector and lesion table, saved through SWR.
 import { useCallback, useEffect, useMemo, useRef, useState } from "react";
-import { CONVENTION_LABEL, MapLegend, type LesionSaveState, type MapExtent } from "@/components/canal-map";
+import { CONVENTION_LABEL, MapLegend, type GhostLesion, type LesionSaveState, type MapExtent } from "@/components/canal-map";
 import { sendJson } from "@/components/data/fetcher";
 import { Caution } from "@/components/ui/caution";
 import { GRADE_LABEL, GRADES, type Grade } from "@/lib/domain/vocab";
@@ -12,6 +12,13 @@ import { LesionForm } from "./lesion-form";
 import { LesionTable } from "./lesion-table";
 import { MapEditor } from "./map-editor";
 import { useLesionStore } from "./use-lesion-store";
+import { FollowUpPanel, GhostCard } from "@/components/visit/follow-up/follow-up-panel";
+import { TrackTools } from "@/components/visit/follow-up/track-tools";
+import { TreatedSummary } from "@/components/visit/follow-up/treated-summary";
+import { useFollowUp } from "@/components/visit/follow-up/use-follow-up";
+import { useLookAgain } from "@/components/visit/follow-up/use-look-again";
+import { useTreatedArcs } from "@/components/visit/follow-up/use-treated-arcs";
+import { ghostStatusWords } from "@/components/visit/follow-up/look-again";
 
 export interface VisitMapEditorProps {
   visitId: string;
@@ -24,7 +31,11 @@ export function VisitMapEditor({ visitId, initialConvention, canEdit = true }: V
   const store = useLesionStore(visitId);
   const [conv, setConv] = useState<DisplayConvention>(initialConvention);
   const [prefNotice, setPrefNotice] = useState<string | null>(null);
-  const [rawSelected, setSelected] = useState<string | null>(null);
+  const [rawSelected, setLesionSelected] = useState<string | null>(null);
+  const [selectedTrack, setSelectedTrack] = useState<string | null>(null);
+  const fu = useFollowUp(visitId);
+  const look = useLookAgain(fu, store.lesions);
+  const treated = useTreatedArcs(visitId);
   const [focusId, setFocusId] = useState<string | null>(null);
   const [confirmId, setConfirmId] = useState<string | null>(null);
   const [newGrade, setNewGrade] = useState<Grade>("lsil");
@@ -34,6 +45,29 @@ export function VisitMapEditor({ visitId, initialConvention, canEdit = true }: V
   const selectedId = rawSelected ? store.resolveId(rawSelected) : null;
   const selected = store.lesions.find((l) => l.id === selectedId) ?? null;
   const { create, change, remove } = store;
+  // Picking a lesion and picking an earlier outline exclude each other: one inspector.
+  const setSelected = useCallback((id: string | null) => {
+    setLesionSelected(id);
+    if (id) setSelectedTrack(null);
+  }, []);
+  const onGhostSelect = useCallback((trackId: string) => {
+    setSelectedTrack(trackId);
+    setLesionSelected(null);
+  }, []);
+  const fuGhosts = fu.data?.ghosts;
+  const ghosts = useMemo<GhostLesion[]>(
+    () => (fuGhosts ?? []).map((g) => ({ id: g.trackId, trackLabel: g.trackLabel, grade: g.grade, clockStartH: g.clockStartH, clockEndH: g.clockEndH, distanceStartCm: g.distanceStartCm, distanceEndCm: g.distanceEndCm, statusWords: ghostStatusWords(g).toLowerCase() })),
+    [fuGhosts],
+  );
+  // A lesion saved, moved or deleted changes the suggestions: ask again once the server has it.
+  const savedSignature = store.lesions.filter((l) => !l.id.startsWith("tmp-")).map((l) => `${l.id}:${l.version}`).join();
+  const revalidateTracks = fu.revalidate;
+  const lastSignature = useRef(savedSignature);
+  useEffect(() => {
+    if (lastSignature.current === savedSignature) return;
+    lastSignature.current = savedSignature;
+    void revalidateTracks();
+  }, [savedSignature, revalidateTracks]);
 
   const saveStates = useMemo(() => {
     const out: Record<string, LesionSaveState | undefined> = {};
@@ -133,12 +167,19 @@ export function VisitMapEditor({ visitId, initialConvention, canEdit = true }: V
             onChange={onChange}
             onRequestDelete={onRequestDelete}
             saveStates={saveStates}
+            ghosts={ghosts}
+            onGhostSelect={onGhostSelect}
+            selectedGhostId={selectedTrack}
+            treatedArcs={treated.arcs}
             focusId={focusId}
             newGrade={newGrade}
           />
         </div>
         <aside aria-label="Selected lesion" className="rounded-lg border border-rule bg-panel p-3 lg:max-h-[calc(100vh-8rem)] lg:overflow-y-auto">
-          {selected ? (
+          {selectedTrack ? (
+            <GhostCard fu={fu} look={look} conv={conv} readOnly={readOnly} trackId={selectedTrack} onClose={() => setSelectedTrack(null)} />
+          ) : selected ? (
+            <>
             <LesionForm
               key={selected.id}
               lesion={selected}
@@ -148,13 +189,17 @@ export function VisitMapEditor({ visitId, initialConvention, canEdit = true }: V
               onCommit={(patch) => change(selected.id, patch)}
               onDelete={() => setConfirmId(selected.id)}
             />
+            {fu.data ? <TrackTools fu={fu} lesion={selected} lesions={store.lesions} readOnly={readOnly} /> : null}
+            </>
           ) : (
             <p className="text-ink-soft">{readOnly ? "Select a lesion on the map or in the table to see its details." : "Tap the map where you see a lesion, or drag to sweep its extent. Select a lesion to edit it here."}</p>
           )}
         </aside>
       </div>
+      <TreatedSummary extent={treated.extent} cautionFraction={treated.cautionFraction} />
+      <FollowUpPanel fu={fu} look={look} lesions={store.lesions} conv={conv} readOnly={readOnly} selectedTrackId={selectedTrack} onSelectTrack={onGhostSelect} />
       <LesionTable lesions={store.lesions} conv={conv} selectedId={selectedId} status={store.status} onSelect={setSelected} />
-      <MapLegend />
+      <MapLegend showGhosts={ghosts.length > 0} />
     </div>
   );
 }

@@ -4,6 +4,7 @@ import { AppShell } from "@/components/shell/app-shell";
 import { VisitMapEditor } from "@/components/visit/map-editor/visit-map-editor";
 import { VisitRecordPanels } from "@/components/visit/record/visit-record-panels";
 import { VisitGallery } from "@/components/visit/gallery/visit-gallery";
+import { BiopsiesPanel } from "@/components/visit/biopsies-panel";
 import { getPatient } from "@/db/queries/patients";
 import { loadVisit } from "@/db/queries/visit-access";
 import { recordAudit } from "@/db/queries/audit";
@@ -44,6 +45,9 @@ export default async function VisitPage({ params }: { params: Promise<{ patientI
         <h2 id="map-heading" className="sr-only">Canal map</h2>
         <VisitMapEditor visitId={visit.id} initialConvention={user.displayConvention} canEdit={canEdit} />
       </section>
+      <div className="mt-8">
+        <BiopsiesPanel visitId={visit.id} canEdit={canEdit} canEnterResults={user.role === "clinician"} />
+      </div>
       <section aria-label="Visit record" className="mt-8">
         <VisitRecordPanels visitId={visit.id} />
       </section>

@@ -1,0 +1,17 @@
+import { Readable } from "node:stream";
+import { streamWorkbookExport } from "@/db/queries/research/export-stream";
+import { route } from "@/lib/http/route";
+import { EXPORT_ROLES, attachmentHeaders, exportStamp, prepareExport } from "../prepare";
+
+export const dynamic = "force-dynamic";
+
+const XLSX = "application/vnd.openxmlformats-officedocument.spreadsheetml.sheet";
+
+/** GET /api/exports/workbook?studyId=…: counts, lesions and outcomes as one streamed workbook. */
+export const GET = route({ roles: EXPORT_ROLES }, async ({ req, user, ip }) => {
+  const { scope, studyCode } = await prepareExport(req, user);
+  const stream = streamWorkbookExport(scope, { userId: user.id, ip, format: "xlsx", reason: scope.filter.reason });
+  return new Response(Readable.toWeb(stream) as ReadableStream, {
+    headers: attachmentHeaders(`${studyCode}-registry-${exportStamp(scope.filter.identified)}.xlsx`, XLSX),
+  });
+});

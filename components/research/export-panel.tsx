@@ -1,0 +1,97 @@
+"use client";
+
+import { useMemo, useState } from "react";
+import { GRADE_LABEL, GRADES } from "@/lib/domain/vocab";
+
+const DATASETS = [
+  ["counts", "Lesion counts per visit"],
+  ["lesions", "Lesions, one row each"],
+  ["outcomes", "Outcomes per patient"],
+] as const;
+
+/**
+ * Builds the download links for the streamed exports. Downloads are plain links, so the browser
+ * streams the file to disk and nothing is held in page memory.
+ */
+export function ExportPanel({ studyId, sites, canIdentify }: { studyId: string; sites: { id: string; code: string }[]; canIdentify: boolean }) {
+  const [siteId, setSiteId] = useState("");
+  const [from, setFrom] = useState("");
+  const [to, setTo] = useState("");
+  const [grade, setGrade] = useState("");
+  const [dates, setDates] = useState<"offset" | "year">("offset");
+  const [identified, setIdentified] = useState(false);
+  const [reason, setReason] = useState("");
+
+  const query = useMemo(() => {
+    const q = new URLSearchParams({ studyId, dates });
+    if (siteId) q.set("siteId", siteId);
+    if (from) q.set("from", from);
+    if (to) q.set("to", to);
+    if (grade) q.set("grade", grade);
+    if (identified) {
+      q.set("identified", "1");
+      q.set("reason", reason);
+    }
+    return q.toString();
+  }, [studyId, dates, siteId, from, to, grade, identified, reason]);
+  const blocked = identified && reason.trim().length < 10;
+  const field = "min-h-11 rounded-md border border-rule-strong bg-panel px-2 font-normal";
+
+  return (
+    <div className="space-y-4">
+      <fieldset className="flex flex-wrap items-end gap-3">
+        <legend className="sr-only">Filters</legend>
+        {sites.length > 1 ? (
+          <label className="text-sm font-semibold">Site<br />
+            <select value={siteId} onChange={(e) => setSiteId(e.target.value)} className={field}>
+              <option value="">All my sites</option>
+              {sites.map((s) => <option key={s.id} value={s.id}>{s.code}</option>)}
+            </select>
+          </label>
+        ) : null}
+        <label className="text-sm font-semibold">Visits from<br /><input type="date" value={from} onChange={(e) => setFrom(e.target.value)} className={field} /></label>
+        <label className="text-sm font-semibold">to<br /><input type="date" value={to} onChange={(e) => setTo(e.target.value)} className={field} /></label>
+        <label className="text-sm font-semibold">Grade seen<br />
+          <select value={grade} onChange={(e) => setGrade(e.target.value)} className={field}>
+            <option value="">Any grade</option>
+            {GRADES.map((g) => <option key={g} value={g}>{GRADE_LABEL[g]}</option>)}
+          </select>
+        </label>
+        <label className="text-sm font-semibold">Dates as<br />
+          <select value={dates} onChange={(e) => setDates(e.target.value as "offset" | "year")} className={field} disabled={identified}>
+            <option value="offset">Days since enrolment</option>
+            <option value="year">Year only</option>
+          </select>
+        </label>
+      </fieldset>
+      {canIdentify ? (
+        <div className="rounded-md border border-caution-rule bg-caution-bg p-3 text-sm text-caution-ink">
+          <label className="flex items-center gap-2 font-semibold">
+            <input type="checkbox" checked={identified} onChange={(e) => setIdentified(e.target.checked)} className="h-5 w-5" />
+            Identified export (names, MRNs, full dates)
+          </label>
+          {identified ? (
+            <label className="mt-2 block">Reason, kept in the audit log (at least 10 characters)<br />
+              <input value={reason} onChange={(e) => setReason(e.target.value)} maxLength={500} className={`${field} w-full`} />
+            </label>
+          ) : null}
+        </div>
+      ) : null}
+      <ul className="flex flex-wrap gap-2" aria-label="Downloads">
+        {DATASETS.map(([key, label]) => (
+          <li key={key}>
+            <a aria-disabled={blocked} href={blocked ? undefined : `/api/exports/${key}?${query}`} className="inline-flex min-h-11 items-center rounded-md border border-rule-strong bg-panel px-3 font-semibold hover:bg-lagoon-50 aria-disabled:opacity-50" download>
+              {label} (CSV)
+            </a>
+          </li>
+        ))}
+        <li>
+          <a aria-disabled={blocked} href={blocked ? undefined : `/api/exports/workbook?${query}`} className="inline-flex min-h-11 items-center rounded-md bg-lagoon-600 px-3 font-semibold text-white hover:bg-lagoon-700 aria-disabled:opacity-50" download>
+            All three (workbook)
+          </a>
+        </li>
+      </ul>
+      <p className="text-xs text-ink-soft">De-identified under HIPAA Safe Harbor: no names, MRNs, contact details or notes; dates as offsets or years; ages over 89 as 90+; ZIP as 3 digits (000 for small areas). Only signed visits, and none on or after a withdrawal. Every export is logged.</p>
+    </div>
+  );
+}

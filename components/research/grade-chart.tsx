@@ -1,0 +1,44 @@
+"use client";
+
+import { Bar, BarChart, CartesianGrid, Legend, ResponsiveContainer, Tooltip, XAxis, YAxis } from "recharts";
+import { GRADE_LABEL, GRADES, type Grade } from "@/lib/domain/vocab";
+
+const FILL: Record<Grade, string> = {
+  benign: "var(--color-grade-benign)",
+  condyloma: "var(--color-grade-condyloma)",
+  lsil: "var(--color-grade-lsil)",
+  hsil: "var(--color-grade-hsil)",
+  suspected_cancer: "var(--color-grade-cancer)",
+};
+
+export type QuarterRow = { quarter: string } & Record<Grade, number>;
+
+/** Lesions seen per quarter, stacked by impression grade; the table below carries the same figures for greyscale and screen readers. */
+export function GradeChart({ rows }: { rows: QuarterRow[] }) {
+  if (rows.length === 0) return <p className="text-sm text-ink-soft">No lesions recorded at signed visits yet.</p>;
+  return (
+    <figure>
+      <div className="h-72 w-full">
+        <ResponsiveContainer>
+          <BarChart data={rows} margin={{ top: 8, right: 16, bottom: 8, left: 0 }}>
+            <CartesianGrid stroke="var(--color-rule)" vertical={false} />
+            <XAxis dataKey="quarter" tick={{ fontSize: 12 }} />
+            <YAxis allowDecimals={false} tick={{ fontSize: 12 }} />
+            <Tooltip />
+            <Legend />
+            {GRADES.map((g) => (
+              <Bar key={g} dataKey={g} name={GRADE_LABEL[g]} stackId="grade" fill={FILL[g]} stroke="var(--color-panel)" isAnimationActive={false} />
+            ))}
+          </BarChart>
+        </ResponsiveContainer>
+      </div>
+      <details className="mt-2 text-sm">
+        <summary className="cursor-pointer font-semibold text-lagoon-700">Figures as a table</summary>
+        <table className="mt-2 w-full text-left tabular-nums">
+          <thead><tr><th className="pr-3">Quarter</th>{GRADES.map((g) => <th key={g} className="pr-3 text-right">{GRADE_LABEL[g]}</th>)}</tr></thead>
+          <tbody>{rows.map((r) => <tr key={r.quarter}><td className="pr-3">{r.quarter}</td>{GRADES.map((g) => <td key={g} className="pr-3 text-right">{r[g]}</td>)}</tr>)}</tbody>
+        </table>
+      </details>
+    </figure>
+  );
+}

@@ -1,0 +1,94 @@
+import "server-only";
+import { sql } from "../../client";
+import { GRADES, type Grade } from "@/lib/domain/vocab";
+import { kaplanMeier, numbersAtRisk, medianSurvival, type SurvivalStep } from "@/lib/stats";
+import { exportFilterSchema } from "@/lib/validation/research";
+import { baseCtes, type ExportScope } from "./export-scope";
+import { outcomesSelect } from "./export-sql";
+
+// The registry dashboard reads the same CTEs and outcome definitions as the exports, so a figure
+// on screen and a figure in a statistician's file can never disagree.
+
+export interface RegistryDashboard {
+  patients: number;
+  visits: number;
+  lesions: number;
+  gradeByQuarter: ({ quarter: string } & Record<Grade, number>)[];
+  clearance: {
+    lesionsTreatedFollowed: number;
+    lesionsCleared: number;
+    patientsTreatedFollowed: number;
+    patientsCleared: number;
+  };
+  recurrence: { steps: SurvivalStep[]; ticks: number[]; atRisk: number[]; medianDays: number | null; patients: number; events: number };
+}
+
+function scopeFor(studyId: string, siteIds: string[]): ExportScope {
+  return { filter: exportFilterSchema.parse({ studyId }), siteIds };
+}
+
+export async function loadRegistryDashboard(studyId: string, siteIds: string[]): Promise<RegistryDashboard> {
+  const scope = scopeFor(studyId, siteIds);
+  const ctes = baseCtes(scope);
+  const [totals] = await sql.unsafe<{ patients: number; visits: number; lesions: number }[]>(`WITH ${ctes}
+    SELECT (SELECT count(*)::int FROM enr WHERE withdrawn_on IS NULL) AS patients,
+      (SELECT count(*)::int FROM vis) AS visits,
+      (SELECT count(*)::int FROM vis JOIN lesions l ON l.visit_id = vis.id) AS lesions`);
+  const gradeRows = await sql.unsafe<{ quarter: string; grade: Grade; n: number }[]>(`WITH ${ctes}
+    SELECT to_char(vis.visit_date, 'YYYY "Q"Q') AS quarter, l.grade, count(*)::int AS n
+    FROM vis JOIN lesions l ON l.visit_id = vis.id GROUP BY 1, 2 ORDER BY 1`);
+  // A treated lesion is followed when the patient has a later exported visit; cleared when its
+  // track's status there is cleared or regressed (lib/tracking decided and stored it).
+  const [lesionClear] = await sql.unsafe<{ followed: number; cleared: number }[]>(`WITH ${ctes}, nv AS (
+      SELECT id, lead(id) OVER (PARTITION BY patient_id ORDER BY visit_seq) AS next_id FROM vis
+    ), treated AS (
+      SELECT DISTINCT l.track_id, nv.next_id FROM nv
+      JOIN lesions l ON l.visit_id = nv.id JOIN treatments t ON t.lesion_id = l.id AND t.visit_id = nv.id
+      WHERE l.track_id IS NOT NULL
+    )
+    SELECT count(*) FILTER (WHERE tr.next_id IS NOT NULL)::int AS followed,
+      count(*) FILTER (WHERE ts.status IN ('cleared', 'regressed'))::int AS cleared
+    FROM treated tr LEFT JOIN track_statuses ts ON ts.visit_id = tr.next_id AND ts.track_id = tr.track_id`);
+  const outcomes = await sql.unsafe<{ first_treatment_day: number | null; days_treatment_to_clearance: number | null; days_clearance_to_recurrence_or_censor: number | null; recurrence: number | null; visits: number }[]>(
+    outcomesSelect(scope),
+  );
+  const [patientFollow] = await sql.unsafe<{ followed: number }[]>(`WITH ${ctes}, pt AS (
+      SELECT vis.patient_id, max(vis.visit_date) AS last_visit,
+        min(vis.visit_date) FILTER (WHERE EXISTS (SELECT 1 FROM treatments t WHERE t.visit_id = vis.id)) AS first_treatment
+      FROM vis GROUP BY vis.patient_id)
+    SELECT count(*)::int AS followed FROM pt WHERE first_treatment < last_visit`);
+
+  const quarters = new Map<string, { quarter: string } & Record<Grade, number>>();
+  for (const r of gradeRows) {
+    const row = quarters.get(r.quarter) ?? ({ quarter: r.quarter, ...Object.fromEntries(GRADES.map((g) => [g, 0])) } as { quarter: string } & Record<Grade, number>);
+    row[r.grade] = r.n;
+    quarters.set(r.quarter, row);
+  }
+  const items = outcomes
+    .filter((o) => o.recurrence !== null && o.days_clearance_to_recurrence_or_censor !== null)
+    .map((o) => ({ time: Number(o.days_clearance_to_recurrence_or_censor), event: Number(o.recurrence) === 1 }));
+  const steps = kaplanMeier(items);
+  const maxTime = items.reduce((m, i) => Math.max(m, i.time), 0);
+  const tickStep = maxTime > 720 ? 180 : 90;
+  const ticks = Array.from({ length: Math.floor(maxTime / tickStep) + 1 }, (_, i) => i * tickStep);
+  return {
+    patients: totals!.patients,
+    visits: totals!.visits,
+    lesions: totals!.lesions,
+    gradeByQuarter: [...quarters.values()],
+    clearance: {
+      lesionsTreatedFollowed: lesionClear!.followed,
+      lesionsCleared: lesionClear!.cleared,
+      patientsTreatedFollowed: patientFollow!.followed,
+      patientsCleared: outcomes.filter((o) => o.days_treatment_to_clearance !== null).length,
+    },
+    recurrence: {
+      steps,
+      ticks,
+      atRisk: numbersAtRisk(steps, ticks),
+      medianDays: medianSurvival(steps),
+      patients: items.length,
+      events: items.filter((i) => i.event).length,
+    },
+  };
+}
