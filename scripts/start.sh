@@ -33,6 +33,7 @@ APP_PID=""
 WORKER_PID=""
 REMINDER_PID=""
 cleanup() {
+  set +e  # a killed child's status must not abort the clean-up half way
   trap - INT TERM EXIT
   log "stopping"
   [ -n "$APP_PID" ] && kill "$APP_PID" 2>/dev/null && wait "$APP_PID" 2>/dev/null

@@ -32,6 +32,7 @@ APP_PID=""
 WORKER_PID=""
 cleanup() {
   local rc=$?
+  set +e  # a killed child's status must not abort the clean-up half way
   [ -n "$APP_PID" ] && kill "$APP_PID" 2>/dev/null && wait "$APP_PID" 2>/dev/null
   [ -n "$WORKER_PID" ] && kill "$WORKER_PID" 2>/dev/null && wait "$WORKER_PID" 2>/dev/null
   stop_s3_fake
