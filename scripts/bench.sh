@@ -63,8 +63,6 @@ part() {
 
 $TSX db/migrate.ts >/dev/null
 $TSX --conditions=react-server db/seed/index.ts >/dev/null
-# SQL functions the exports call (CREATE OR REPLACE: harmless once a migration carries them too).
-for f in db/sql/*.sql; do [ -f "$f" ] && "$PGBIN/psql" "$DATABASE_URL" -X -q -v ON_ERROR_STOP=1 -f "$f" >/dev/null; done
 
 # The 200,000-lesion registry loads while the app builds (both are mostly one core each).
 if [ "${BENCH_SKIP_SCALE:-}" = 1 ]; then

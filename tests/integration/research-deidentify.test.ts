@@ -1,4 +1,4 @@
-// The SQL de-identification (db/sql/deidentify.sql) must agree with the TypeScript rules in
+// The SQL de-identification (db/migrations/0002_deidentify_functions.sql) must agree with the TypeScript rules in
 // lib/deidentify, which are the tested specification of HIPAA Safe Harbor (45 CFR 164.514(b)(2);
 // /work/shared/domain.md §9). Both run here on the same invented records and are compared.
 import { beforeAll, describe, expect, it } from "vitest";

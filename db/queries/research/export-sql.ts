@@ -1,5 +1,5 @@
 // The three research exports as single SELECT statements. De-identification happens here, in
-// SQL (db/sql/deidentify.sql), so rows can stream out of PostgreSQL with COPY and no row ever
+// SQL (db/migrations/0002_deidentify_functions.sql), so rows can stream out of PostgreSQL with COPY and no row ever
 // passes through JavaScript. Identified columns appear only when the filter asks for them, which
 // the route allows for admins with a reason.
 import { GRADES, HISTOLOGY, TRACK_STATUSES } from "@/lib/domain/vocab";
