@@ -51,7 +51,8 @@ APP_PID=$!
 # The outbox worker sends queued mail with retries; the reminder job runs now and once a day.
 node_modules/.bin/tsx --conditions=react-server scripts/mail-worker.ts &
 WORKER_PID=$!
-( while true; do node_modules/.bin/tsx --conditions=react-server scripts/reminders.ts || true; sleep 86400; done ) &
+( trap 'kill $! 2>/dev/null; exit 0' TERM
+  while true; do node_modules/.bin/tsx --conditions=react-server scripts/reminders.ts || true; sleep 86400 & wait $!; done ) &
 REMINDER_PID=$!
 wait_http "http://127.0.0.1:$APP_PORT/sign-in" 60
 
