@@ -1,0 +1,154 @@
+// API under load: autocannon against `next start` on loopback, 50 connections. First the floor
+// (GET /api/ping, constant JSON), then the clinician's working mix, in the same run:
+// open a patient timeline, list a visit's lesions, create a lesion, update it, save the visit.
+// Every request in flight works on its own draft visit (prepared by prepare.ts), so the versions
+// it sends are the latest and a 409 would mean a real lost-update bug, not contention we staged;
+// 409s are still counted apart from other errors.
+// Run: node scripts/bench/api-load.mjs <base-url> <prepare.json> [seconds] [connections]
+import { readFileSync } from "node:fs";
+import autocannon from "autocannon";
+
+const [base, prepFile, secs = "10", conns = "50"] = process.argv.slice(2);
+const prep = JSON.parse(readFileSync(prepFile, "utf8"));
+const duration = Number(secs);
+const connections = Number(conns);
+const headers = { cookie: prep.cookie, origin: base, "content-type": "application/json" };
+
+/** Runs one autocannon pass; keeps every response time, since its summary has no p95. */
+function run(opts) {
+  return new Promise((resolve, reject) => {
+    const times = [];
+    const inst = autocannon({ url: base, connections, duration, timeout: 20, ...opts }, (err, res) => (err ? reject(err) : resolve({ ...res, times })));
+    inst.on("response", (_client, _status, _bytes, ms) => times.push(ms));
+    inst.on("error", reject);
+  });
+}
+
+function pct(sorted, p) {
+  if (!sorted.length) return null;
+  return +sorted[Math.min(sorted.length - 1, Math.ceil((p / 100) * sorted.length) - 1)].toFixed(1);
+}
+
+function summary(res, extra = {}) {
+  const sorted = res.times.sort((a, b) => a - b);
+  const non2xx = res.non2xx ?? 0;
+  return {
+    requests: res.requests.total,
+    reqPerSec: Math.round(res.requests.average),
+    p50Ms: pct(sorted, 50),
+    p95Ms: pct(sorted, 95),
+    p99Ms: pct(sorted, 99),
+    non2xx,
+    socketErrors: res.errors,
+    timeouts: res.timeouts,
+    ...extra,
+  };
+}
+
+const statusCounts = {};
+let conflicts = 0;
+const note = (status, what) => {
+  const key = `${what} ${status}`;
+  statusCounts[key] = (statusCounts[key] ?? 0) + 1;
+  if (status === 409) conflicts++;
+};
+
+// A fresh lesion near where the previous one was drawn; the extent moves so no two are identical.
+const lesionBody = (n) => ({ clockStartH: (n * 0.7) % 12, clockEndH: (n * 0.7 + 0.8) % 12, distanceStartCm: 1, distanceEndCm: 2.5, grade: "lsil", vessels: [] });
+
+// Slots are the prepared draft visits (100); each keeps the versions it has seen. Requests take
+// slots round-robin, and a slot's state is updated from each response, so its next use (≥ 20
+// builds later) sends the latest version. The warm-up uses slots 0–19, the timed pass 20–99, so a
+// warm-up request cut off mid-flight leaves no stale version for the timed pass.
+// (autocannon clears its per-connection context after each pass through the request list, and
+// builds every connection's first request before any is sent, into a buffer shared by all
+// connections: so the first build of a pass is a harmless GET, and no state lives in the context.)
+for (const [i, slot] of prep.slots.entries()) Object.assign(slot, { n: 0, step: i, visitVersion: 1, lesion: { id: slot.lesionId, version: 1 } });
+let pool = [];
+let cursor = 0;
+let answered = false;
+function usePool(from, to) {
+  pool = prep.slots.slice(from, to);
+  cursor = 0;
+  answered = false;
+}
+
+const steps = [
+  {
+    name: "timeline",
+    build: (ctx) => {
+      const pid = prep.demoPatients.length ? prep.demoPatients[ctx.slot.n % prep.demoPatients.length] : ctx.slot.patientId;
+      return { method: "GET", path: `/api/patients/${pid}/timeline` };
+    },
+  },
+  { name: "list", build: (ctx) => ({ method: "GET", path: `/api/visits/${ctx.slot.visitId}/lesions` }) },
+  {
+    name: "create",
+    build: (ctx) => ({ method: "POST", path: `/api/visits/${ctx.slot.visitId}/lesions`, body: JSON.stringify(lesionBody(ctx.slot.n++)) }),
+    after: (status, body, ctx) => {
+      if (status === 201) ctx.slot.lesion = JSON.parse(body).lesion;
+    },
+  },
+  {
+    name: "update",
+    // The lesion this connection created or updated last (at first, the one its visit started with).
+    build: (ctx) => {
+      const l = ctx.slot.lesion;
+      return { method: "PATCH", path: `/api/visits/${ctx.slot.visitId}/lesions/${l.id}`, body: JSON.stringify({ version: l.version, grade: "hsil", sizeMm: 4 }) };
+    },
+    after: (status, body, ctx) => {
+      if (status === 200) ctx.slot.lesion = JSON.parse(body).lesion;
+    },
+  },
+  {
+    name: "save-visit",
+    build: (ctx) => ({
+      method: "PATCH",
+      path: `/api/visits/${ctx.slot.visitId}`,
+      body: JSON.stringify({ version: ctx.slot.visitVersion, visitDate: "2026-02-01", patientPosition: "lithotomy", cytology: "lsil", hpvResult: "not_done", plan: `Review in 6 months (${ctx.slot.n})` }),
+    }),
+    after: (status, body, ctx) => {
+      if (status === 200) ctx.slot.visitVersion = JSON.parse(body).visit.version;
+    },
+  },
+];
+
+// One request entry: each slot walks the steps in order from its own starting step, so the 50
+// connections spread over the whole mix from the first second.
+const mix = [
+  {
+    setupRequest: (req, ctx) => {
+      if (!answered) {
+        // Built before any answer: all connections will send this same buffer once. A read.
+        ctx.slot = pool[0];
+        ctx.current = steps[1];
+      } else {
+        ctx.slot = pool[cursor++ % pool.length];
+        ctx.current = steps[ctx.slot.step++ % steps.length];
+      }
+      // A fresh headers object each time: the request builder writes Content-Length into it.
+      return { ...req, ...ctx.current.build(ctx), headers: { ...headers } };
+    },
+    onResponse: (status, body, ctx) => {
+      answered = true;
+      note(status, ctx.current.name);
+      ctx.current.after?.(status, body, ctx);
+    },
+  },
+];
+
+// A short warm-up of each (route code loaded, pool connections open, JIT warm) before the timed pass.
+const warm = { duration: 3, connections: 10 };
+await run({ ...warm, requests: [{ method: "GET", path: "/api/ping" }] });
+const floor = await run({ requests: [{ method: "GET", path: "/api/ping" }] });
+usePool(0, 20);
+await run({ ...warm, requests: mix });
+usePool(20, prep.slots.length);
+for (const k of Object.keys(statusCounts)) delete statusCounts[k];
+conflicts = 0;
+const real = await run({ requests: mix });
+const f = summary(floor);
+const r = summary(real, { conflicts409: conflicts, byStep: statusCounts });
+r.errors = r.non2xx - conflicts + r.socketErrors + r.timeouts;
+f.errors = f.non2xx + f.socketErrors + f.timeouts;
+console.log(JSON.stringify({ connections, durationS: duration, floor: f, mix: r, throughputRatio: +(r.reqPerSec / f.reqPerSec).toFixed(2), p95Ratio: +(r.p95Ms / f.p95Ms).toFixed(2) }));

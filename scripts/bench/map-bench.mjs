@@ -1,0 +1,118 @@
+// Canal map in Chromium: tap-to-painted and a full re-render with 200 lesions, in the real visit
+// page and in a bare React floor page drawing the same 200 d3-shape arcs, in the same browser.
+// Method (identical on both pages, timed inside the page with performance.now()):
+//   tap       = dispatch pointerdown + pointerup on the n-th lesion, then wait two animation
+//               frames (the first runs before the frame's paint, the second after it);
+//   re-render = click the control that recomputes every arc (the app: the next clock numbering).
+// Frames are not throttled to 60 Hz (--disable-frame-rate-limit --disable-gpu-vsync), so the
+// two-frame wait measures work, not the time left until the next vsync. Median of 30 each.
+// Run: node scripts/bench/map-bench.mjs <base-url> <prepare.json>
+import { execFileSync } from "node:child_process";
+import { mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
+import { createServer } from "node:http";
+import { tmpdir } from "node:os";
+import path from "node:path";
+import { fileURLToPath } from "node:url";
+import { chromium } from "playwright-core";
+
+const here = path.dirname(fileURLToPath(import.meta.url));
+const root = path.resolve(here, "../..");
+const [base, prepFile] = process.argv.slice(2);
+const prep = JSON.parse(readFileSync(prepFile, "utf8"));
+const ROUNDS = 30;
+
+/** Bundles the floor page into a temp folder and serves it on a free loopback port. */
+async function serveFloor() {
+  const dir = mkdtempSync(path.join(tmpdir(), "dentate-bench-floor-"));
+  execFileSync(path.join(root, "node_modules/.bin/esbuild"), [
+    path.join(here, "floor/floor-map.jsx"), "--bundle", "--minify", "--format=iife", "--jsx=automatic",
+    "--define:process.env.NODE_ENV=\"production\"", `--outfile=${dir}/floor.js`, "--log-level=warning",
+  ], { cwd: root, stdio: "inherit" });
+  writeFileSync(`${dir}/index.html`, '<!doctype html><html lang="en"><head><meta charset="utf-8"><title>floor</title></head><body><div id="root"></div><script src="/floor.js"></script></body></html>');
+  const server = createServer((req, res) => {
+    const file = req.url === "/floor.js" ? "floor.js" : "index.html";
+    res.writeHead(200, { "content-type": file.endsWith(".js") ? "text/javascript" : "text/html" });
+    res.end(readFileSync(`${dir}/${file}`));
+  });
+  await new Promise((r) => server.listen(0, "127.0.0.1", r));
+  return { server, dir, url: `http://127.0.0.1:${server.address().port}/` };
+}
+
+// Runs inside the page. `kind` is "tap" or "rerender"; `turnSelector` finds the re-render control.
+async function timeInPage({ kind, rounds, turnSelector }) {
+  const frames = () => new Promise((r) => requestAnimationFrame(() => requestAnimationFrame(r)));
+  const shapes = [...document.querySelectorAll("[data-lesion-id]")];
+  const out = [];
+  for (let i = 0; i < rounds; i++) {
+    await frames();
+    await new Promise((r) => setTimeout(r, 20));
+    let act;
+    if (kind === "tap") {
+      const g = shapes[(i * 37) % shapes.length];
+      const target = g.firstElementChild ?? g;
+      const box = target.getBoundingClientRect();
+      const at = { bubbles: true, cancelable: true, composed: true, pointerId: 7, pointerType: "touch", isPrimary: true, button: 0, buttons: 1, clientX: box.x + box.width / 2, clientY: box.y + box.height / 2 };
+      act = () => {
+        target.dispatchEvent(new PointerEvent("pointerdown", at));
+        target.dispatchEvent(new PointerEvent("pointerup", { ...at, buttons: 0 }));
+      };
+    } else {
+      const controls = [...document.querySelectorAll(turnSelector)];
+      const next = controls.find((c) => c.getAttribute("aria-checked") !== "true") ?? controls[0];
+      act = () => next.click();
+    }
+    const t0 = performance.now();
+    act();
+    await frames();
+    out.push(performance.now() - t0);
+  }
+  return out;
+}
+
+const median = (xs) => { const s = [...xs].sort((a, b) => a - b); return +s[Math.floor(s.length / 2)].toFixed(2); };
+const p95 = (xs) => { const s = [...xs].sort((a, b) => a - b); return +s[Math.ceil(0.95 * s.length) - 1].toFixed(2); };
+
+const floor = await serveFloor();
+const profile = mkdtempSync(path.join(tmpdir(), "dentate-bench-chromium-"));
+const ctx = await chromium.launchPersistentContext(profile, {
+  executablePath: process.env.CHROMIUM_PATH ?? "/usr/bin/chromium",
+  headless: true,
+  viewport: { width: 1280, height: 900 },
+  hasTouch: true,
+  args: ["--headless", "--no-sandbox", "--disable-gpu", "--disable-quic", "--no-first-run", "--disable-background-networking", "--disable-component-update", "--disable-sync", "--disable-frame-rate-limit", "--disable-gpu-vsync"],
+});
+try {
+  const [name, value] = prep.cookie.split("=");
+  await ctx.addCookies([{ name, value, url: base }]);
+  const page = ctx.pages()[0] ?? (await ctx.newPage());
+
+  await page.goto(floor.url);
+  await page.waitForFunction(() => document.querySelectorAll("[data-lesion-id]").length === 200);
+  await page.evaluate(timeInPage, { kind: "tap", rounds: 3, turnSelector: "#turn" });
+  const floorTap = await page.evaluate(timeInPage, { kind: "tap", rounds: ROUNDS, turnSelector: "#turn" });
+  const floorRe = await page.evaluate(timeInPage, { kind: "rerender", rounds: ROUNDS, turnSelector: "#turn" });
+
+  await page.goto(`${base}/patients/${prep.map.patientId}/visits/${prep.map.visitId}`);
+  await page.waitForFunction(() => document.querySelectorAll("g[data-lesion-id]").length === 200, null, { timeout: 60_000 });
+  // One warm-up pass of each, so code paths are compiled before the timed rounds (same on the floor below).
+  await page.evaluate(timeInPage, { kind: "tap", rounds: 3, turnSelector: '[aria-label="Clock numbering"] [role="radio"]' });
+  const appTap = await page.evaluate(timeInPage, { kind: "tap", rounds: ROUNDS, turnSelector: "" });
+  const appRe = await page.evaluate(timeInPage, { kind: "rerender", rounds: ROUNDS, turnSelector: '[aria-label="Clock numbering"] [role="radio"]' });
+  const selectedOk = await page.evaluate(() => document.querySelectorAll('g[data-lesion-id][aria-pressed="true"]').length === 1);
+
+  const result = {
+    lesions: 200,
+    rounds: ROUNDS,
+    selectionWorked: selectedOk,
+    tap: { appMedianMs: median(appTap), appP95Ms: p95(appTap), floorMedianMs: median(floorTap), floorP95Ms: p95(floorTap) },
+    rerender: { appMedianMs: median(appRe), appP95Ms: p95(appRe), floorMedianMs: median(floorRe), floorP95Ms: p95(floorRe) },
+  };
+  result.tap.ratio = +(result.tap.appMedianMs / result.tap.floorMedianMs).toFixed(2);
+  result.rerender.ratio = +(result.rerender.appMedianMs / result.rerender.floorMedianMs).toFixed(2);
+  console.log(JSON.stringify(result));
+} finally {
+  await ctx.close();
+  floor.server.close();
+  rmSync(profile, { recursive: true, force: true });
+  rmSync(floor.dir, { recursive: true, force: true });
+}

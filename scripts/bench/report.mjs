@@ -1,0 +1,99 @@
+// Gathers the bench steps' JSON into bench/results.json and prints one table: each figure beside
+// its floor from the same run, the ratio, the target and whether it is met. A step that could not
+// run prints "not measured: <reason>" instead of a number.
+// Run: node scripts/bench/report.mjs <parts-dir> <results.json> <elapsed-seconds>
+import { existsSync, readFileSync, writeFileSync } from "node:fs";
+import path from "node:path";
+
+const [dir, outFile, elapsed] = process.argv.slice(2);
+const load = (name) => {
+  const f = path.join(dir, `${name}.json`);
+  if (existsSync(f)) {
+    try {
+      return { data: JSON.parse(readFileSync(f, "utf8")) };
+    } catch (e) {
+      return { why: `unreadable output (${e.message})` };
+    }
+  }
+  const err = path.join(dir, `${name}.err`);
+  return { why: existsSync(err) ? readFileSync(err, "utf8").trim().replace(/\s+/g, " ").slice(0, 160) : "did not run" };
+};
+
+const rows = [];
+const row = (what, figure, floor, ratio, target, ok) => rows.push({ what, figure, floor, ratio, target, ok: ok === undefined ? "" : ok ? "yes" : "NO" });
+const missing = (what, why) => rows.push({ what, figure: `not measured: ${why}`, floor: "", ratio: "", target: "", ok: "" });
+const ms = (x) => (x === null || x === undefined ? "?" : `${x} ms`);
+const r2 = (a, b) => +(a / b).toFixed(2);
+
+const api = load("api");
+if (api.data) {
+  const { floor: f, mix: m } = api.data;
+  row("API mix, 50 conn: throughput", `${m.reqPerSec} req/s`, `${f.reqPerSec} req/s`, api.data.throughputRatio, "≥ 0.5", api.data.throughputRatio >= 0.5);
+  row("API mix: p50 latency", ms(m.p50Ms), ms(f.p50Ms), r2(m.p50Ms, f.p50Ms), "", undefined);
+  row("API mix: p95 latency", ms(m.p95Ms), ms(f.p95Ms), api.data.p95Ratio, "≤ 2", api.data.p95Ratio <= 2);
+  row("API mix: p99 latency", ms(m.p99Ms), ms(f.p99Ms), r2(m.p99Ms, f.p99Ms), "", undefined);
+  row("API mix: errors (409s apart)", `${m.errors} of ${m.requests} (409: ${m.conflicts409})`, `${f.errors} of ${f.requests}`, "", "0", m.errors === 0);
+} else missing("API under load", api.why);
+
+const map = load("map");
+if (map.data) {
+  const { tap, rerender } = map.data;
+  row("Map 200 lesions: tap-to-painted (median)", ms(tap.appMedianMs), ms(tap.floorMedianMs), tap.ratio, "≤ 2, < 16 ms", tap.ratio <= 2 && tap.appMedianMs < 16);
+  row("Map 200 lesions: full re-render (median)", ms(rerender.appMedianMs), ms(rerender.floorMedianMs), rerender.ratio, "≤ 2, < 16 ms", rerender.ratio <= 2 && rerender.appMedianMs < 16);
+  if (!map.data.selectionWorked) missing("Map: tap selected a lesion", "the tap did not select (figure above is suspect)");
+} else missing("Canal map in Chromium", map.why);
+
+const seq = load("sequential");
+if (seq.data) {
+  const { floor: f, create: c, timeline: t } = seq.data;
+  row("Lesion create round trip p50 / p95", `${c.p50Ms} / ${c.p95Ms} ms`, `${f.p50Ms} / ${f.p95Ms} ms`, r2(c.p50Ms, f.p50Ms), "", undefined);
+  row("Timeline 30×40 GET p50 / p95", `${t.p50Ms} / ${t.p95Ms} ms`, `${f.p50Ms} / ${f.p95Ms} ms`, r2(t.p50Ms, f.p50Ms), "", undefined);
+  const bad = Object.keys(c.statuses).some((s) => s !== "201") || Object.keys(t.statuses).some((s) => s !== "200");
+  if (bad) missing("Sequential statuses", `unexpected statuses create ${JSON.stringify(c.statuses)} timeline ${JSON.stringify(t.statuses)}`);
+} else missing("Round trips (create, timeline)", seq.why);
+
+const tq = load("timeline-queries");
+if (tq.data) row("Timeline 30×40: SQL statements", `${tq.data.queries} for ${tq.data.visits} visits, ${tq.data.lesions} lesions`, "", "", "fixed, not per row", tq.data.visits === 30 && tq.data.lesions === 1200 && tq.data.queries <= 12);
+else missing("Timeline query count", tq.why);
+
+const ex = load("export");
+if (ex.data) {
+  const e = ex.data;
+  const hwmFile = path.join(dir, "export-hwm.txt");
+  const hwmMb = existsSync(hwmFile) && readFileSync(hwmFile, "utf8").trim() ? Math.round(Number(readFileSync(hwmFile, "utf8")) / 102.4) / 10 : null;
+  e.serverVmHwmMb = hwmMb;
+  row(`Export CSV ${e.rows.toLocaleString("en")} lesion rows`, ms(e.appCsvMs), `${ms(e.rawCopyMs)} (psql \\copy)`, e.ratio, "≤ 1.5", e.ratio <= 1.5 && e.sameBytes);
+  // The CSV peak is sampled every 20 ms while it streams; VmHWM (peak since the server started,
+  // read after the workbook too) is reported beside it in results.json.
+  row("Export CSV: server peak RSS (sampled)", `${e.serverPeakRssMbCsv} MB`, `${e.serverIdleRssMb} MB idle server`, r2(e.serverPeakRssMbCsv, e.serverIdleRssMb), "< 150 MB", e.serverPeakRssMbCsv < 150);
+  row("Export workbook (all rows): time / peak RSS", e.workbookStatus === 200 ? `${ms(e.workbookMs)} / ${e.serverPeakRssMbWorkbook} MB` : `status ${e.workbookStatus}`, `VmHWM ${hwmMb ?? "?"} MB`, "", "report", undefined);
+} else missing("Export 200,000 rows", ex.why);
+
+const pages = load("pages");
+if (pages.data) {
+  const { firstLoadJs: js, lighthouse: lh } = pages.data;
+  const mapRoute = "/patients/[patientId]/visits/[visitId]";
+  const patientRoute = "/patients/[patientId]";
+  if (js.routes[mapRoute] !== undefined) row("First-load JS, map page (gzip)", `${js.routes[mapRoute]} kB`, `${js.floorSharedKb} kB framework`, r2(js.routes[mapRoute], js.floorSharedKb), "< 250 kB", js.routes[mapRoute] < 250);
+  if (js.routes[patientRoute] !== undefined) row("First-load JS, patient page (gzip)", `${js.routes[patientRoute]} kB`, `${js.floorSharedKb} kB framework`, r2(js.routes[patientRoute], js.floorSharedKb), "", undefined);
+  for (const [name, s] of Object.entries(lh)) {
+    row(`Lighthouse ${name} page: perf / a11y`, s.runtimeError ? `error: ${s.runtimeError}` : `${s.performance} / ${s.accessibility}`, "", "", "score out of 100", undefined);
+  }
+} else missing("Pages (first-load JS, Lighthouse)", pages.why);
+
+const results = { when: new Date().toISOString(), elapsedSeconds: Number(elapsed), host: { cores: (await import("node:os")).cpus().length, node: process.version } };
+for (const n of ["api", "map", "sequential", "timeline-queries", "export", "pages", "prepare"]) {
+  const p = load(n);
+  results[n] = n === "prepare" ? (p.data ? { slots: p.data.slots.length } : { notMeasured: p.why }) : p.data ?? { notMeasured: p.why };
+}
+results.table = rows;
+writeFileSync(outFile, JSON.stringify(results, null, 2) + "\n");
+
+const cols = ["what", "figure", "floor", "ratio", "target", "ok"];
+const head = { what: "benchmark", figure: "figure", floor: "floor (same run)", ratio: "ratio (p50 unless named)", target: "target", ok: "met" };
+const width = Object.fromEntries(cols.map((c) => [c, Math.max(...[head, ...rows].map((r) => String(r[c]).length))]));
+const fmt = (r) => cols.map((c) => String(r[c]).padEnd(width[c])).join(" | ");
+console.log("\n" + fmt(head));
+console.log(cols.map((c) => "-".repeat(width[c])).join("-|-"));
+for (const r of rows) console.log(fmt(r));
+console.log(`\n${results.host.cores} cores, Node ${process.version}, ${elapsed} s in all. Written to ${outFile}.`);

@@ -1,0 +1,28 @@
+// SQL statements the timeline costs for the 30 visits × 40 lesions patient: loadTimeline called
+// directly, every statement counted through db/client's onQuery. postgres.js's pg_catalog type
+// lookups are left out (once per new pool connection, not per request).
+// Run: DATABASE_URL=… tsx --conditions=react-server scripts/bench/timeline-queries.ts <prepare.json>
+import { readFileSync } from "node:fs";
+import { onQuery, sql } from "@/db/client";
+import { loadTimeline } from "@/db/queries/timeline";
+
+async function main() {
+  const prep = JSON.parse(readFileSync(process.argv[2]!, "utf8"));
+  const scope = { userId: "u-clin-okafor", siteIds: [prep.siteId as string] };
+  await loadTimeline(scope, prep.timeline.patientId); // warm the pool
+  let queries = 0;
+  const stop = onQuery((q) => {
+    if (!q.includes("pg_catalog")) queries++;
+  });
+  const data = await loadTimeline(scope, prep.timeline.patientId);
+  stop();
+  console.log(JSON.stringify({ queries, visits: data.visits.length, lesions: data.lesions.length }));
+}
+
+main()
+  .then(() => sql.end())
+  .catch(async (err) => {
+    console.error(err);
+    await sql.end();
+    process.exit(1);
+  });
