@@ -7,7 +7,7 @@ import type { Timeline } from "./timeline-types";
 // T2 LSIL new. 2026-01-10: T1 found again at the treated site (recurrent), histology SCC, so its
 // effective grade is suspected cancer (histology decides: Darragh 2012 LAST; SCC mapped to the
 // top of the impression scale); T2 persistent LSIL.
-// Cleared / recurrent as defined in ../shared/domain.md §4 (Liu 2018; recurrent: common practice).
+// Cleared / recurrent as defined in Liu Y et al., Papillomavirus Res 2018 (Liu 2018; recurrent: common practice).
 const v = (id: string, visitDate: string) => ({ id, visitDate, status: "signed" as const, patientPosition: "lithotomy" as const, examiner: "Dr A", examinerId: "u1" });
 const lesion = (id: string, visitId: string, trackId: string, effectiveGrade: "lsil" | "hsil" | "suspected_cancer", treated = false) => ({
   id, visitId, trackId, label: "L1", clockStartH: 1, clockEndH: 2, distanceStartCm: 1, distanceEndCm: 2, zone: "distal_canal" as const,

@@ -1,5 +1,5 @@
 // ICD-10-CM codes Dentate may suggest. Descriptors are the code file's long descriptions
-// (CMS ICD-10-CM; code list in /work/shared/domain.md §8), checked against a public
+// (CMS ICD-10-CM code file), checked against a public
 // machine-readable copy of the code table. The code year was not verified: re-check each October.
 
 export interface IcdCode {
@@ -11,7 +11,7 @@ export const ICD10CM = {
   "K62.82": "Dysplasia of anus",
   "D01.3": "Carcinoma in situ of anus and anal canal",
   // Inclusion terms of D04.5 name carcinoma in situ of anal margin, anal skin and perianal skin
-  // (secondary code-lookup pages; D01.3 excludes these and points here: domain.md §8).
+  // (secondary code-lookup pages; D01.3 excludes these and points here: CMS ICD-10-CM).
   "D04.5": "Carcinoma in situ of skin of trunk",
   "A63.0": "Anogenital (venereal) warts",
   "C21.1": "Malignant neoplasm of anal canal",

@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { ainLabel, lastFromAin } from "./last";
 
-// LAST: Darragh TM et al., Arch Pathol Lab Med 2012;136:1266-97 (domain.md §3).
+// LAST: Darragh TM et al., Arch Pathol Lab Med 2012;136:1266-97 (Hillman RJ et al., J Low Genit Tract Dis 2016).
 describe("lastFromAin", () => {
   it("maps AIN1 to LSIL and AIN3 to HSIL whatever the stain", () => {
     for (const p16 of ["block_positive", "negative", "not_block", "not_done"] as const) {

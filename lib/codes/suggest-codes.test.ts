@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { codingCautions, suggestCodes, type CodingLesion } from "./suggest-codes";
 
-// Codes and descriptors: CMS ICD-10-CM code file, as listed in /work/shared/domain.md §8
+// Codes and descriptors: CMS ICD-10-CM code file, as listed in CMS ICD-10-CM
 // (K62.82 Dysplasia of anus (AIN I and II); D01.3 includes AIN III and excludes anal margin /
 // perianal skin, which go to D04.5; A63.0; R85.610-R85.619; R85.81; R85.82).
 
@@ -21,7 +21,7 @@ describe("suggestCodes from histology", () => {
     expect(s).toMatchObject({ code: "D01.3", descriptor: "Carcinoma in situ of anus and anal canal" });
   });
   it("codes HSIL on perianal skin as D04.5, not D01.3", () => {
-    // D01.3 excludes carcinoma in situ of anal margin / perianal skin (D04.5), domain.md §8.
+    // D01.3 excludes carcinoma in situ of anal margin / perianal skin (D04.5), CMS ICD-10-CM.
     const s = suggestCodes({ lesions: [canal({ histology: "hsil", distanceStartCm: -1.5 })] });
     expect(codes(s)).toEqual(["D04.5"]);
     expect(s[0].descriptor).toBe("Carcinoma in situ of skin of trunk"); // CMS code file (descriptor checked against a public copy)
@@ -30,7 +30,7 @@ describe("suggestCodes from histology", () => {
     expect(codes(suggestCodes({ lesions: [canal({ histology: "hsil", distanceStartCm: -1, distanceEndCm: 1 })] }))).toEqual(["D01.3", "D04.5"]);
   });
   it("follows the ICD class of AIN II even when LAST calls it HSIL", () => {
-    // K62.82 covers AIN I and II; D01.3 covers AIN III (domain.md §8).
+    // K62.82 covers AIN I and II; D01.3 covers AIN III (CMS ICD-10-CM).
     expect(codes(suggestCodes({ lesions: [canal({ histology: "hsil", ain: "ain2", p16: "block_positive" })] }))).toEqual(["K62.82"]);
   });
   it("lets histology override the impression", () => {

@@ -75,7 +75,7 @@ function lesionCodes(lesion: CodingLesion): { key: IcdCodeKey; why: string }[] {
     case "lsil":
     case "hsil": {
       // ICD-10-CM classes by the AIN grade where one is given: K62.82 covers AIN I and II,
-      // D01.3 covers AIN III (domain.md §8). Without an AIN grade the LAST tier decides.
+      // D01.3 covers AIN III (CMS ICD-10-CM). Without an AIN grade the LAST tier decides.
       const severe = lesion.ain ? lesion.ain === "ain3" : lesion.histology === "hsil";
       const label = lesion.ain
         ? `${lesion.ain.toUpperCase()} (${lastFromAin(lesion.ain, lesion.p16).toUpperCase()})`

@@ -2,17 +2,17 @@ import { describe, expect, it } from "vitest";
 import { RESTRICTED_ZIP3, ageCategory, dayOffset, deidentifyDate, yearOnly, zip3 } from "./safe-harbor";
 
 // Source for every check here: HIPAA Safe Harbor, 45 CFR 164.514(b)(2), as summarised in
-// /work/shared/domain.md §9 (17 restricted 3-digit ZIP prefixes from HHS guidance, ages over 89 aggregated).
+// 45 CFR 164.514(b)(2), HHS guidance (17 restricted 3-digit ZIP prefixes from HHS guidance, ages over 89 aggregated).
 
 describe("zip3", () => {
   it("lists exactly the 17 restricted prefixes of the HHS guidance", () => {
-    // 45 CFR 164.514(b)(2)(i)(B); HHS guidance table (2000 Census), domain.md §9.
+    // 45 CFR 164.514(b)(2)(i)(B); HHS guidance table (2000 Census), 45 CFR 164.514(b)(2), HHS guidance.
     expect([...RESTRICTED_ZIP3].sort()).toEqual(
       ["036", "059", "063", "102", "203", "556", "692", "790", "821", "823", "830", "831", "878", "879", "884", "890", "893"],
     );
   });
   it("reports a restricted area as 000", () => {
-    expect(zip3("03601")).toBe("000"); // 036 is restricted (domain.md §9)
+    expect(zip3("03601")).toBe("000"); // 036 is restricted (45 CFR 164.514(b)(2), HHS guidance)
     expect(zip3("89301-1234")).toBe("000"); // 893 is restricted, ZIP+4 form
   });
   it("keeps the first three digits of an unrestricted area", () => {

@@ -18,27 +18,27 @@ const entry = (
 ): DoseEntry => ({ agent, concentrationPct, volumeMl, withEpinephrine });
 
 describe("mgFromPercentAndMl", () => {
-  // X % = 10·X mg/mL: 1 % = 1 g/100 mL = 10 mg/mL; 0.5 % = 5 mg/mL; 0.25 % = 2.5 mg/mL (domain.md §6).
+  // X % = 10·X mg/mL: 1 % = 1 g/100 mL = 10 mg/mL; 0.5 % = 5 mg/mL; 0.25 % = 2.5 mg/mL (product labels).
   it("converts per cent w/v to mg", () => {
     expect(mgFromPercentAndMl(1, 1)).toBe(10);
     expect(mgFromPercentAndMl(0.5, 1)).toBe(5);
     expect(mgFromPercentAndMl(0.25, 1)).toBe(2.5);
   });
-  // Bupivacaine label check value: 0.25 % × 70 mL = 175 mg (domain.md §6).
+  // Bupivacaine label check value: 0.25 % × 70 mL = 175 mg (product labels).
   it("gives 175 mg for 70 mL of 0.25 %", () => {
     expect(mgFromPercentAndMl(0.25, 70)).toBe(175);
   });
 });
 
 describe("maxDoseMg", () => {
-  // Lidocaine label: plain ≤ 4.5 mg/kg, not over 300 mg. 70 kg → 315 mg, capped at 300 mg (domain.md §6).
+  // Lidocaine label: plain ≤ 4.5 mg/kg, not over 300 mg. 70 kg → 315 mg, capped at 300 mg (product labels).
   it("caps plain lidocaine for 70 kg at 300 mg", () => {
     const max = maxDoseMg({ agent: "lidocaine", withEpinephrine: false, weightKg: 70 });
     expect(max.maxMg).toBe(300);
     expect(max.basis).toBe("ceiling");
     expect(max.explanation).toContain("315 mg");
   });
-  // Lidocaine label: with epinephrine ≤ 7 mg/kg, not over 500 mg. 70 kg → 490 mg (domain.md §6).
+  // Lidocaine label: with epinephrine ≤ 7 mg/kg, not over 500 mg. 70 kg → 490 mg (product labels).
   it("gives 490 mg of lidocaine with epinephrine for 70 kg", () => {
     const max = maxDoseMg({ agent: "lidocaine", withEpinephrine: true, weightKg: 70 });
     expect(max.maxMg).toBe(490);
@@ -48,14 +48,14 @@ describe("maxDoseMg", () => {
   it("uses the per-kg figure when it is below the ceiling", () => {
     expect(maxDoseMg({ agent: "lidocaine", withEpinephrine: false, weightKg: 50 }).maxMg).toBe(225);
   });
-  // Bupivacaine label: 175 mg plain, 225 mg with epinephrine 1:200,000 (domain.md §6).
+  // Bupivacaine label: 175 mg plain, 225 mg with epinephrine 1:200,000 (product labels).
   it("falls back to the bupivacaine label ceilings without a weight", () => {
     expect(maxDoseMg({ agent: "bupivacaine", withEpinephrine: false }).maxMg).toBe(175);
     const withEpi = maxDoseMg({ agent: "bupivacaine", withEpinephrine: true });
     expect(withEpi.maxMg).toBe(225);
     expect(withEpi.basis).toBe("ceiling");
   });
-  // Bupivacaine 2.5 mg/kg plain: secondary sources (domain.md §6). 40 kg → 100 mg, below 175 mg.
+  // Bupivacaine 2.5 mg/kg plain: secondary sources (product labels). 40 kg → 100 mg, below 175 mg.
   it("applies the secondary-source per-kg bupivacaine figure for a small patient and says so", () => {
     const max = maxDoseMg({ agent: "bupivacaine", withEpinephrine: false, weightKg: 40 });
     expect(max.maxMg).toBe(100);
@@ -77,7 +77,7 @@ describe("maxDoseMg", () => {
 });
 
 describe("assessDoses", () => {
-  // 2 % lidocaine 20 mL = 400 mg; plain limit for 70 kg is 300 mg (lidocaine label, domain.md §6).
+  // 2 % lidocaine 20 mL = 400 mg; plain limit for 70 kg is 300 mg (lidocaine label, product labels).
   it("flags 400 mg of plain lidocaine in a 70 kg patient as over", () => {
     const result = assessDoses([entry("lidocaine", 2, 20)], 70);
     expect(result.agents).toHaveLength(1);

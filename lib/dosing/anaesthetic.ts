@@ -5,7 +5,7 @@
 import { z } from "zod";
 import { ANAESTHETIC_AGENTS, type AnaestheticAgent } from "@/lib/domain/vocab";
 
-/** X % w/v = X g / 100 mL = 10·X mg/mL (domain.md §6). */
+/** X % w/v = X g / 100 mL = 10·X mg/mL (product labels). */
 export function mgFromPercentAndMl(pct: number, ml: number): number {
   return pct * 10 * ml;
 }

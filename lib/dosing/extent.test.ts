@@ -5,7 +5,7 @@ import { assessExtent, treatedFraction } from "./extent";
 const arc = (startH: number, endH: number): Arc => ({ startH, endH });
 
 // Check values are clock geometry worked by hand (12 hours to the circle). The 0.5 caution
-// threshold is from memory, unverified (domain.md §7; staged treatment for circumferential
+// threshold is from memory, unverified (Pineda CE et al., J Gastrointest Surg 2007; staged treatment for circumferential
 // disease: Pineda CE et al., J Gastrointest Surg 2007).
 describe("treatedFraction", () => {
   it("counts overlapping treated arcs once, across 12 o'clock", () => {

@@ -62,7 +62,7 @@ describe("buildPatientBundle", () => {
   });
 
   it("has the validator reject a BodyStructure without a patient", () => {
-    // R4 BodyStructure.patient is 1..1 (domain.md §10); this shows the validator can fail.
+    // R4 BodyStructure.patient is 1..1 (HL7 FHIR value set, SNOMED CT); this shows the validator can fail.
     const [body] = ofType(bundle, "BodyStructure");
     const orphan: Record<string, unknown> = { ...body };
     delete orphan.patient;
@@ -98,10 +98,10 @@ describe("buildPatientBundle", () => {
   it("places a canal track with SNOMED clock-face qualifiers and its exact extent", () => {
     const [canal, skin] = ofType(bundle, "BodyStructure");
     const coded = (r: FhirResource, key: string) => JSON.stringify(r[key]);
-    // Anal canal structure 34381000; anal structure 53505006 (domain.md §10).
+    // Anal canal structure 34381000; anal structure 53505006 (HL7 FHIR value set, SNOMED CT).
     expect(coded(canal, "location")).toContain("34381000");
     expect(coded(skin, "location")).toContain("53505006");
-    // 2.5 rounds to 3, 4 stays 4: 3 o'clock 260330005, 4 o'clock 260333007 (domain.md §10).
+    // 2.5 rounds to 3, 4 stays 4: 3 o'clock 260330005, 4 o'clock 260333007 (HL7 FHIR value set, SNOMED CT).
     expect((canal.locationQualifier as { coding: { code: string }[] }[]).map((q) => q.coding[0].code)).toEqual(["260330005", "260333007"]);
     // 11 to 0.5 (12.5): 11 o'clock 260324005, 12 o'clock 260326007, 1 o'clock 260318004 (0.5 rounds up).
     expect((skin.locationQualifier as { coding: { code: string }[] }[]).map((q) => q.coding[0].code)).toEqual(["260324005", "260326007", "260318004"]);

@@ -3,7 +3,7 @@ import { CLOCK_FACE_SNOMED, clockFaceCoding, clockHoursCovered, nearestClockHour
 
 describe("SNOMED clock-face codes", () => {
   it("matches the FHIR clock-face value set for all twelve hours", () => {
-    // Copied by hand from /work/shared/domain.md §10: FHIR value set
+    // Copied by hand from the FHIR value set
     // bodystructure-bodylandmarkorientation-clockface-position (SNOMED CT).
     const table: Record<number, string> = {
       1: "260318004", 2: "260328008", 3: "260330005", 4: "260333007", 5: "260335000", 6: "260337008",

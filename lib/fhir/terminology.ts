@@ -1,6 +1,6 @@
 // Code systems and codes used in the FHIR export.
 // SNOMED CT clock-face positions: FHIR value set bodystructure-bodylandmarkorientation-clockface-position
-// (listed in /work/shared/domain.md §10). Anatomical site codes from the same section.
+// (listed in HL7 FHIR value set, SNOMED CT). Anatomical site codes from the same section.
 
 export const SNOMED = "http://snomed.info/sct";
 export const UCUM = "http://unitsofmeasure.org";
@@ -37,7 +37,7 @@ export const CLOCK_FACE_SNOMED: Readonly<Record<number, string>> = {
 };
 
 export const ANAL_CANAL_STRUCTURE = { system: SNOMED, code: "34381000", display: "Anal canal structure" } as const;
-// No perianal-skin concept is sourced in domain.md, so lesions outside the verge use the broader
+// No perianal-skin concept has a sourced SNOMED CT code here, so lesions outside the verge use the broader
 // "anal structure" concept and say "perianal skin" in the text.
 export const ANAL_STRUCTURE = { system: SNOMED, code: "53505006", display: "Anal structure" } as const;
 

@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { screeningSuggestion } from "./eligibility";
 
-// IANS 2024 consensus: Stier EA et al., Int J Cancer 2024;154:1694-1702 (domain.md §5).
+// IANS 2024 consensus: Stier EA et al., Int J Cancer 2024;154:1694-1702 (Stier EA et al., Int J Cancer 2024).
 
 describe("screeningSuggestion by age", () => {
   it("starts MSM and transgender women with HIV at 35, not a day before", () => {
@@ -19,7 +19,7 @@ describe("screeningSuggestion by age", () => {
     }
   });
   it("starts the cervical, warts and HPV16 groups at 45 with shared decision-making", () => {
-    // From memory: domain.md §5 notes the stored abstract was cut off for these groups.
+    // From memory: Stier EA et al., Int J Cancer 2024 notes the stored abstract was cut off for these groups.
     const s = screeningSuggestion({ riskGroup: "perianal_warts", dob: "1979-01-10", today: "2024-01-10" });
     expect(s.eligibleNow).toBe(true);
     expect(s.reason).toMatch(/shared decision/);

@@ -1,5 +1,5 @@
 // Anal cancer screening start, after the IANS 2024 consensus (Stier EA et al., Int J Cancer
-// 2024;154:1694-1702; /work/shared/domain.md §5). A suggestion for the clinician, never a decision.
+// 2024;154:1694-1702; Stier EA et al., Int J Cancer 2024). A suggestion for the clinician, never a decision.
 import type { RiskGroup } from "@/lib/domain/vocab";
 import { anniversary, dayNumber, isoDate, type DateInput } from "@/lib/deidentify/calendar";
 
@@ -28,7 +28,7 @@ export const SCREENING_START_AGE: Partial<Record<RiskGroup, number>> = {
   msm_tw_hiv: 35, // IANS 2024: MSM and transgender women with HIV from 35
   other_hiv: 45, // IANS 2024: other people with HIV from 45
   msm_tw_no_hiv: 45, // IANS 2024: MSM and transgender women without HIV from 45
-  // The three groups below from 45 with shared decision-making: from memory (domain.md §5,
+  // The three groups below from 45 with shared decision-making: from memory (Stier EA et al., Int J Cancer 2024,
   // the stored abstract was cut off).
   cervical_vaginal_hsil_or_cancer: 45,
   perianal_warts: 45,

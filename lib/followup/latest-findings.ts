@@ -28,7 +28,7 @@ export interface LatestVisitFacts {
 export const SURVEILLANCE_WINDOW_MONTHS = 12;
 
 function treatedHsil(t: TreatmentSeen): boolean {
-  // Office treatment is for HSIL (domain.md §4); a treatment without a lesion is taken as one.
+  // Office treatment is for HSIL (Liu Y et al., Papillomavirus Res 2018); a treatment without a lesion is taken as one.
   if (t.histology) return t.histology === "hsil" || t.histology === "scc";
   return t.grade === null || t.grade === "hsil" || t.grade === "suspected_cancer";
 }

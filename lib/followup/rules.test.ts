@@ -5,7 +5,7 @@ const none = { lesions: [], treatedHsil: false };
 
 describe("default intervals", () => {
   it("schedules treated HSIL within the published 3-6 month window", () => {
-    // Goldstone SE, Dis Colon Rectum 2005: follow-up every 3-6 months after treatment (domain.md §4).
+    // Goldstone SE, Dis Colon Rectum 2005: follow-up every 3-6 months after treatment (Liu Y et al., Papillomavirus Res 2018).
     expect(DEFAULT_FOLLOWUP_MONTHS.after_hsil_treatment).toBeGreaterThanOrEqual(3);
     expect(DEFAULT_FOLLOWUP_MONTHS.after_hsil_treatment).toBeLessThanOrEqual(6);
   });

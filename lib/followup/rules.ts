@@ -22,7 +22,7 @@ export const DEFAULT_FOLLOWUP_MONTHS: FollowupRuleTable = {
   suspected_cancer: 1,
   // Follow-up every 3-6 months after treatment is common (Goldstone SE, Dis Colon Rectum 2005);
   // histological resolution is judged weeks after treatment (Richel O, Lancet Oncol 2013).
-  // The lower bound is the default. Range from domain.md §4; the choice of 3 is ours.
+  // The lower bound is the default. Range from Liu Y et al., Papillomavirus Res 2018; the choice of 3 is ours.
   after_hsil_treatment: 3,
   // ANCHOR examined both arms at least every 6 months (Palefsky JM, N Engl J Med 2022);
   // an untreated HSIL usually waits for treatment, so we default tighter. Common practice, no source.

@@ -15,7 +15,7 @@ import {
 } from "./arcs";
 
 // Check values in this file are clock-face geometry worked by hand: arcs run clockwise,
-// 12 hours to the circle (domain.md §1).
+// 12 hours to the circle (surgical anatomy texts).
 const arc = (startH: number, endH: number): Arc => ({ startH, endH });
 
 describe("arcLengthH and containsHour", () => {

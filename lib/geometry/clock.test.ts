@@ -37,7 +37,7 @@ describe("normalizeHours", () => {
 });
 
 describe("degrees and radians", () => {
-  // 360° / 12 hours = 30° of arc per clock hour (geometry; domain.md §1).
+  // 360° / 12 hours = 30° of arc per clock hour (geometry; surgical anatomy texts).
   it("gives 30 degrees per hour", () => {
     expect(hoursToDegrees(1)).toBe(30);
     expect(hoursToDegrees(3)).toBe(90);

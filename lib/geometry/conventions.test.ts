@@ -12,24 +12,24 @@ import {
 } from "./conventions";
 
 // Classic primary haemorrhoid positions 3, 7, 11 o'clock in lithotomy (standard surgical texts;
-// domain.md §1).
+// surgical anatomy texts).
 const HAEMORRHOID_POSITIONS_LITHOTOMY = [3, 7, 11];
 
 describe("toDisplayHours / fromDisplayHours", () => {
   it("keeps lithotomy numbers as stored", () => {
     for (const h of HAEMORRHOID_POSITIONS_LITHOTOMY) expect(toDisplayHours(h, "lithotomy")).toBe(h);
   });
-  // Prone jack-knife: the haemorrhoid positions read 1, 5 and 9 o'clock (domain.md §1: derived, from memory).
+  // Prone jack-knife: the haemorrhoid positions read 1, 5 and 9 o'clock (surgical anatomy texts: derived, from memory).
   it("reads the haemorrhoid positions as {1, 5, 9} in prone jack-knife", () => {
     const shown = new Set(HAEMORRHOID_POSITIONS_LITHOTOMY.map((h) => toDisplayHours(h, "prone_jackknife")));
     expect(shown).toEqual(new Set([1, 5, 9]));
   });
-  // Prone jack-knife: 12 o'clock posterior, 6 anterior (domain.md §1: derived, from memory).
+  // Prone jack-knife: 12 o'clock posterior, 6 anterior (surgical anatomy texts: derived, from memory).
   it("puts posterior at 12 in prone jack-knife", () => {
     expect(fromDisplayHours(12, "prone_jackknife")).toBe(6);
     expect(fromDisplayHours(6, "prone_jackknife")).toBe(0);
   });
-  // Left lateral: no published convention; lithotomy numbering kept (domain.md §1).
+  // Left lateral: no published convention; lithotomy numbering kept (surgical anatomy texts).
   it("keeps lithotomy numbers in left lateral", () => {
     expect(toDisplayHours(7, "left_lateral")).toBe(7);
     expect(fromDisplayHours(11, "left_lateral")).toBe(11);
@@ -49,7 +49,7 @@ describe("toDisplayHours / fromDisplayHours", () => {
 });
 
 describe("anatomicalLabelAt", () => {
-  // Lithotomy: 12 anterior, 6 posterior, 3 patient's left, 9 patient's right (domain.md §1).
+  // Lithotomy: 12 anterior, 6 posterior, 3 patient's left, 9 patient's right (surgical anatomy texts).
   it("labels the lithotomy cardinals", () => {
     expect(anatomicalLabelAt(12, "lithotomy")).toBe("Anterior");
     expect(anatomicalLabelAt(0, "lithotomy")).toBe("Anterior");
@@ -58,7 +58,7 @@ describe("anatomicalLabelAt", () => {
     expect(anatomicalLabelAt(9, "lithotomy")).toBe("Patient's right");
   });
   // Prone jack-knife: 12 posterior, 6 anterior, 3 patient's right, 9 patient's left
-  // (domain.md §1: derived, from memory).
+  // (surgical anatomy texts: derived, from memory).
   it("labels the prone jack-knife cardinals", () => {
     expect(anatomicalLabelAt(12, "prone_jackknife")).toBe("Posterior");
     expect(anatomicalLabelAt(3, "prone_jackknife")).toBe("Patient's right");
@@ -76,13 +76,13 @@ describe("anatomicalLabelAt", () => {
 });
 
 describe("sectorName", () => {
-  // 3, 7, 11 in lithotomy = left lateral, right posterior, right anterior (standard surgical texts; domain.md §1).
+  // 3, 7, 11 in lithotomy = left lateral, right posterior, right anterior (standard surgical texts; surgical anatomy texts).
   it("names the haemorrhoid positions", () => {
     expect(sectorName(3)).toBe("left lateral");
     expect(sectorName(7)).toBe("right posterior");
     expect(sectorName(11)).toBe("right anterior");
   });
-  // Anal fissures sit mostly at 6 o'clock = posterior midline in lithotomy (domain.md §1).
+  // Anal fissures sit mostly at 6 o'clock = posterior midline in lithotomy (surgical anatomy texts).
   it("names 6 o'clock posterior and 12 anterior", () => {
     expect(sectorName(6)).toBe("posterior");
     expect(sectorName(0)).toBe("anterior");
@@ -110,7 +110,7 @@ describe("describeSite", () => {
     );
     expect(describeSite(3.5, 3.5, 2, 2)).toBe("3:30 (left lateral), 2 cm from the verge");
   });
-  // The anatomical words do not change with the position; the numbers do (domain.md §1).
+  // The anatomical words do not change with the position; the numbers do (surgical anatomy texts).
   it("shows prone jack-knife numbers with the same anatomy", () => {
     expect(describeSite(3, 3, 1, 1, "prone_jackknife")).toBe("9 o'clock (left lateral), 1 cm from the verge");
   });

@@ -4,9 +4,9 @@
 // - lithotomy: identity (it is the stored frame).
 // - prone_jackknife: the examiner looks from the other side of the body, so the face
 //   turns half a circle: 12 posterior, 6 anterior, 3 the patient's right, 9 the
-//   patient's left (domain.md §1, derived, from memory).
+//   patient's left (surgical anatomy texts, derived, from memory).
 // - left_lateral (Sims): no single published clock convention was found and many
-//   clinicians keep lithotomy numbering (domain.md §1), so the numbers stay as in
+//   clinicians keep lithotomy numbering (surgical anatomy texts), so the numbers stay as in
 //   lithotomy. Because the numbers alone are ambiguous in this position, the UI must
 //   show the anatomical labels below next to them. Surgical texts advise recording
 //   anatomical terms for exactly this reason ("Investigations for Anorectal

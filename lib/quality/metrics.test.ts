@@ -3,7 +3,7 @@ import { addMonths } from "@/lib/deidentify/calendar";
 import { qualityMetrics, type Metric, type QualityVisit } from "./metrics";
 
 // Thresholds: IANS 2016 practice standards, Hillman RJ et al., J Low Genit Tract Dis 2016;20:283-291
-// (domain.md §3): >= 50 HRAs a year; >= 20 HSIL cases; unsatisfactory cytology < 5%;
+// (Hillman RJ et al., J Low Genit Tract Dis 2016): >= 50 HRAs a year; >= 20 HSIL cases; unsatisfactory cytology < 5%;
 // cytological HSIL confirmed as histological HSIL >= 90%; HRA under 15 min in > 90%;
 // problematic pain or bleeding <= 10% ("problematic" = moderate or severe: our choice).
 

@@ -1,5 +1,5 @@
 // Practice-standard metrics for one examiner or one site over a period, after the IANS 2016
-// practice standards (Hillman RJ et al., J Low Genit Tract Dis 2016;20:283-291; domain.md §3).
+// practice standards (Hillman RJ et al., J Low Genit Tract Dis 2016;20:283-291; Hillman RJ et al., J Low Genit Tract Dis 2016).
 import type { Cytology } from "@/lib/domain/vocab";
 import { SEVERITIES } from "@/lib/domain/vocab";
 import { dayNumber, type DateInput } from "@/lib/deidentify/calendar";

@@ -24,7 +24,7 @@ describe("renderVisitReport", () => {
     expect(text).toContain("HSIL");
     expect(text).toContain("LSIL");
     expect(text).toContain("Infrared coagulation");
-    // 1 % lidocaine × 8 mL = 80 mg: 1 % w/v = 10 mg/mL (domain.md §6, pharmacology convention).
+    // 1 % lidocaine × 8 mL = 80 mg: 1 % w/v = 10 mg/mL (product labels, pharmacology convention).
     expect(text).toContain("80 mg");
     // Lidocaine plain label maximum 4.5 mg/kg × 70 kg = 315 mg, capped at the 300 mg label ceiling (lidocaine product label).
     expect(text).toMatch(/300 mg maximum/);

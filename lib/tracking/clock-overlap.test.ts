@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { arcLengthH, compareArcs, normalizeHour, overlapLengthH, rotateArc, widenArc } from "./clock-overlap";
 
-// Clock-face geometry: 12 hours make a full turn, 30° of arc per hour (domain.md §1). Expected
+// Clock-face geometry: 12 hours make a full turn, 30° of arc per hour (surgical anatomy texts). Expected
 // values below are worked out by hand on a drawn clock face.
 describe("clock arcs", () => {
   it("measures arcs clockwise, across 12 o'clock too", () => {

@@ -5,7 +5,7 @@ import { normalizeHour } from "./clock-overlap";
 import { scorePair } from "./match-score";
 import { matchLesionsToTracks, type NewLesion, type PreviousLesion } from "./matcher";
 
-// Properties that follow from clock-face geometry (a full turn is 12 hours, domain.md §1): turning
+// Properties that follow from clock-face geometry (a full turn is 12 hours, surgical anatomy texts): turning
 // or mirroring the whole picture, or listing it in another order, cannot change which lesion is
 // which. Hours and centimetres are drawn on a quarter grid, which binary floats hold exactly.
 const quarterHour = fc.integer({ min: 0, max: 47 }).map((q) => q / 4);

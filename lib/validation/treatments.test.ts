@@ -6,7 +6,7 @@ const bupi = (pct: number, ml: number, withEpinephrine = false) => ({ agent: "bu
 
 describe("gateDose: the running total of the visit decides, not the new entry alone", () => {
   it("refuses a second lidocaine entry that takes a 70 kg patient past the 300 mg plain ceiling", () => {
-    // Lidocaine label: plain ≤ 4.5 mg/kg, not over 300 mg; 70 kg → 315 capped at 300 (domain.md §6).
+    // Lidocaine label: plain ≤ 4.5 mg/kg, not over 300 mg; 70 kg → 315 capped at 300 (product labels).
     // 1 % = 10 mg/mL, so 20 mL = 200 mg and 12 mL = 120 mg: neither alone is over, together 320 mg is.
     const gate = gateDose([lido(1, 20)], lido(1, 12), 70);
     expect(gate.before.agents[0]!.level).not.toBe("over");
@@ -15,7 +15,7 @@ describe("gateDose: the running total of the visit decides, not the new entry al
   });
 
   it("lets the same 320 mg through when every lidocaine entry carried epinephrine (7 mg/kg × 70 kg = 490 mg)", () => {
-    // Lidocaine label with epinephrine: ≤ 7 mg/kg, not over 500 mg (domain.md §6).
+    // Lidocaine label with epinephrine: ≤ 7 mg/kg, not over 500 mg (product labels).
     const gate = gateDose([lido(1, 20, true)], lido(1, 12, true), 70);
     expect(gate.over).toBe(false);
   });
@@ -26,7 +26,7 @@ describe("gateDose: the running total of the visit decides, not the new entry al
   });
 
   it("adds agents together: each under its own maximum but the combined share over 1 is refused", () => {
-    // Toxicity of local anaesthetics is additive (domain.md §6, common practice, no source).
+    // Toxicity of local anaesthetics is additive (product labels, common practice, no source).
     // Without a weight only ceilings apply: lidocaine 200/300 = 0.67, bupivacaine 0.5 % × 20 mL = 100/175 = 0.57.
     const gate = gateDose([lido(1, 20)], bupi(0.5, 20), undefined);
     expect(gate.after.agents.every((a) => a.level !== "over")).toBe(true);
@@ -41,7 +41,7 @@ describe("gateDose: the running total of the visit decides, not the new entry al
   });
 
   it("does not call exactly the ceiling over: 0.25 % × 70 mL bupivacaine = 175 mg", () => {
-    // Bupivacaine label: single dose up to 175 mg without epinephrine (domain.md §6 check value).
+    // Bupivacaine label: single dose up to 175 mg without epinephrine (product labels check value).
     expect(gateDose([], bupi(0.25, 70), undefined).over).toBe(false);
   });
 });

@@ -72,7 +72,7 @@ describe("canal map on a touch tablet", () => {
     await page.getByRole("radio", { name: "Lithotomy" }).click();
     await expect.poll(() => page.getByRole("button", { name: "New lesion" }).count(), POLL).toBe(1);
 
-    // Lithotomy 3 o'clock = patient's left lateral (domain.md §1).
+    // Lithotomy 3 o'clock = patient's left lateral (surgical anatomy texts).
     const p3 = await mapPoint(page, 3, 2);
     await page.touchscreen.tap(p3.x, p3.y);
     await expect.poll(() => rows(page).count(), POLL).toBe(1);

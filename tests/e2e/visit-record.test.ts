@@ -39,7 +39,7 @@ describe("the visit record panels", () => {
 
     await page.getByLabel("Volume (mL)").fill("20");
     await page.getByRole("button", { name: "Add injection" }).click();
-    // Lidocaine label: 4.5 mg/kg × 70 kg = 315 mg, capped at 300 mg (domain.md §6); 1 % × 20 mL = 200 mg.
+    // Lidocaine label: 4.5 mg/kg × 70 kg = 315 mg, capped at 300 mg (product labels); 1 % × 20 mL = 200 mg.
     await page.getByText("200 mg", { exact: true }).first().waitFor();
     await expect.poll(() => page.getByText("of 300 mg").count()).toBeGreaterThan(0);
     await page.getByLabel("Volume (mL)").fill("12");

@@ -51,7 +51,7 @@ beforeAll(async () => {
     { visitId, siteId: siteA, lesionId: l2!.id, specimenLabel: "B", clockH: 7.5, distanceCm: 0.5 },
   ]);
   await db.insert(s.treatments).values({ visitId, siteId: siteA, lesionId: l1!.id, modality: "infrared_coagulation", arcs: [{ startH: 1, endH: 3 }], treatedFraction: 2 / 12 });
-  // 2 % lidocaine × 5 mL = 100 mg; 0.5 % bupivacaine × 10 mL = 50 mg (mg = % × 10 × mL, domain.md §6).
+  // 2 % lidocaine × 5 mL = 100 mg; 0.5 % bupivacaine × 10 mL = 50 mg (mg = % × 10 × mL, product labels).
   await db.insert(s.anaestheticDoses).values([
     { visitId, siteId: siteA, agent: "lidocaine", concentrationPct: 2, volumeMl: 5, withEpinephrine: true, doseMg: 100 },
     { visitId, siteId: siteA, agent: "bupivacaine", concentrationPct: 0.5, volumeMl: 10, withEpinephrine: false, doseMg: 50 },

@@ -1,6 +1,6 @@
 // The SQL de-identification (db/migrations/0002_deidentify_functions.sql) must agree with the TypeScript rules in
 // lib/deidentify, which are the tested specification of HIPAA Safe Harbor (45 CFR 164.514(b)(2);
-// /work/shared/domain.md §9). Both run here on the same invented records and are compared.
+// 45 CFR 164.514(b)(2), HHS guidance). Both run here on the same invented records and are compared.
 import { beforeAll, describe, expect, it } from "vitest";
 import { sql } from "@/db/client";
 import { ageCategory, dayOffset, deidentifyPatient, yearOnly, zip3 } from "@/lib/deidentify";
@@ -64,7 +64,7 @@ describe("SQL de-identification agrees with lib/deidentify", () => {
     expect(at(0).birth_year).toBeNull();
     expect(at(1).age).toBe("90+"); // 90 on the birthday itself: completed years (common practice, no source)
     expect(at(2).age).toBe("89");
-    // The 17 restricted 3-digit ZIP areas become 000 (HHS guidance, domain.md §9).
+    // The 17 restricted 3-digit ZIP areas become 000 (HHS guidance, 45 CFR 164.514(b)(2), HHS guidance).
     expect([at(0).zip3, at(1).zip3, at(8).zip3, at(11).zip3]).toEqual(["000", "000", "000", "000"]);
     expect(at(9).zip3).toBe("824");
     expect(at(12).zip3).toBe("606");

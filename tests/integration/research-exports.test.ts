@@ -1,5 +1,5 @@
 // Research exports end to end through the route handlers, on invented records.
-// Safe Harbor (45 CFR 164.514(b)(2); /work/shared/domain.md §9): no names, MRNs, contact
+// Safe Harbor (45 CFR 164.514(b)(2); 45 CFR 164.514(b)(2), HHS guidance): no names, MRNs, contact
 // details, free text or full dates; ages over 89 as one category; restricted ZIP areas as 000.
 import { inflateRawSync } from "node:zlib";
 import { beforeAll, describe, expect, it } from "vitest";
@@ -152,7 +152,7 @@ describe("de-identified CSV exports (research nurse)", () => {
     // Born 1933-03-10, enrolled 2024-06-01: 91 → the over-89 category (45 CFR 164.514(b)(2)(i)(C)).
     expect(x.age_at_enrolment).toBe("90+");
     expect(x.birth_year).toBe("");
-    expect(x.zip3).toBe("000"); // 036 is a restricted 3-digit ZIP area (domain.md §9)
+    expect(x.zip3).toBe("000"); // 036 is a restricted 3-digit ZIP area (45 CFR 164.514(b)(2), HHS guidance)
     // Treated on day 0, no HSIL at day 183: cleared after 183 days; the HSIL of 2025-03-01 lies on
     // the withdrawal day, so the patient is censored at the clearing visit.
     expect(x).toMatchObject({ visits: "2", first_hsil_day: "0", treatments: "1", days_treatment_to_clearance: "183", recurrence: "0", days_clearance_to_recurrence_or_censor: "0" });

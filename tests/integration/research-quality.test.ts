@@ -1,6 +1,6 @@
 // Clinic quality panel on invented visits whose figures are worked out by hand below, against
 // the IANS 2016 practice standards (Hillman RJ et al., J Low Genit Tract Dis 2016;20:283-291;
-// domain.md §3): ≥ 50 HRAs a year, ≥ 20 HSIL cases, unsatisfactory cytology < 5%, cytological
+// Hillman RJ et al., J Low Genit Tract Dis 2016): ≥ 50 HRAs a year, ≥ 20 HSIL cases, unsatisfactory cytology < 5%, cytological
 // HSIL confirmed ≥ 90%, HRA under 15 minutes in > 90%, problematic pain or bleeding ≤ 10%.
 import { beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db/client";

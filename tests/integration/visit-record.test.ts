@@ -39,7 +39,7 @@ const post = (handler: typeof addDose, path: string, who: Actor, visitId: string
 describe("local anaesthetic entries: the server computes mg and guards the running total", () => {
   it("ignores a client doseMg and stores concentration % × 10 × mL", async () => {
     const visitId = await makeVisit();
-    // 1 % = 10 mg/mL (domain.md §6): 1 % × 5 mL = 50 mg, whatever the client claims.
+    // 1 % = 10 mg/mL (product labels): 1 % × 5 mL = 50 mg, whatever the client claims.
     const res = await post(addDose, dosePath(visitId), clinician, visitId, { agent: "lidocaine", concentrationPct: 1, volumeMl: 5, withEpinephrine: false, doseMg: 1 });
     expect(res.status).toBe(201);
     const [row] = await db.select().from(anaestheticDoses).where(eq(anaestheticDoses.visitId, visitId));
@@ -48,7 +48,7 @@ describe("local anaesthetic entries: the server computes mg and guards the runni
 
   it("refuses (400, field message, nothing written) an entry over the lidocaine maximum, then accepts it with a reason and audits it", async () => {
     const visitId = await makeVisit(70);
-    // Lidocaine label, plain: 4.5 mg/kg × 70 kg = 315 mg, capped at 300 mg (domain.md §6). 2 % × 10 mL = 200 mg, then 1 % × 12 mL = 120 mg → 320 mg.
+    // Lidocaine label, plain: 4.5 mg/kg × 70 kg = 315 mg, capped at 300 mg (product labels). 2 % × 10 mL = 200 mg, then 1 % × 12 mL = 120 mg → 320 mg.
     expect((await post(addDose, dosePath(visitId), clinician, visitId, { agent: "lidocaine", concentrationPct: 2, volumeMl: 10, withEpinephrine: false })).status).toBe(201);
     const refused = await post(addDose, dosePath(visitId), clinician, visitId, { agent: "lidocaine", concentrationPct: 1, volumeMl: 12, withEpinephrine: false });
     expect(refused.status).toBe(400);
@@ -69,7 +69,7 @@ describe("local anaesthetic entries: the server computes mg and guards the runni
 
   it("uses the higher limit with epinephrine: 320 mg of lidocaine for 70 kg is within 7 mg/kg = 490 mg", async () => {
     const visitId = await makeVisit(70);
-    // Lidocaine label with epinephrine: ≤ 7 mg/kg, not over 500 mg (domain.md §6).
+    // Lidocaine label with epinephrine: ≤ 7 mg/kg, not over 500 mg (product labels).
     expect((await post(addDose, dosePath(visitId), clinician, visitId, { agent: "lidocaine", concentrationPct: 2, volumeMl: 10, withEpinephrine: true })).status).toBe(201);
     expect((await post(addDose, dosePath(visitId), clinician, visitId, { agent: "lidocaine", concentrationPct: 1, volumeMl: 12, withEpinephrine: true })).status).toBe(201);
     const list = await (await listDoses(req("GET", dosePath(visitId), clinician), ctx({ visitId }))).json();
@@ -79,7 +79,7 @@ describe("local anaesthetic entries: the server computes mg and guards the runni
 
   it("without a recorded weight only the label ceiling applies: bupivacaine 0.25 % × 70 mL = 175 mg is allowed, 1 mL more is not", async () => {
     const visitId = await makeVisit(null);
-    // Bupivacaine label: up to 175 mg without epinephrine (domain.md §6 check value).
+    // Bupivacaine label: up to 175 mg without epinephrine (product labels check value).
     expect((await post(addDose, dosePath(visitId), clinician, visitId, { agent: "bupivacaine", concentrationPct: 0.25, volumeMl: 70, withEpinephrine: false })).status).toBe(201);
     expect((await post(addDose, dosePath(visitId), clinician, visitId, { agent: "bupivacaine", concentrationPct: 0.25, volumeMl: 1, withEpinephrine: false })).status).toBe(400);
   });
@@ -179,7 +179,7 @@ describe("ICD-10-CM confirmation", () => {
     await db.update(visits).set({ cytology: "lsil", hpvResult: "hr_positive_other" }).where(eq(visits.id, visitId));
     const path = `/api/visits/${visitId}/diagnoses`;
     const g = await (await getDiagnoses(req("GET", path, clinician), ctx({ visitId }))).json();
-    // CMS ICD-10-CM: R85.612 LSIL on cytologic smear of anus; R85.81 anal high-risk HPV DNA positive (domain.md §8).
+    // CMS ICD-10-CM: R85.612 LSIL on cytologic smear of anus; R85.81 anal high-risk HPV DNA positive (CMS ICD-10-CM).
     expect(g.suggestions.map((s: { code: string }) => s.code).sort()).toEqual(["R85.612", "R85.81"]);
     expect((await post(confirm, path, clinician, visitId, { code: "D01.3" })).status).toBe(400);
     expect((await post(confirm, path, clinician, visitId, { code: "R85.612" })).status).toBe(201);

@@ -17,7 +17,7 @@ function mockRect(container: HTMLElement) {
 
 /** Screen point where a display hour and distance are drawn: our own radial scale, 30° per hour. */
 function screenAt(displayH: number, cm: number) {
-  const a = (displayH * Math.PI) / 6; // 30 degrees per clock hour (domain.md §1), clockwise from the top
+  const a = (displayH * Math.PI) / 6; // 30 degrees per clock hour (surgical anatomy texts), clockwise from the top
   const r = radiusOfCm(cm);
   const x = r * Math.sin(a);
   const y = -r * Math.cos(a);
@@ -54,8 +54,8 @@ const midH = (e: MapExtent) => {
 
 // Where each convention draws stored (lithotomy) 3 o'clock, as published, not as computed:
 // lithotomy 3 = patient's left; prone jack-knife turns the face half a circle, so the
-// patient's left reads 9 (domain.md §1, derived, from memory); left lateral keeps
-// lithotomy numbering (domain.md §1: many clinicians keep it; no published convention).
+// patient's left reads 9 (surgical anatomy texts, derived, from memory); left lateral keeps
+// lithotomy numbering (surgical anatomy texts: many clinicians keep it; no published convention).
 const CASES: Array<[DisplayConvention, number]> = [
   ["lithotomy", 3],
   ["prone_jackknife", 9],
@@ -79,7 +79,7 @@ describe("MapEditor: a tap is stored in the one anatomical frame", () => {
 
       const lesion: MapLesion = { id: "l1", label: "L1", grade: "hsil", treated: false, biopsyLabels: [], ...extent };
       rerender(<MapEditor {...props} lesions={[lesion]} />);
-      // Lithotomy 3 o'clock is the patient's left lateral (domain.md §1), in every convention.
+      // Lithotomy 3 o'clock is the patient's left lateral (surgical anatomy texts), in every convention.
       expect(screen.getByRole("button", { name: /HSIL, .*left lateral/ })).toBeTruthy();
       const label = container.querySelector(`[data-anatomical-at="${expectedDisplayH}"]`);
       expect(label?.textContent).toBe("Patient's left");
@@ -97,7 +97,7 @@ describe("MapEditor: gestures and keys", () => {
     fireEvent.pointerMove(svg, { ...screenAt(0.5, 1), ...opts });
     fireEvent.pointerUp(svg, { ...screenAt(1, 1), ...opts });
     const extent = (props.onCreate as ReturnType<typeof vi.fn>).mock.calls[0][0] as MapExtent;
-    // 30° per hour; clockwise 11 → 1 passes 12 and is 2 h long, not 10 (domain.md §1 geometry).
+    // 30° per hour; clockwise 11 → 1 passes 12 and is 2 h long, not 10 (surgical anatomy texts geometry).
     expect(extent.clockStartH).toBeCloseTo(11, 6);
     expect(extent.clockEndH).toBeCloseTo(1, 6);
     expect((extent.clockEndH - extent.clockStartH + 12) % 12).toBeCloseTo(2, 6);
