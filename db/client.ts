@@ -84,6 +84,34 @@ const globalForDb = globalThis as unknown as { __dentateSql?: postgres.Sql };
 export const sql: postgres.Sql = globalForDb.__dentateSql ?? forwarding;
 if (process.env.NODE_ENV !== "production") globalForDb.__dentateSql = sql;
 
-export const db = drizzle(sql, { schema });
+// drizzle asks postgres.js for unnamed statements, which PostgreSQL parses and plans on every call
+// and which cost an extra round trip (describe, then bind) whenever they carry parameters. The app
+// repeats the same few statements on every request, so they are prepared instead: postgres.js keeps
+// each one per connection, keyed by its text, and a later call sends only bind and execute. Bulk
+// statements (many rows of values, long IN lists) vary in text with their size and would pile up
+// in that per-connection cache, so above a number of parameters they stay unnamed.
+const MAX_PREPARED_PARAMS = 64;
+function preparing(target: postgres.Sql): postgres.Sql {
+  type Fn = (...a: unknown[]) => unknown;
+  return new Proxy(target, {
+    apply: (t, _this, args) => (t as unknown as Fn)(...args),
+    get: (t, prop) => {
+      if (prop === "unsafe") {
+        return (query: string, params: unknown[] = [], options: Record<string, unknown> = {}) =>
+          (t.unsafe as unknown as Fn)(query, params, { ...options, prepare: params.length <= MAX_PREPARED_PARAMS });
+      }
+      if (prop === "begin" || prop === "savepoint") {
+        // The transaction's own client (one reserved connection) prepares the same way.
+        return (...args: unknown[]) => {
+          const body = args.pop() as (tx: postgres.Sql) => unknown;
+          return (Reflect.get(t, prop) as Fn)(...args, (tx: postgres.Sql) => body(preparing(tx)));
+        };
+      }
+      return Reflect.get(t, prop);
+    },
+  });
+}
+
+export const db = drizzle(preparing(sql), { schema });
 export type Db = typeof db;
 export type Tx = Parameters<Parameters<Db["transaction"]>[0]>[0];

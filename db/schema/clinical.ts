@@ -132,7 +132,8 @@ export const trackChecks = pgTable(
     outcome: e.trackCheckEnum("outcome").notNull(),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
   },
-  (t) => [unique("track_checks_visit_track").on(t.visitId, t.trackId)],
+  // track_id: the timeline reads a patient's checks through its tracks; deleting a track checks it.
+  (t) => [unique("track_checks_visit_track").on(t.visitId, t.trackId), index("track_checks_track_idx").on(t.trackId)],
 );
 
 /** Derived: each track's status at each visit (lib/tracking), refreshed on every write. */
@@ -187,7 +188,8 @@ export const treatments = pgTable(
     note: text("note"),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
   },
-  (t) => [index("treatments_visit_idx").on(t.visitId)],
+  // lesion_id: every lesion read asks whether it was treated, and deleting a lesion nulls it here.
+  (t) => [index("treatments_visit_idx").on(t.visitId), index("treatments_lesion_idx").on(t.lesionId)],
 );
 
 export const anaestheticDoses = pgTable("anaesthetic_doses", {
@@ -249,18 +251,23 @@ export const attachments = pgTable(
   (t) => [index("attachments_visit_idx").on(t.visitId)],
 );
 
-export const reviews = pgTable("reviews", {
-  id: uuid("id").primaryKey().defaultRandom(),
-  patientId: uuid("patient_id").notNull().references(() => patients.id),
-  siteId: uuid("site_id").notNull().references(() => sites.id),
-  visitId: uuid("visit_id").notNull().references(() => visits.id),
-  comparedVisitId: uuid("compared_visit_id").references(() => visits.id),
-  reviewerId: text("reviewer_id").references(() => users.id),
-  requestedBy: text("requested_by").references(() => users.id),
-  status: e.reviewStatusEnum("status").notNull().default("requested"),
-  signedOffAt: timestamp("signed_off_at", { withTimezone: true }),
-  createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
-});
+export const reviews = pgTable(
+  "reviews",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    patientId: uuid("patient_id").notNull().references(() => patients.id),
+    siteId: uuid("site_id").notNull().references(() => sites.id),
+    visitId: uuid("visit_id").notNull().references(() => visits.id),
+    comparedVisitId: uuid("compared_visit_id").references(() => visits.id),
+    reviewerId: text("reviewer_id").references(() => users.id),
+    requestedBy: text("requested_by").references(() => users.id),
+    status: e.reviewStatusEnum("status").notNull().default("requested"),
+    signedOffAt: timestamp("signed_off_at", { withTimezone: true }),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  // The timeline lists a patient's reviews.
+  (t) => [index("reviews_patient_idx").on(t.patientId)],
+);
 
 export const adjudications = pgTable(
   "adjudications",
