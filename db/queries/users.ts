@@ -1,7 +1,7 @@
 import "server-only";
 import { and, eq, inArray, sql as dsql } from "drizzle-orm";
 import { db } from "../client";
-import { rateLimits, users, userSites } from "../schema";
+import { rateLimits, sessions, users, userSites } from "../schema";
 
 /** The only query that reads a password hash; it never leaves the auth service. */
 export async function findUserCredentials(email: string) {
@@ -13,9 +13,28 @@ export async function findUserCredentials(email: string) {
   return row ?? null;
 }
 
-export async function listSiteIdsForUser(userId: string): Promise<string[]> {
-  const rows = await db.select({ siteId: userSites.siteId }).from(userSites).where(eq(userSites.userId, userId));
-  return rows.map((r) => r.siteId);
+/**
+ * What every authenticated request needs, in one statement: the session, its user (never the
+ * password hash) and the user's sites. Read afresh each time: nothing is kept in process, so a
+ * deactivated user or a removed site membership takes effect on the next request.
+ */
+export async function findSessionWithUser(sessionId: string) {
+  const [row] = await db
+    .select({
+      sessionId: sessions.id,
+      userId: sessions.userId,
+      expiresAt: sessions.expiresAt,
+      email: users.email,
+      displayName: users.displayName,
+      role: users.role,
+      active: users.active,
+      displayConvention: users.displayConvention,
+      siteIds: dsql<string[]>`array(select ${userSites.siteId}::text from ${userSites} where ${userSites.userId} = ${users.id} order by 1)`,
+    })
+    .from(sessions)
+    .innerJoin(users, eq(users.id, sessions.userId))
+    .where(eq(sessions.id, sessionId));
+  return row ?? null;
 }
 
 export async function getUserPublic(userId: string) {

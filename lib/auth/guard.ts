@@ -1,7 +1,6 @@
 import "server-only";
 import { cache } from "react";
 import { cookies } from "next/headers";
-import { listSiteIdsForUser } from "@/db/queries/users";
 import type { SiteScope } from "@/db/queries/scope";
 import { AppError } from "@/lib/errors";
 import type { Role } from "@/lib/domain/vocab";
@@ -10,15 +9,13 @@ import { SESSION_COOKIE, validateSession, type SessionUser } from "./session";
 
 export interface CurrentUser extends SessionUser {
   sessionId: string;
-  siteIds: string[];
 }
 
 async function resolve(token: string | null | undefined): Promise<CurrentUser | null> {
   if (!token) return null;
   const valid = await validateSession(token);
   if (!valid) return null;
-  const siteIds = await listSiteIdsForUser(valid.user.id);
-  return { ...valid.user, sessionId: valid.sessionId, siteIds };
+  return { ...valid.user, sessionId: valid.sessionId };
 }
 
 /** For route handlers: the session comes from the request's own cookie header. */

@@ -10,6 +10,8 @@ export interface SessionUser {
   role: "clinician" | "reviewer" | "research_nurse" | "admin";
   active: boolean;
   displayConvention: "lithotomy" | "prone_jackknife" | "left_lateral";
+  /** The sites the user works at, read with the session. */
+  siteIds: string[];
 }
 
 export interface ValidSession {
