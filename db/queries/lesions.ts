@@ -1,9 +1,9 @@
 import "server-only";
-import { and, asc, eq, inArray, isNotNull, sql as dsql } from "drizzle-orm";
+import { and, asc, eq, sql as dsql } from "drizzle-orm";
 import { db, type Tx } from "../client";
-import { biopsies, lesions, lesionTracks, sites, treatments } from "../schema";
-import type { SiteScope } from "./scope";
-import { loadVisit, lockDraftVisit } from "./visit-access";
+import { biopsies, lesions, lesionTracks, treatments } from "../schema";
+import { inScope, type SiteScope } from "./scope";
+import { loadVisit, lockDraftVisit, lockDraftVisitForLesion } from "./visit-access";
 import { refreshTrackStatuses } from "./tracking";
 import { recordAudit } from "./audit";
 import { AppError } from "@/lib/errors";
@@ -32,41 +32,42 @@ const lesionColumns = {
   version: lesions.version,
 };
 
-type LesionRow = Omit<LesionDto, "histology" | "biopsyLabels" | "treated">;
+// A lesion's biopsies and treatments, as columns of the same statement (no second round trip).
+const decorationColumns = {
+  biopsyLabels: dsql<string[]>`array(select ${biopsies.specimenLabel} from ${biopsies} where ${biopsies.lesionId} = ${lesions.id} order by 1)`,
+  histologies: dsql<string[]>`array(select ${biopsies.histology}::text from ${biopsies} where ${biopsies.lesionId} = ${lesions.id} and ${biopsies.histology} is not null)`,
+  treated: dsql<boolean>`exists(select 1 from ${treatments} where ${treatments.lesionId} = ${lesions.id})`,
+};
 
-async function decorate(run: typeof db | Tx, rows: LesionRow[]): Promise<LesionDto[]> {
-  if (rows.length === 0) return [];
-  const ids = rows.map((r) => r.id);
-  const [bx, tx] = await Promise.all([
-    run.select({ lesionId: biopsies.lesionId, label: biopsies.specimenLabel, histology: biopsies.histology }).from(biopsies).where(inArray(biopsies.lesionId, ids)).orderBy(asc(biopsies.specimenLabel)),
-    run.selectDistinct({ lesionId: treatments.lesionId }).from(treatments).where(and(inArray(treatments.lesionId, ids), isNotNull(treatments.lesionId))),
-  ]);
-  const treated = new Set(tx.map((t) => t.lesionId));
-  return rows.map((r) => {
-    const mine = bx.filter((b) => b.lesionId === r.id);
-    let histology: Histology | null = null;
-    for (const b of mine) if (b.histology && (!histology || HISTOLOGY.indexOf(b.histology) > HISTOLOGY.indexOf(histology))) histology = b.histology;
-    return { ...r, vessels: r.vessels as LesionDto["vessels"], histology, biopsyLabels: mine.map((b) => b.label), treated: treated.has(r.id) };
-  });
+type LesionRow = Omit<LesionDto, "histology" | "biopsyLabels" | "treated">;
+const { trackLabel: _trackLabel, ...lesionColumnsOfRow } = lesionColumns;
+type DecoratedRow = LesionRow & { biopsyLabels: string[]; histologies: string[]; treated: boolean };
+
+function toDto({ histologies, ...r }: DecoratedRow): LesionDto {
+  // The worst histology among the lesion's biopsies decides.
+  let histology: Histology | null = null;
+  for (const h of histologies as Histology[]) if (!histology || HISTOLOGY.indexOf(h) > HISTOLOGY.indexOf(histology)) histology = h;
+  return { ...r, vessels: r.vessels as LesionDto["vessels"], histology };
 }
 
+const selectLesions = (run: typeof db | Tx) => run.select({ ...lesionColumns, ...decorationColumns }).from(lesions).leftJoin(lesionTracks, eq(lesionTracks.id, lesions.trackId));
+
 export async function listLesionsForVisit(scope: SiteScope, visitId: string): Promise<VisitMapDto> {
-  const visit = await loadVisit(db, scope, visitId);
-  const rows = await db
-    .select(lesionColumns)
-    .from(lesions)
-    .leftJoin(lesionTracks, eq(lesionTracks.id, lesions.trackId))
-    .where(eq(lesions.visitId, visit.id))
-    .orderBy(asc(lesions.createdAt), asc(lesions.id));
+  // The lesions are read beside the visit, filtered by the same site scope; kept only if the visit is.
+  const [visit, rows] = await Promise.all([
+    loadVisit(db, scope, visitId),
+    selectLesions(db)
+      .where(and(eq(lesions.visitId, visitId), inScope(lesions.siteId, scope)))
+      .orderBy(asc(lesions.createdAt), asc(lesions.id)),
+  ]);
   return {
     visit: { id: visit.id, patientId: visit.patientId, visitDate: visit.visitDate, status: visit.status, patientPosition: visit.patientPosition, readOnly: visit.status === "signed" },
-    lesions: await decorate(db, rows as LesionRow[]),
+    lesions: (rows as DecoratedRow[]).map(toDto),
   };
 }
 
-async function zoneBoundsFor(tx: Tx, siteId: string): Promise<ZoneBounds> {
-  const [s] = await tx.select({ zoneBounds: sites.zoneBounds }).from(sites).where(eq(sites.id, siteId));
-  const parsed = zoneBoundsSchema.safeParse(s?.zoneBounds);
+function boundsOf(zoneBounds: unknown): ZoneBounds {
+  const parsed = zoneBoundsSchema.safeParse(zoneBounds);
   return parsed.success ? parsed.data : DEFAULT_ZONE_BOUNDS;
 }
 
@@ -76,26 +77,25 @@ function zoneFor(bounds: ZoneBounds, startCm: number, endCm: number) {
   return z;
 }
 
-async function nextNumber(tx: Tx, query: ReturnType<typeof dsql>): Promise<number> {
-  const rows = (await tx.execute(query)) as unknown as { m: number | null }[];
-  return (rows[0]?.m ?? 0) + 1;
-}
-
 async function fetchOne(tx: Tx, id: string): Promise<LesionDto> {
-  const rows = await tx.select(lesionColumns).from(lesions).leftJoin(lesionTracks, eq(lesionTracks.id, lesions.trackId)).where(eq(lesions.id, id));
-  return (await decorate(tx, rows as LesionRow[]))[0]!;
+  const rows = await selectLesions(tx).where(eq(lesions.id, id));
+  return toDto(rows[0] as DecoratedRow);
 }
 
 /** A new lesion starts its own track; linking it to an earlier track is a separate, audited step. */
 export async function createLesion(scope: SiteScope, visitId: string, input: CreateLesionInput, ip: string): Promise<LesionDto> {
   return db.transaction(async (tx) => {
-    const visit = await lockDraftVisit(tx, scope, visitId);
-    const bounds = await zoneBoundsFor(tx, visit.siteId);
-    // Track labels are per patient: lock the patient so two visits cannot take the same label.
-    await tx.execute(dsql`select id from patients where id = ${visit.patientId} for update`);
-    const n = await nextNumber(tx, dsql`select max(substring(label from 2)::int) as m from lesions where visit_id = ${visit.id} and label ~ '^L[0-9]+$'`);
-    const t = await nextNumber(tx, dsql`select max(substring(label from 2)::int) as m from lesion_tracks where patient_id = ${visit.patientId} and label ~ '^T[0-9]+$'`);
-    const [track] = await tx.insert(lesionTracks).values({ patientId: visit.patientId, siteId: visit.siteId, label: `T${t}` }).returning({ id: lesionTracks.id });
+    // Track labels are per patient: the patient is locked with the visit so two visits cannot take the same label.
+    const { visit } = await lockDraftVisitForLesion(tx, scope, visitId, { lockPatient: true });
+    const zone = zoneFor(boundsOf(visit.zoneBounds), input.distanceStartCm, input.distanceEndCm);
+    const [track] = await tx
+      .insert(lesionTracks)
+      .values({
+        patientId: visit.patientId,
+        siteId: visit.siteId,
+        label: dsql`'T' || (select coalesce(max(substring(label from 2)::int), 0) + 1 from lesion_tracks where patient_id = ${visit.patientId} and label ~ '^T[0-9]+$')`,
+      })
+      .returning({ id: lesionTracks.id, label: lesionTracks.label });
     const [row] = await tx
       .insert(lesions)
       .values({
@@ -104,20 +104,23 @@ export async function createLesion(scope: SiteScope, visitId: string, input: Cre
         visitId: visit.id,
         siteId: visit.siteId,
         trackId: track!.id,
-        label: `L${n}`,
-        zone: zoneFor(bounds, input.distanceStartCm, input.distanceEndCm),
+        label: dsql`'L' || (select coalesce(max(substring(label from 2)::int), 0) + 1 from lesions where visit_id = ${visit.id} and label ~ '^L[0-9]+$')`,
+        zone,
       })
-      .returning({ id: lesions.id });
-    await refreshTrackStatuses(tx, visit.patientId, visit.siteId);
-    await recordAudit({ userId: scope.userId, siteId: visit.siteId, patientId: visit.patientId, action: "lesion.create", entityType: "lesion", entityId: row!.id, ip, detail: { ...input } }, tx);
-    return fetchOne(tx, row!.id);
+      .returning(lesionColumnsOfRow);
+    // Independent of each other: sent together.
+    await Promise.all([
+      refreshTrackStatuses(tx, visit.patientId, visit.siteId),
+      recordAudit({ userId: scope.userId, siteId: visit.siteId, patientId: visit.patientId, action: "lesion.create", entityType: "lesion", entityId: row!.id, ip, detail: { ...input } }, tx),
+    ]);
+    // A lesion created just now has no biopsy and no treatment yet.
+    return { ...(row as Omit<LesionRow, "trackLabel">), vessels: row!.vessels as LesionDto["vessels"], trackLabel: track!.label, histology: null, biopsyLabels: [], treated: false };
   });
 }
 
 export async function updateLesion(scope: SiteScope, visitId: string, lesionId: string, input: UpdateLesionInput, ip: string): Promise<LesionDto> {
   return db.transaction(async (tx) => {
-    const visit = await lockDraftVisit(tx, scope, visitId);
-    const [current] = await tx.select().from(lesions).where(and(eq(lesions.id, lesionId), eq(lesions.visitId, visit.id)));
+    const { visit, current } = await lockDraftVisitForLesion(tx, scope, visitId, { lesionId });
     if (!current) throw new AppError("not_found");
     if (current.version !== input.version) throw new AppError("conflict");
     const { version, trackId, ...fields } = input;
@@ -128,16 +131,19 @@ export async function updateLesion(scope: SiteScope, visitId: string, lesionId: 
     const start = fields.distanceStartCm ?? current.distanceStartCm;
     const end = fields.distanceEndCm ?? current.distanceEndCm;
     if (start > end) throw new AppError("invalid", undefined, { distanceEndCm: ["The distance range must run from the lower to the higher value."] });
-    const bounds = await zoneBoundsFor(tx, visit.siteId);
     const updated = await tx
       .update(lesions)
-      .set({ ...fields, ...(trackId !== undefined ? { trackId } : {}), zone: zoneFor(bounds, start, end), version: current.version + 1, updatedAt: new Date() })
+      .set({ ...fields, ...(trackId !== undefined ? { trackId } : {}), zone: zoneFor(boundsOf(visit.zoneBounds), start, end), version: current.version + 1, updatedAt: new Date() })
       .where(and(eq(lesions.id, lesionId), eq(lesions.version, version)))
       .returning({ id: lesions.id });
     if (updated.length === 0) throw new AppError("conflict");
-    await refreshTrackStatuses(tx, visit.patientId, visit.siteId);
-    await recordAudit({ userId: scope.userId, siteId: visit.siteId, patientId: visit.patientId, action: "lesion.update", entityType: "lesion", entityId: lesionId, ip, detail: { ...input } }, tx);
-    return fetchOne(tx, lesionId);
+    // Independent of each other, all after the update: sent together.
+    const [, , lesion] = await Promise.all([
+      refreshTrackStatuses(tx, visit.patientId, visit.siteId),
+      recordAudit({ userId: scope.userId, siteId: visit.siteId, patientId: visit.patientId, action: "lesion.update", entityType: "lesion", entityId: lesionId, ip, detail: { ...input } }, tx),
+      fetchOne(tx, lesionId),
+    ]);
+    return lesion;
   });
 }
 

@@ -1,4 +1,4 @@
-import { and, asc, eq, inArray, isNotNull } from "drizzle-orm";
+import { and, asc, eq, inArray, isNotNull, sql as dsql } from "drizzle-orm";
 import { biopsies, lesions, trackChecks, trackStatuses, treatments, visits, lesionTracks } from "../schema";
 import type { Db, Tx } from "../client";
 import { HISTOLOGY, type Histology } from "@/lib/domain/vocab";
@@ -9,25 +9,38 @@ type Runner = Db | Tx;
 const HISTOLOGY_RANK = Object.fromEntries(HISTOLOGY.map((h, i) => [h, i])) as Record<Histology, number>;
 
 /**
- * Every track of one patient with one observation per visit, in five queries whatever the
- * number of visits and lesions. A signed visit is a complete exam: a track without a lesion
- * there was looked for and not found. On a draft only an explicit "not found" counts.
+ * Every track of one patient with one observation per visit, in six queries whatever the
+ * number of visits and lesions, sent together (one round trip inside a transaction). A signed
+ * visit is a complete exam: a track without a lesion there was looked for and not found. On a
+ * draft only an explicit "not found" counts.
  */
 export async function loadTrackHistories(run: Runner, patientId: string): Promise<TrackHistory[]> {
-  const visitRows = await run
-    .select({ id: visits.id, visitDate: visits.visitDate, status: visits.status })
-    .from(visits)
-    .where(eq(visits.patientId, patientId))
-    .orderBy(asc(visits.visitDate), asc(visits.createdAt));
-  const tracks = await run.select({ id: lesionTracks.id, label: lesionTracks.label }).from(lesionTracks).where(eq(lesionTracks.patientId, patientId));
-  if (visitRows.length === 0 || tracks.length === 0) return [];
-  const visitIds = visitRows.map((v) => v.id);
-  const [lesionRows, biopsyRows, treatmentRows, checkRows] = await Promise.all([
-    run.select({ id: lesions.id, visitId: lesions.visitId, trackId: lesions.trackId, grade: lesions.grade }).from(lesions).where(and(inArray(lesions.visitId, visitIds), isNotNull(lesions.trackId))),
-    run.select({ lesionId: biopsies.lesionId, histology: biopsies.histology }).from(biopsies).where(and(inArray(biopsies.visitId, visitIds), isNotNull(biopsies.histology))),
-    run.select({ lesionId: treatments.lesionId, visitId: treatments.visitId }).from(treatments).where(inArray(treatments.visitId, visitIds)),
-    run.select({ visitId: trackChecks.visitId, trackId: trackChecks.trackId, outcome: trackChecks.outcome }).from(trackChecks).where(inArray(trackChecks.visitId, visitIds)),
+  const ofPatient = eq(visits.patientId, patientId);
+  const [visitRows, tracks, lesionRows, biopsyRows, treatmentRows, checkRows] = await Promise.all([
+    run
+      .select({ id: visits.id, visitDate: visits.visitDate, status: visits.status })
+      .from(visits)
+      .where(ofPatient)
+      .orderBy(asc(visits.visitDate), asc(visits.createdAt)),
+    run.select({ id: lesionTracks.id, label: lesionTracks.label }).from(lesionTracks).where(eq(lesionTracks.patientId, patientId)),
+    run
+      .select({ id: lesions.id, visitId: lesions.visitId, trackId: lesions.trackId, grade: lesions.grade })
+      .from(lesions)
+      .innerJoin(visits, eq(visits.id, lesions.visitId))
+      .where(and(ofPatient, isNotNull(lesions.trackId))),
+    run
+      .select({ lesionId: biopsies.lesionId, histology: biopsies.histology })
+      .from(biopsies)
+      .innerJoin(visits, eq(visits.id, biopsies.visitId))
+      .where(and(ofPatient, isNotNull(biopsies.histology))),
+    run.select({ lesionId: treatments.lesionId, visitId: treatments.visitId }).from(treatments).innerJoin(visits, eq(visits.id, treatments.visitId)).where(ofPatient),
+    run
+      .select({ visitId: trackChecks.visitId, trackId: trackChecks.trackId, outcome: trackChecks.outcome })
+      .from(trackChecks)
+      .innerJoin(visits, eq(visits.id, trackChecks.visitId))
+      .where(ofPatient),
   ]);
+  if (visitRows.length === 0 || tracks.length === 0) return [];
   // The worst histology among a lesion's biopsies decides.
   const histologyByLesion = new Map<string, Histology>();
   for (const b of biopsyRows) {
@@ -54,15 +67,64 @@ export async function loadTrackHistories(run: Runner, patientId: string): Promis
   }));
 }
 
-/** Recomputes and stores every track status of one patient (lib/tracking decides). */
+type StatusRow = typeof trackStatuses.$inferInsert;
+const sameRow = (a: StatusRow, b: StatusRow) =>
+  a.status === b.status && (a.effectiveGrade ?? null) === (b.effectiveGrade ?? null) && a.reason === b.reason && a.siteId === b.siteId;
+
+/**
+ * Recomputes every track status of one patient (lib/tracking decides; a track's status can depend
+ * on the patient's other tracks) and stores the result. Only rows that differ from the stored ones
+ * are written, so the table ends exactly as a full rewrite would leave it, but a write that
+ * changes one track touches only that track's rows.
+ */
 export async function refreshTrackStatuses(run: Runner, patientId: string, siteId: string): Promise<void> {
-  const histories = withMetachronousContext(await loadTrackHistories(run, patientId));
-  const trackIds = histories.map((h) => h.trackId);
-  const rows = histories.flatMap((h) =>
-    computeStatuses(h.observations, { earlierDiseaseElsewhere: h.earlierDiseaseElsewhere })
-      .filter((s) => s.status !== null)
-      .map((s) => ({ trackId: h.trackId, visitId: s.visitId, siteId, status: s.status!, effectiveGrade: s.effectiveGrade, reason: s.reason })),
-  );
-  if (trackIds.length) await run.delete(trackStatuses).where(inArray(trackStatuses.trackId, trackIds));
-  if (rows.length) await run.insert(trackStatuses).values(rows);
+  const [histories, storedRows] = await Promise.all([
+    loadTrackHistories(run, patientId),
+    run
+      .select({ trackId: trackStatuses.trackId, visitId: trackStatuses.visitId, siteId: trackStatuses.siteId, status: trackStatuses.status, effectiveGrade: trackStatuses.effectiveGrade, reason: trackStatuses.reason })
+      .from(trackStatuses)
+      .innerJoin(lesionTracks, eq(lesionTracks.id, trackStatuses.trackId))
+      .where(eq(lesionTracks.patientId, patientId)),
+  ]);
+  const computed = new Map<string, StatusRow[]>();
+  for (const h of withMetachronousContext(histories)) {
+    computed.set(
+      h.trackId,
+      computeStatuses(h.observations, { earlierDiseaseElsewhere: h.earlierDiseaseElsewhere })
+        .filter((s) => s.status !== null)
+        .map((s) => ({ trackId: h.trackId, visitId: s.visitId, siteId, status: s.status!, effectiveGrade: s.effectiveGrade, reason: s.reason })),
+    );
+  }
+  const stored = new Map<string, StatusRow>();
+  for (const r of storedRows) stored.set(`${r.trackId}|${r.visitId}`, r);
+  // Rows that are new or differ are written; stored rows of a recomputed track that the
+  // recomputation no longer yields are removed. The two sets are disjoint: sent together.
+  const upserts: StatusRow[] = [];
+  const keep = new Set<string>();
+  for (const rows of computed.values()) {
+    for (const r of rows) {
+      const key = `${r.trackId}|${r.visitId}`;
+      keep.add(key);
+      const old = stored.get(key);
+      if (!old || !sameRow(old, r)) upserts.push(r);
+    }
+  }
+  const stale = new Map<string, string[]>();
+  for (const [key, r] of stored) {
+    if (keep.has(key) || !computed.has(r.trackId)) continue;
+    stale.set(r.trackId, [...(stale.get(r.trackId) ?? []), r.visitId]);
+  }
+  await Promise.all([
+    ...[...stale].map(([trackId, visitIds]) => run.delete(trackStatuses).where(and(eq(trackStatuses.trackId, trackId), inArray(trackStatuses.visitId, visitIds)))),
+    upserts.length
+      ? run
+          .insert(trackStatuses)
+          .values(upserts)
+          .onConflictDoUpdate({
+            target: [trackStatuses.trackId, trackStatuses.visitId],
+            set: { siteId: dsql`excluded.site_id`, status: dsql`excluded.status`, effectiveGrade: dsql`excluded.effective_grade`, reason: dsql`excluded.reason` },
+          })
+      : null,
+  ]);
 }
+
