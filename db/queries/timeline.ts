@@ -1,24 +1,26 @@
 import "server-only";
-import { and, asc, eq, inArray, isNotNull } from "drizzle-orm";
+import { and, asc, eq, isNotNull } from "drizzle-orm";
 import { db } from "../client";
 import { adjudications, biopsies, lesions, lesionTracks, patients, reviews, trackChecks, trackStatuses, treatments, users, visits } from "../schema";
 import { inScope, type SiteScope } from "./scope";
+import { recordAudit, type AuditInput } from "./audit";
 import { AppError } from "@/lib/errors";
 import { HISTOLOGY, HISTOLOGY_AS_GRADE, type Grade, type Histology } from "@/lib/domain/vocab";
 import { unionLengthH } from "@/lib/geometry/arcs";
 
 /**
  * Everything the timeline and compare screens need for one patient, in a fixed number of
- * queries (nine) whatever the number of visits and lesions.
+ * queries (ten) whatever the number of visits and lesions: the patient in scope, then the rest
+ * together. The read is audited (`audit`, completed with the patient) in that same second batch.
  */
-export async function loadTimeline(scope: SiteScope, patientId: string) {
+export async function loadTimeline(scope: SiteScope, patientId: string, audit?: Omit<AuditInput, "siteId" | "patientId">) {
   const [patient] = await db
     .select({ id: patients.id, siteId: patients.siteId, familyName: patients.familyName, givenName: patients.givenName, mrn: patients.mrn })
     .from(patients)
     .where(and(eq(patients.id, patientId), inScope(patients.siteId, scope)));
   if (!patient) throw new AppError("not_found");
 
-  const [visitRows, trackRows, lesionRows, biopsyRows, treatmentRows, statusRows, checkRows, reviewRows] = await Promise.all([
+  const [visitRows, trackRows, lesionRows, biopsyRows, treatmentRows, statusRows, checkRows, reviewRows, adjudicationRows] = await Promise.all([
     db.select({ id: visits.id, visitDate: visits.visitDate, status: visits.status, patientPosition: visits.patientPosition, examiner: users.displayName, examinerId: visits.examinerId })
       .from(visits).innerJoin(users, eq(users.id, visits.examinerId)).where(eq(visits.patientId, patient.id)).orderBy(asc(visits.visitDate), asc(visits.createdAt)),
     db.select({ id: lesionTracks.id, label: lesionTracks.label }).from(lesionTracks).where(eq(lesionTracks.patientId, patient.id)).orderBy(asc(lesionTracks.createdAt)),
@@ -36,11 +38,10 @@ export async function loadTimeline(scope: SiteScope, patientId: string) {
       .from(trackChecks).innerJoin(lesionTracks, eq(lesionTracks.id, trackChecks.trackId)).where(eq(lesionTracks.patientId, patient.id)),
     db.select({ id: reviews.id, visitId: reviews.visitId, comparedVisitId: reviews.comparedVisitId, status: reviews.status, reviewerId: reviews.reviewerId })
       .from(reviews).where(eq(reviews.patientId, patient.id)),
+    db.select({ id: adjudications.id, reviewId: adjudications.reviewId, trackId: adjudications.trackId, verdict: adjudications.verdict, proposedStatus: adjudications.proposedStatus, comment: adjudications.comment, resolvedAt: adjudications.resolvedAt, createdAt: adjudications.createdAt })
+      .from(adjudications).innerJoin(reviews, eq(reviews.id, adjudications.reviewId)).where(eq(reviews.patientId, patient.id)),
+    audit ? recordAudit({ ...audit, siteId: patient.siteId, patientId: patient.id }) : null,
   ]);
-  const adjudicationRows = reviewRows.length
-    ? await db.select({ id: adjudications.id, reviewId: adjudications.reviewId, trackId: adjudications.trackId, verdict: adjudications.verdict, proposedStatus: adjudications.proposedStatus, comment: adjudications.comment, resolvedAt: adjudications.resolvedAt, createdAt: adjudications.createdAt })
-        .from(adjudications).where(inArray(adjudications.reviewId, reviewRows.map((r) => r.id)))
-    : [];
 
   const histologyByLesion = new Map<string, Histology>();
   const biopsyLabels = new Map<string, string[]>();

@@ -1,11 +1,12 @@
 import "server-only";
 import { and, eq } from "drizzle-orm";
 import { alias } from "drizzle-orm/pg-core";
-import { db } from "../client";
+import { db, type Db, type Tx } from "../client";
 import { sites, users, visits } from "../schema";
 import { inScope, type SiteScope } from "./scope";
 import { lockDraftVisit } from "./visit-access";
 import { refreshTrackStatuses } from "./tracking";
+import { recordAudit } from "./audit";
 import { AppError } from "@/lib/errors";
 import { DEFAULT_CAUTION_FRACTION } from "@/lib/dosing";
 import type { ExamDetailsInput } from "@/lib/validation/visit-record";
@@ -14,8 +15,12 @@ const examiner = alias(users, "examiner");
 const signer = alias(users, "signer");
 
 /** The visit header with every exam field, the examiner's and signer's names and the site's caution level. */
-export async function getVisitRecord(scope: SiteScope, visitId: string) {
-  const [row] = await db
+export function getVisitRecord(scope: SiteScope, visitId: string) {
+  return readVisitRecord(db, scope, visitId);
+}
+
+async function readVisitRecord(run: Db | Tx, scope: SiteScope, visitId: string) {
+  const [row] = await run
     .select({
       id: visits.id,
       patientId: visits.patientId,
@@ -49,13 +54,14 @@ export async function getVisitRecord(scope: SiteScope, visitId: string) {
   if (!row) throw new AppError("not_found");
   return { ...row, extentCautionFraction: row.extentCautionFraction ?? DEFAULT_CAUTION_FRACTION };
 }
-export type VisitRecord = Awaited<ReturnType<typeof getVisitRecord>>;
+export type VisitRecord = Awaited<ReturnType<typeof readVisitRecord>>;
 
 /**
  * Saves the exam details if nobody saved since the caller loaded them (optimistic version).
- * A changed date re-orders the patient's visits, so track statuses are recomputed.
+ * A changed date re-orders the patient's visits, so track statuses are recomputed. The change is
+ * audited in the same transaction; returns the visit record as saved.
  */
-export async function updateExamDetails(scope: SiteScope, visitId: string, input: ExamDetailsInput) {
+export async function updateExamDetails(scope: SiteScope, visitId: string, input: ExamDetailsInput, ip: string): Promise<VisitRecord> {
   return db.transaction(async (tx) => {
     const v = await lockDraftVisit(tx, scope, visitId);
     if (v.version !== input.version) throw new AppError("conflict");
@@ -80,6 +86,11 @@ export async function updateExamDetails(scope: SiteScope, visitId: string, input
       .where(eq(visits.id, v.id))
       .returning({ version: visits.version });
     if (fields.visitDate !== v.visitDate) await refreshTrackStatuses(tx, v.patientId, v.siteId);
-    return { id: v.id, patientId: v.patientId, siteId: v.siteId, version: saved!.version, changed: Object.keys(fields) };
+    // Independent of each other, both after the update: sent together.
+    const [, record] = await Promise.all([
+      recordAudit({ userId: scope.userId, siteId: v.siteId, patientId: v.patientId, action: "visit.exam.update", entityType: "visit", entityId: v.id, ip, detail: { fields: Object.keys(fields), version: saved!.version } }, tx),
+      readVisitRecord(tx, scope, v.id),
+    ]);
+    return record;
   });
 }

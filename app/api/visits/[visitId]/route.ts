@@ -15,7 +15,5 @@ export const GET = route<P>({ roles: ["clinician", "reviewer", "research_nurse",
 export const PATCH = route<P>({ roles: ["clinician"] }, async ({ req, user, params, ip }) => {
   const visitId = idParam(params.visitId);
   const input = await readJson(req, examDetailsSchema);
-  const saved = await updateExamDetails(scopeOf(user), visitId, input);
-  await recordAudit({ userId: user.id, siteId: saved.siteId, patientId: saved.patientId, action: "visit.exam.update", entityType: "visit", entityId: saved.id, ip, detail: { fields: saved.changed, version: saved.version } });
-  return { visit: await getVisitRecord(scopeOf(user), visitId) };
+  return { visit: await updateExamDetails(scopeOf(user), visitId, input, ip) };
 });
