@@ -13,27 +13,31 @@ export async function findUserCredentials(email: string) {
   return row ?? null;
 }
 
+// Built once (every request runs it), executed with the session id as its only parameter.
+const sessionWithUser = db
+  .select({
+    sessionId: sessions.id,
+    userId: sessions.userId,
+    expiresAt: sessions.expiresAt,
+    email: users.email,
+    displayName: users.displayName,
+    role: users.role,
+    active: users.active,
+    displayConvention: users.displayConvention,
+    siteIds: dsql<string[]>`array(select ${userSites.siteId}::text from ${userSites} where ${userSites.userId} = ${users.id} order by 1)`,
+  })
+  .from(sessions)
+  .innerJoin(users, eq(users.id, sessions.userId))
+  .where(eq(sessions.id, dsql.placeholder("sessionId")))
+  .prepare("session_with_user");
+
 /**
  * What every authenticated request needs, in one statement: the session, its user (never the
  * password hash) and the user's sites. Read afresh each time: nothing is kept in process, so a
  * deactivated user or a removed site membership takes effect on the next request.
  */
 export async function findSessionWithUser(sessionId: string) {
-  const [row] = await db
-    .select({
-      sessionId: sessions.id,
-      userId: sessions.userId,
-      expiresAt: sessions.expiresAt,
-      email: users.email,
-      displayName: users.displayName,
-      role: users.role,
-      active: users.active,
-      displayConvention: users.displayConvention,
-      siteIds: dsql<string[]>`array(select ${userSites.siteId}::text from ${userSites} where ${userSites.userId} = ${users.id} order by 1)`,
-    })
-    .from(sessions)
-    .innerJoin(users, eq(users.id, sessions.userId))
-    .where(eq(sessions.id, sessionId));
+  const [row] = await sessionWithUser.execute({ sessionId });
   return row ?? null;
 }
 
