@@ -108,7 +108,7 @@ describe("timeline", () => {
     expect(body.visits).toHaveLength(30);
     expect(body.lesions).toHaveLength(1200);
     expect(body.statuses).toHaveLength(1200);
-    // Session check (2) + patient + 8 parallel reads + audit insert; never one per visit or lesion.
+    // Session check (1) + patient + 9 parallel reads + audit insert; never one per visit or lesion.
     expect(queries, seen.join("\n")).toBeLessThanOrEqual(14);
     // 11 o'clock to 1 o'clock is 2 hours of 12 (30° per hour): one sixth of the circumference.
     expect(body.perVisit[3].treatedFraction).toBeCloseTo(2 / 12, 6);
