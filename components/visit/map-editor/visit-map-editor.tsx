@@ -86,7 +86,7 @@ export function VisitMapEditor({ visitId, initialConvention, canEdit = true }: V
       setSelected(id);
       return id;
     },
-    [create, newGrade],
+    [create, newGrade, setSelected],
   );
   const onChange = useCallback((id: string, e: MapExtent) => change(id, e), [change]);
   const onRequestDelete = useCallback((id: string) => setConfirmId(id), []);
