@@ -128,23 +128,26 @@ function LesionShapeInner({ lesion, conv, turnDeg, prefix, selected, saveState, 
           <text x={shape.innerEdge.x} y={shape.innerEdge.y + 5} textAnchor="middle" fontSize={13} fontWeight={700} fill="var(--color-ink)">{tagText}</text>
         </g>
       ) : null}
-      <text
-        transform={shape.point ? undefined : upright(shape.c)}
-        x={shape.c.x}
-        y={shape.point ? shape.c.y - POINT_RADIUS - 6 : shape.c.y + 5}
-        textAnchor="middle"
-        fontSize={14}
-        fontWeight={700}
-        fill="var(--color-ink)"
-        stroke="var(--color-panel)"
-        strokeWidth={4}
-        paintOrder="stroke"
-        pointerEvents="none"
-        aria-hidden="true"
-      >
-        {lesion.label}
-        {saveState === "failed" ? " !" : ""}
-      </text>
+      {/* The turn sits on a wrapping group: changing a <text>'s own transform makes Chromium lay
+          the text out again (~18 ms for 200 labels), changing its parent's does not (~3 ms). */}
+      <g transform={shape.point ? undefined : upright(shape.c)}>
+        <text
+          x={shape.c.x}
+          y={shape.point ? shape.c.y - POINT_RADIUS - 6 : shape.c.y + 5}
+          textAnchor="middle"
+          fontSize={14}
+          fontWeight={700}
+          fill="var(--color-ink)"
+          stroke="var(--color-panel)"
+          strokeWidth={4}
+          paintOrder="stroke"
+          pointerEvents="none"
+          aria-hidden="true"
+        >
+          {lesion.label}
+          {saveState === "failed" ? " !" : ""}
+        </text>
+      </g>
     </g>
     </>
   );
