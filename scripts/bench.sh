@@ -91,7 +91,7 @@ part prepare $TSX --conditions=react-server scripts/bench/prepare.ts 100
 cp "$PARTS/prepare.json" "$OUT/prepare.json"
 
 start_s3_fake "$S3_PORT" "$OUT/s3" "dentate-bench"
-node_modules/.bin/next start -H 127.0.0.1 -p "$APP_PORT" >"$OUT/app.log" 2>&1 &
+NODE_OPTIONS="$APP_NODE_OPTIONS" node_modules/.bin/next start -H 127.0.0.1 -p "$APP_PORT" >"$OUT/app.log" 2>&1 &
 APP_PID=$!
 wait_http "$BASE/api/ping" 60
 # The server process itself (next start may hand over to a child): whoever listens on the port.

@@ -5,13 +5,7 @@
 # (DATABASE_URL=.../DBNAME), then rename or drop databases deliberately.
 set -euo pipefail
 
-pg_tool() {
-  local name="$1" dir
-  if [ -n "${PGBIN:-}" ] && [ -x "$PGBIN/$name" ]; then echo "$PGBIN/$name"; return; fi
-  dir="$(ls -d /usr/lib/postgresql/*/bin 2>/dev/null | sort -V | tail -1 || true)"
-  if [ -n "$dir" ] && [ -x "$dir/$name" ]; then echo "$dir/$name"; return; fi
-  command -v "$name" || { echo "restore: $name not found (install the PostgreSQL client)" >&2; exit 2; }
-}
+source "$(dirname "$0")/lib/pg-tools.sh"
 
 FILE="${1:-}"
 [ -n "$FILE" ] && [ -f "$FILE" ] || { echo "usage: scripts/restore.sh FILE [DBNAME]  (FILE from scripts/backup.sh)" >&2; exit 2; }

@@ -46,7 +46,7 @@ cleanup() {
 }
 trap cleanup INT TERM EXIT
 
-node_modules/.bin/next start -H 127.0.0.1 -p "$APP_PORT" &
+NODE_OPTIONS="$APP_NODE_OPTIONS" node_modules/.bin/next start -H 127.0.0.1 -p "$APP_PORT" &
 APP_PID=$!
 # The outbox worker sends queued mail with retries; the reminder job runs now and once a day.
 node_modules/.bin/tsx --conditions=react-server scripts/mail-worker.ts &

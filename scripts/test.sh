@@ -65,7 +65,7 @@ if node_modules/.bin/next build >"$OUT/build.log" 2>&1; then
   # The end-to-end layer gets its own fake inbox and the mail worker (integration tests that need
   # SMTP start private ones, and no worker may drain their outbox meanwhile).
   start_mail_fake "$SMTP_TEST_PORT" "$MAIL_WEB_TEST_PORT" "$OUT/mail"
-  node_modules/.bin/next start -H 127.0.0.1 -p "$APP_PORT" >"$OUT/app.log" 2>&1 &
+  NODE_OPTIONS="$APP_NODE_OPTIONS" node_modules/.bin/next start -H 127.0.0.1 -p "$APP_PORT" >"$OUT/app.log" 2>&1 &
   APP_PID=$!
   MAIL_WORKER_INTERVAL_MS=500 node_modules/.bin/tsx --conditions=react-server scripts/mail-worker.ts >"$OUT/mail-worker.log" 2>&1 &
   WORKER_PID=$!

@@ -1,5 +1,5 @@
 import { useId, useMemo, type KeyboardEvent, type PointerEvent, type ReactNode, type Ref, type SVGProps } from "react";
-import { CARDINAL_DISPLAY_HOURS, anatomicalLabelAt, displayHour, type DisplayConvention } from "@/lib/geometry";
+import { CARDINAL_DISPLAY_HOURS, anatomicalLabelAt, displayHour, toDisplayHours, type DisplayConvention } from "@/lib/geometry";
 import { GHOST_MARK, ORIENTATION_NOTE } from "./encoding";
 import { GhostShape, type GhostLesion } from "./ghost-shape";
 import { LesionShape, type LesionSaveState, type MapLesion } from "./lesion-shape";
@@ -51,6 +51,7 @@ export function CanalMap(props: CanalMapProps) {
   const { lesions, convention, selectedId, ghosts, selectedGhostId, treatedArcs, saveStates, focusable = true, overlay, svgRef, svgProps } = props;
   const prefix = safeId(useId());
   const desc = useMemo(() => orientationWords(convention), [convention]);
+  const turnDeg = toDisplayHours(0, convention) * 30;
   return (
     <svg
       ref={svgRef}
@@ -76,9 +77,11 @@ export function CanalMap(props: CanalMapProps) {
         </g>
       ) : null}
       {/* Order is kept stable on selection: moving a focused node in the DOM would drop keyboard focus. */}
-      <g>
+      {/* Lesions are drawn in the stored frame and this layer turns them to the convention's
+          numbering: switching conventions changes one transform, not two hundred paths. */}
+      <g transform={turnDeg ? `rotate(${turnDeg})` : undefined}>
         {lesions.map((l) => (
-          <LesionShape key={l.id} lesion={l} conv={convention} prefix={prefix} selected={l.id === selectedId} saveState={saveStates?.[l.id]} focusable={focusable} onPointerDown={props.onLesionPointerDown} onKeyDown={props.onLesionKeyDown} />
+          <LesionShape key={l.id} lesion={l} conv={convention} turnDeg={turnDeg} prefix={prefix} selected={l.id === selectedId} saveState={saveStates?.[l.id]} focusable={focusable} onPointerDown={props.onLesionPointerDown} onKeyDown={props.onLesionKeyDown} />
         ))}
       </g>
       {overlay}

@@ -1,4 +1,4 @@
-import { memo, useMemo, type KeyboardEvent, type PointerEvent } from "react";
+import { memo, useMemo, useState, type KeyboardEvent, type PointerEvent } from "react";
 import { describeSite, type DisplayConvention } from "@/lib/geometry";
 import type { LesionDto } from "@/lib/validation/lesions";
 import { BIOPSY_TAG, GRADE_ENCODING, SELECTION_RING, TREATED_MARK, UNSAVED_MARK } from "./encoding";
@@ -28,6 +28,8 @@ const HIT_STROKE = 30;
 interface Props {
   lesion: MapLesion;
   conv: DisplayConvention;
+  /** How far CanalMap turns the lesion layer for this convention, in degrees clockwise. */
+  turnDeg: number;
   prefix: string;
   selected: boolean;
   saveState?: LesionSaveState;
@@ -36,21 +38,36 @@ interface Props {
   onKeyDown?: (id: string, e: KeyboardEvent<SVGGElement>) => void;
 }
 
-function LesionShapeInner({ lesion, conv, prefix, selected, saveState, focusable, onPointerDown, onKeyDown }: Props) {
+/** The frame lesions are drawn in before the layer is turned: lithotomy numbering is the stored one. */
+const STORED_FRAME: DisplayConvention = "lithotomy";
+
+function LesionShapeInner({ lesion, conv, turnDeg, prefix, selected, saveState, focusable, onPointerDown, onKeyDown }: Props) {
   const enc = GRADE_ENCODING[lesion.grade];
+  // Geometry is drawn in the stored frame (lithotomy numbering: display offset 0) and the
+  // whole lesion layer is turned by the convention (CanalMap), so a change of numbering leaves
+  // every path as it is: only the spoken names change, and the labels turn back upright.
+  // Only what is drawn is computed: the halo path when treated, the ring when selected or focused.
   const shape = useMemo(() => {
     const point = isPointLesion(lesion);
     const centre = centreOf(lesion);
-    const c = pointOfSite(centre.storedH, centre.cm, conv);
-    const body = point ? null : sectorPath(sectorOf(lesion, conv)) ?? "";
-    const halo = point ? null : sectorPath(sectorOf(lesion, conv, TREATED_MARK.haloPx)) ?? "";
-    const ring = point ? null : sectorPath(sectorOf(lesion, conv, SELECTION_RING.padPx + (lesion.treated ? TREATED_MARK.haloPx : 0))) ?? "";
-    const geo = sectorOf(lesion, conv);
+    const c = pointOfSite(centre.storedH, centre.cm, STORED_FRAME);
+    const geo = sectorOf(lesion, STORED_FRAME);
+    const body = point ? null : sectorPath(geo) ?? "";
+    const halo = point || !lesion.treated ? null : sectorPath(sectorOf(lesion, STORED_FRAME, TREATED_MARK.haloPx)) ?? "";
     const mid = (geo.startAngle + geo.endAngle) / 2;
     const outerEdge = point ? { x: c.x, y: c.y - POINT_RADIUS - 8 } : polar(mid, geo.outerRadius + TREATED_MARK.haloPx + 8);
     const innerEdge = point ? { x: c.x + POINT_RADIUS + 12, y: c.y } : polar(mid, Math.max(geo.innerRadius - 14, radiusOfCm(8)));
-    return { point, c, body, halo, ring, outerEdge, innerEdge, name: lesionAccessibleName(lesion, conv) };
-  }, [lesion, conv]);
+    return { point, c, body, halo, outerEdge, innerEdge };
+  }, [lesion]);
+  const name = useMemo(() => lesionAccessibleName(lesion, conv), [lesion, conv]);
+  const [focused, setFocused] = useState(false);
+  const ringed = selected || focused;
+  const ring = useMemo(
+    () => (ringed && !shape.point ? sectorPath(sectorOf(lesion, STORED_FRAME, SELECTION_RING.padPx + (lesion.treated ? TREATED_MARK.haloPx : 0))) ?? "" : null),
+    [ringed, shape.point, lesion],
+  );
+  /** Undoes the layer's turn around a point, so text reads upright in every convention. */
+  const upright = (p: { x: number; y: number }) => (turnDeg ? `rotate(${-turnDeg} ${p.x} ${p.y})` : undefined);
 
   const fill = `url(#${patternId(prefix, lesion.grade)})`;
   const outline = saveState === "failed" ? UNSAVED_MARK.stroke : enc.strokeHue;
@@ -64,13 +81,15 @@ function LesionShapeInner({ lesion, conv, prefix, selected, saveState, focusable
     <g
       role="button"
       tabIndex={focusable ? 0 : -1}
-      aria-label={shape.name + (saveState === "failed" ? ", not saved" : "")}
+      aria-label={name + (saveState === "failed" ? ", not saved" : "")}
       aria-pressed={selected}
       data-lesion-id={lesion.id}
       className="group cursor-pointer outline-none"
       opacity={saveState === "saving" ? 0.75 : 1}
       onPointerDown={onPointerDown ? (e) => onPointerDown(lesion.id, e) : undefined}
       onKeyDown={onKeyDown ? (e) => onKeyDown(lesion.id, e) : undefined}
+      onFocus={() => setFocused(true)}
+      onBlur={() => setFocused(false)}
     >
       {drawBody({ fill: "none", stroke: "transparent", strokeWidth: HIT_STROKE, pointerEvents: "all" })}
       {lesion.treated && !shape.point ? (
@@ -78,22 +97,25 @@ function LesionShapeInner({ lesion, conv, prefix, selected, saveState, focusable
       ) : null}
       {drawBody({ fill, stroke: outline, strokeWidth: saveState === "failed" ? UNSAVED_MARK.width : enc.outlineWidth, strokeDasharray: saveState === "failed" ? UNSAVED_MARK.dash : enc.outlineDash, strokeLinecap: "round", strokeLinejoin: "round" })}
       {enc.doubleOutline ? drawBody({ fill: "none", stroke: "var(--color-paper)", strokeWidth: 2 }) : null}
-      {/* Focus ring: drawn by us because outlines on SVG groups are unreliable across browsers. */}
-      {shape.point ? (
-        <circle cx={shape.c.x} cy={shape.c.y} r={POINT_RADIUS + 7} fill="none" stroke="var(--color-lagoon-900)" strokeWidth={3} strokeDasharray="4 3" className="opacity-0 group-focus-visible:opacity-100" />
-      ) : (
-        <path d={shape.ring!} fill="none" stroke="var(--color-lagoon-900)" strokeWidth={3} strokeDasharray="4 3" className="opacity-0 group-focus-visible:opacity-100" />
-      )}
+      {/* Focus ring: drawn by us because outlines on SVG groups are unreliable across browsers;
+          present only while focused, shown only for keyboard focus (focus-visible). */}
+      {focused ? (
+        shape.point ? (
+          <circle cx={shape.c.x} cy={shape.c.y} r={POINT_RADIUS + 7} fill="none" stroke="var(--color-lagoon-900)" strokeWidth={3} strokeDasharray="4 3" className="opacity-0 group-focus-visible:opacity-100" />
+        ) : (
+          <path d={ring!} fill="none" stroke="var(--color-lagoon-900)" strokeWidth={3} strokeDasharray="4 3" className="opacity-0 group-focus-visible:opacity-100" />
+        )
+      ) : null}
       {selected ? (
         shape.point ? (
           <circle cx={shape.c.x} cy={shape.c.y} r={POINT_RADIUS + 4} fill="none" stroke={SELECTION_RING.stroke} strokeWidth={SELECTION_RING.width} />
         ) : (
-          <path d={shape.ring!} fill="none" stroke={SELECTION_RING.stroke} strokeWidth={SELECTION_RING.width} />
+          <path d={ring!} fill="none" stroke={SELECTION_RING.stroke} strokeWidth={SELECTION_RING.width} />
         )
       ) : null}
     </g>
     {/* Visible marks sit outside the button, so its spoken name is the whole of its label. */}
-    <g aria-hidden="true" pointerEvents="none">
+    <g aria-hidden="true" pointerEvents="none" transform={shape.point ? upright(shape.c) : undefined}>
       {lesion.treated ? (
         <g aria-hidden="true" pointerEvents="none">
           <circle cx={shape.outerEdge.x} cy={shape.outerEdge.y} r={TREATED_MARK.markRadius} fill="var(--color-panel)" stroke="var(--color-ink)" strokeWidth={2} />
@@ -101,27 +123,31 @@ function LesionShapeInner({ lesion, conv, prefix, selected, saveState, focusable
         </g>
       ) : null}
       {tagText ? (
-        <g aria-hidden="true" pointerEvents="none">
+        <g aria-hidden="true" pointerEvents="none" transform={shape.point ? undefined : upright(shape.innerEdge)}>
           <rect x={shape.innerEdge.x - tagWidth / 2} y={shape.innerEdge.y - BIOPSY_TAG.size / 2} width={tagWidth} height={BIOPSY_TAG.size} fill="var(--color-panel)" stroke="var(--color-ink)" strokeWidth={1.5} />
           <text x={shape.innerEdge.x} y={shape.innerEdge.y + 5} textAnchor="middle" fontSize={13} fontWeight={700} fill="var(--color-ink)">{tagText}</text>
         </g>
       ) : null}
-      <text
-        x={shape.point ? shape.c.x : shape.c.x}
-        y={shape.point ? shape.c.y - POINT_RADIUS - 6 : shape.c.y + 5}
-        textAnchor="middle"
-        fontSize={14}
-        fontWeight={700}
-        fill="var(--color-ink)"
-        stroke="var(--color-panel)"
-        strokeWidth={4}
-        paintOrder="stroke"
-        pointerEvents="none"
-        aria-hidden="true"
-      >
-        {lesion.label}
-        {saveState === "failed" ? " !" : ""}
-      </text>
+      {/* The turn sits on a wrapping group: changing a <text>'s own transform makes Chromium lay
+          the text out again (~18 ms for 200 labels), changing its parent's does not (~3 ms). */}
+      <g transform={shape.point ? undefined : upright(shape.c)}>
+        <text
+          x={shape.c.x}
+          y={shape.point ? shape.c.y - POINT_RADIUS - 6 : shape.c.y + 5}
+          textAnchor="middle"
+          fontSize={14}
+          fontWeight={700}
+          fill="var(--color-ink)"
+          stroke="var(--color-panel)"
+          strokeWidth={4}
+          paintOrder="stroke"
+          pointerEvents="none"
+          aria-hidden="true"
+        >
+          {lesion.label}
+          {saveState === "failed" ? " !" : ""}
+        </text>
+      </g>
     </g>
     </>
   );

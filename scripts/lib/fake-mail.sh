@@ -12,6 +12,7 @@
 #   MAIL_FROM (kept when already set)
 #   MAILDEV_WEB_URL=http://127.0.0.1:WEB_PORT   the inbox page; its JSON API is $MAILDEV_WEB_URL/api/email
 # APP_BASE_URL (links inside mails) is not set here: start.sh knows the app's address.
+source "$(dirname "${BASH_SOURCE[0]}")/processes.sh"
 
 MAIL_FAKE_ROOT="$(cd "$(dirname "${BASH_SOURCE[0]}")/../.." && pwd)"
 
@@ -61,14 +62,6 @@ start_mail_fake() {
 }
 
 stop_mail_fake() {
-  local pid="${MAIL_FAKE_PID:-}"
-  if [ -z "$pid" ] && [ -n "${MAIL_FAKE_PID_FILE:-}" ] && [ -f "$MAIL_FAKE_PID_FILE" ]; then pid="$(cat "$MAIL_FAKE_PID_FILE")"; fi
-  [ -n "$pid" ] || return 0
-  if kill -0 "$pid" 2>/dev/null; then
-    kill "$pid" 2>/dev/null || true
-    for _ in $(seq 1 50); do kill -0 "$pid" 2>/dev/null || break; sleep 0.1; done
-    kill -0 "$pid" 2>/dev/null && kill -9 "$pid" 2>/dev/null || true
-  fi
-  [ -n "${MAIL_FAKE_PID_FILE:-}" ] && rm -f "$MAIL_FAKE_PID_FILE"
+  stop_background "$(recorded_pid "${MAIL_FAKE_PID:-}" "${MAIL_FAKE_PID_FILE:-}")" "${MAIL_FAKE_PID_FILE:-}"
   MAIL_FAKE_PID=""
 }

@@ -8,6 +8,7 @@
 #
 # The app reads: S3_ENDPOINT, S3_BUCKET, S3_ACCESS_KEY_ID, S3_SECRET_ACCESS_KEY, S3_REGION.
 # s3rver accepts the fixed credentials S3RVER / S3RVER.
+source "$(dirname "${BASH_SOURCE[0]}")/processes.sh"
 
 S3_FAKE_ROOT="$(cd "$(dirname "${BASH_SOURCE[0]}")/../.." && pwd)"
 
@@ -56,14 +57,6 @@ start_s3_fake() {
 }
 
 stop_s3_fake() {
-  local pid="${S3_FAKE_PID:-}"
-  if [ -z "$pid" ] && [ -n "${S3_FAKE_PID_FILE:-}" ] && [ -f "$S3_FAKE_PID_FILE" ]; then pid="$(cat "$S3_FAKE_PID_FILE")"; fi
-  [ -n "$pid" ] || return 0
-  if kill -0 "$pid" 2>/dev/null; then
-    kill "$pid" 2>/dev/null || true
-    for _ in $(seq 1 50); do kill -0 "$pid" 2>/dev/null || break; sleep 0.1; done
-    kill -0 "$pid" 2>/dev/null && kill -9 "$pid" 2>/dev/null || true
-  fi
-  [ -n "${S3_FAKE_PID_FILE:-}" ] && rm -f "$S3_FAKE_PID_FILE"
+  stop_background "$(recorded_pid "${S3_FAKE_PID:-}" "${S3_FAKE_PID_FILE:-}")" "${S3_FAKE_PID_FILE:-}"
   S3_FAKE_PID=""
 }

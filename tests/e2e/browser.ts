@@ -4,6 +4,7 @@ import { mkdtempSync, mkdirSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
 import { chromium, type BrowserContext, type Page } from "playwright-core";
+import { overlapH } from "@/lib/geometry";
 
 export const BASE_URL = process.env.DENTATE_BASE_URL ?? "http://127.0.0.1:3100";
 export const DEMO_PASSWORD = "Demo-pass-2026";
@@ -30,4 +31,26 @@ export async function signIn(page: Page, email: string, password = DEMO_PASSWORD
 export async function screenshot(page: Page, name: string): Promise<void> {
   mkdirSync(SHOTS, { recursive: true });
   await page.screenshot({ path: path.join(SHOTS, `${name}.png`), fullPage: true });
+}
+
+/** A JSON call to the app with the page's session (and the Origin a browser would send on POST). */
+export async function api<T>(page: Page, method: "GET" | "POST", urlPath: string, body?: unknown): Promise<T> {
+  const res = method === "GET"
+    ? await page.request.get(`${BASE_URL}${urlPath}`)
+    : await page.request.post(`${BASE_URL}${urlPath}`, { data: body ?? {}, headers: { origin: BASE_URL } });
+  if (!res.ok()) throw new Error(`${method} ${urlPath} → ${res.status()} ${await res.text()}`);
+  return (await res.json()) as T;
+}
+
+export type Spot = { clockStartH: number; clockEndH: number; distanceStartCm: number; distanceEndCm: number };
+
+/** One-hour arcs at 1–2 cm that touch none of the patient's earlier lesions, so only the test's own can match. */
+export function freeSpots(lesions: Spot[]): Spot[] {
+  const out: Spot[] = [];
+  for (let h = 0; h < 12; h += 1.5) {
+    const s = { clockStartH: h, clockEndH: (h + 1) % 12, distanceStartCm: 1, distanceEndCm: 2 };
+    const clash = lesions.some((l) => overlapH({ startH: l.clockStartH, endH: l.clockEndH }, { startH: s.clockStartH, endH: s.clockEndH }) > 0 && l.distanceStartCm <= 2.5 && l.distanceEndCm >= 0.5);
+    if (!clash) out.push(s);
+  }
+  return out;
 }

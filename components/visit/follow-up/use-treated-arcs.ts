@@ -17,5 +17,8 @@ const EMPTY: readonly TreatedArc[] = [];
 export function useTreatedArcs(visitId: string) {
   const { data } = useSWR<TreatmentsView>(`/api/visits/${visitId}/treatments`, fetcher);
   const arcs = useMemo(() => (data?.treatments ? data.treatments.flatMap((t) => t.arcs) : EMPTY), [data]);
-  return { arcs, extent: data?.treatments?.length ? data.extent : null, cautionFraction: data?.cautionFraction ?? null };
+  return useMemo(
+    () => ({ arcs, extent: data?.treatments?.length ? data.extent : null, cautionFraction: data?.cautionFraction ?? null }),
+    [arcs, data],
+  );
 }

@@ -1,7 +1,7 @@
 "use client";
 // The inspector for the selected lesion. One schema (lesionFieldsSchema) for the form and the
 // route. Choices save as soon as they are made; typed fields save on leaving the field or Enter.
-import { useEffect, type ReactNode } from "react";
+import { useEffect, useRef, type ReactNode } from "react";
 import { Controller, useForm, useWatch, type Control } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import type { z } from "zod";
@@ -49,7 +49,13 @@ export function LesionForm({ lesion, convention, readOnly, saveInfo, onCommit, o
   const { register, control, handleSubmit, reset, formState } = form;
 
   // The map may change the lesion (drag, keys): take those values, keep what is being typed.
-  useEffect(() => reset(valuesOf(lesion), { keepDirtyValues: true }), [lesion, reset]);
+  // Not on mount: the defaults are already this lesion's values.
+  const shownLesion = useRef(lesion);
+  useEffect(() => {
+    if (shownLesion.current === lesion) return;
+    shownLesion.current = lesion;
+    reset(valuesOf(lesion), { keepDirtyValues: true });
+  }, [lesion, reset]);
 
   const save = handleSubmit((v) => {
     const lo = Math.min(v.distanceStartCm, v.distanceEndCm);
@@ -170,7 +176,8 @@ function ClockField({ control, name, label, conv, onDone, error }: { control: Co
   return (
     <Controller control={control} name={name} render={({ field }) => {
       const v = field.value as number;
-      const shown = Number.isFinite(v) ? toDisplayHours(v, conv) || 12 : "";
+      // Rounded for display: turning 5.23 h by 6 h in floating point gives 11.230000000000002.
+      const shown = Number.isFinite(v) ? Math.round((toDisplayHours(v, conv) || 12) * 100) / 100 : "";
       return (
         <NumberField
           label={`${label} (o'clock)`}

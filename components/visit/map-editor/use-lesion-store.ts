@@ -56,13 +56,16 @@ export function useLesionStore(visitId: string) {
     setOverlay(ov.current);
   }, []);
   const setStatus = useCallback((id: string, info: SaveInfo | undefined) => update((o) => ({ ...o, status: { ...o.status, [id]: info } })), [update]);
+  const mutateServer = swr.mutate;
   const setServer = useCallback(
     (fn: (d: VisitMapDto) => VisitMapDto) => {
       if (!server.current) return;
       server.current = fn(server.current);
-      void swr.mutate(server.current, { revalidate: false });
+      void mutateServer(server.current, { revalidate: false });
     },
-    [swr],
+    // The bound mutate is stable; the SWR response object is new on every render, and depending
+    // on it would hand every memoised lesion shape new callbacks at every tap.
+    [mutateServer],
   );
 
   /** One request at a time per lesion, in the order the user made the changes. */
@@ -83,19 +86,19 @@ export function useLesionStore(visitId: string) {
           return { ...o, edits, deletes, status: { ...o.status, [id]: undefined } };
         });
         setNotice({ tone: "caution", text: "Changed by someone else — reloaded. Check the lesion and make your change again." });
-        void swr.mutate();
+        void mutateServer();
         return;
       }
       if (err instanceof ApiError && err.status === 423) {
         ov.current = EMPTY;
         setOverlay(EMPTY);
         setNotice({ tone: "danger", text: "This visit has been signed, so the map can no longer be changed. Your unsaved change was not kept." });
-        void swr.mutate();
+        void mutateServer();
         return;
       }
       setStatus(id, { state: "failed", message: `Not ${verb}: ${describeFailure(err)}`, retry });
     },
-    [update, setStatus, swr],
+    [update, setStatus, mutateServer],
   );
 
   const runCreate = useCallback(

@@ -50,7 +50,8 @@ describe("VisitMapEditor saving", { timeout: 20_000 }, () => {
     expect(screen.getByRole("button", { name: /^New…: LSIL.*not saved/ })).toBeTruthy();
     fireEvent.click(screen.getAllByRole("button", { name: "Retry" })[0]!);
     expect(await screen.findByRole("button", { name: /^L9: LSIL/ })).toBeTruthy();
-    expect(screen.queryByText(/Not saved/)).toBeNull();
+    // The table and inspector follow the map in a deferred render: wait for them too.
+    await waitFor(() => expect(screen.queryByText(/Not saved/)).toBeNull(), { timeout: 10_000 });
   });
 
   it("a stale edit (409) tells the user it was changed by someone else and reloads", async () => {

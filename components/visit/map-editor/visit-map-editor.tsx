@@ -1,6 +1,9 @@
 "use client";
 // The visit's canal map screen: map, inspector and lesion table, saved through SWR.
-import { useCallback, useEffect, useMemo, useRef, useState } from "react";
+// A tap or a change of numbering repaints the map first; the inspector, the follow-up list and
+// the 200-row table follow in a deferred render (useDeferredValue), so they never hold up the
+// frame that shows the clinician what the finger did.
+import { memo, useCallback, useDeferredValue, useEffect, useMemo, useRef, useState } from "react";
 import { CONVENTION_LABEL, MapLegend, type GhostLesion, type LesionSaveState, type MapExtent } from "@/components/canal-map";
 import { sendJson } from "@/components/data/fetcher";
 import { Caution } from "@/components/ui/caution";
@@ -11,7 +14,10 @@ import { tapExtent } from "./extent-math";
 import { LesionForm } from "./lesion-form";
 import { LesionTable } from "./lesion-table";
 import { MapEditor } from "./map-editor";
-import { useLesionStore } from "./use-lesion-store";
+import { useLesionStore, type LesionPatch, type SaveInfo } from "./use-lesion-store";
+import type { LesionDto } from "@/lib/validation/lesions";
+import type { FollowUp } from "@/components/visit/follow-up/use-follow-up";
+import type { LookAgain } from "@/components/visit/follow-up/use-look-again";
 import { FollowUpPanel, GhostCard } from "@/components/visit/follow-up/follow-up-panel";
 import { TrackTools } from "@/components/visit/follow-up/track-tools";
 import { TreatedSummary } from "@/components/visit/follow-up/treated-summary";
@@ -43,7 +49,6 @@ export function VisitMapEditor({ visitId, initialConvention, canEdit = true }: V
 
   const readOnly = !canEdit || (store.visit?.readOnly ?? true);
   const selectedId = rawSelected ? store.resolveId(rawSelected) : null;
-  const selected = store.lesions.find((l) => l.id === selectedId) ?? null;
   const { create, change, remove } = store;
   // Picking a lesion and picking an earlier outline exclude each other: one inspector.
   const setSelected = useCallback((id: string | null) => {
@@ -81,7 +86,7 @@ export function VisitMapEditor({ visitId, initialConvention, canEdit = true }: V
       setSelected(id);
       return id;
     },
-    [create, newGrade],
+    [create, newGrade, setSelected],
   );
   const onChange = useCallback((id: string, e: MapExtent) => change(id, e), [change]);
   const onRequestDelete = useCallback((id: string) => setConfirmId(id), []);
@@ -89,6 +94,23 @@ export function VisitMapEditor({ visitId, initialConvention, canEdit = true }: V
   useEffect(() => {
     if (confirmId) confirmRef.current?.focus();
   }, [confirmId]);
+
+  const onCommitSelected = useCallback((id: string, patch: LesionPatch) => change(id, patch), [change]);
+  const closeTrack = useCallback(() => setSelectedTrack(null), []);
+  // Everything beside and below the map, as one value: React shows the previous one while the
+  // map's frame is painted, then renders this one in the background.
+  const deferred = useDeferredValue({
+    inspector: {
+      selected: store.lesions.find((l) => l.id === selectedId) ?? null,
+      saveInfo: selectedId ? store.status[selectedId] : undefined,
+      selectedTrack, conv, readOnly: !canEdit || (store.visit?.readOnly ?? true), fu, look, lesions: store.lesions,
+      onCommit: onCommitSelected, onDelete: onRequestDelete, onCloseTrack: closeTrack,
+    },
+    below: {
+      treated, fu, look, lesions: store.lesions, conv, readOnly: !canEdit || (store.visit?.readOnly ?? true), selectedTrack, onSelectTrack: onGhostSelect,
+      selectedId, status: store.status, onSelect: setSelected, showGhostKey: ghosts.length > 0,
+    },
+  });
 
   const chooseConvention = async (next: DisplayConvention) => {
     const before = conv;
@@ -156,8 +178,8 @@ export function VisitMapEditor({ visitId, initialConvention, canEdit = true }: V
       ) : null}
 
       <div className="grid gap-4 lg:grid-cols-[minmax(0,3fr)_minmax(320px,2fr)]">
-        <div className="rounded-lg border border-rule bg-panel p-2">
-          <MapEditor
+        <div className="rounded-lg border border-rule bg-panel p-2 [contain:layout_paint]">
+          <MemoMapEditor
             lesions={store.lesions}
             convention={conv}
             readOnly={readOnly}
@@ -175,31 +197,81 @@ export function VisitMapEditor({ visitId, initialConvention, canEdit = true }: V
             newGrade={newGrade}
           />
         </div>
-        <aside aria-label="Selected lesion" className="rounded-lg border border-rule bg-panel p-3 lg:max-h-[calc(100vh-8rem)] lg:overflow-y-auto">
-          {selectedTrack ? (
-            <GhostCard fu={fu} look={look} conv={conv} readOnly={readOnly} trackId={selectedTrack} onClose={() => setSelectedTrack(null)} />
-          ) : selected ? (
-            <>
-            <LesionForm
-              key={selected.id}
-              lesion={selected}
-              convention={conv}
-              readOnly={readOnly}
-              saveInfo={store.status[selected.id]}
-              onCommit={(patch) => change(selected.id, patch)}
-              onDelete={() => setConfirmId(selected.id)}
-            />
-            {fu.data ? <TrackTools fu={fu} lesion={selected} lesions={store.lesions} readOnly={readOnly} /> : null}
-            </>
-          ) : (
-            <p className="text-ink-soft">{readOnly ? "Select a lesion on the map or in the table to see its details." : "Tap the map where you see a lesion, or drag to sweep its extent. Select a lesion to edit it here."}</p>
-          )}
-        </aside>
+        <Inspector {...deferred.inspector} />
       </div>
-      <TreatedSummary extent={treated.extent} cautionFraction={treated.cautionFraction} />
-      <FollowUpPanel fu={fu} look={look} lesions={store.lesions} conv={conv} readOnly={readOnly} selectedTrackId={selectedTrack} onSelectTrack={onGhostSelect} />
-      <LesionTable lesions={store.lesions} conv={conv} selectedId={selectedId} status={store.status} onSelect={setSelected} />
-      <MapLegend showGhosts={ghosts.length > 0} />
+      <BelowMap {...deferred.below} />
     </div>
   );
 }
+
+const MemoMapEditor = memo(MapEditor);
+
+interface InspectorProps {
+  selected: LesionDto | null;
+  saveInfo: SaveInfo | undefined;
+  selectedTrack: string | null;
+  conv: DisplayConvention;
+  readOnly: boolean;
+  fu: FollowUp;
+  look: LookAgain;
+  lesions: readonly LesionDto[];
+  onCommit: (id: string, patch: LesionPatch) => void;
+  onDelete: (id: string) => void;
+  onCloseTrack: () => void;
+}
+
+/** The selected lesion's form and track, or the selected earlier outline's card. */
+const Inspector = memo(function Inspector({ selected, saveInfo, selectedTrack, conv, readOnly, fu, look, lesions, onCommit, onDelete, onCloseTrack }: InspectorProps) {
+  return (
+    <aside aria-label="Selected lesion" className="rounded-lg border border-rule bg-panel p-3 [contain:content] lg:max-h-[calc(100vh-8rem)] lg:overflow-y-auto">
+      {selectedTrack ? (
+        <GhostCard fu={fu} look={look} conv={conv} readOnly={readOnly} trackId={selectedTrack} onClose={onCloseTrack} />
+      ) : selected ? (
+        <>
+          <LesionForm
+            key={selected.id}
+            lesion={selected}
+            convention={conv}
+            readOnly={readOnly}
+            saveInfo={saveInfo}
+            onCommit={(patch) => onCommit(selected.id, patch)}
+            onDelete={() => onDelete(selected.id)}
+          />
+          {fu.data ? <TrackTools fu={fu} lesion={selected} lesions={lesions} readOnly={readOnly} /> : null}
+        </>
+      ) : (
+        <p className="text-ink-soft">{readOnly ? "Select a lesion on the map or in the table to see its details." : "Tap the map where you see a lesion, or drag to sweep its extent. Select a lesion to edit it here."}</p>
+      )}
+    </aside>
+  );
+});
+
+interface BelowMapProps {
+  treated: ReturnType<typeof useTreatedArcs>;
+  fu: FollowUp;
+  look: LookAgain;
+  lesions: readonly LesionDto[];
+  conv: DisplayConvention;
+  readOnly: boolean;
+  selectedTrack: string | null;
+  onSelectTrack: (trackId: string) => void;
+  selectedId: string | null;
+  status: Readonly<Record<string, SaveInfo | undefined>>;
+  onSelect: (id: string | null) => void;
+  showGhostKey: boolean;
+}
+
+/** The treated share, the follow-up list, the lesion table and the key. */
+const BelowMap = memo(function BelowMap({ treated, fu, look, lesions, conv, readOnly, selectedTrack, onSelectTrack, selectedId, status, onSelect, showGhostKey }: BelowMapProps) {
+  return (
+    <>
+      <TreatedSummary extent={treated.extent} cautionFraction={treated.cautionFraction} />
+      <FollowUpPanel fu={fu} look={look} lesions={lesions} conv={conv} readOnly={readOnly} selectedTrackId={selectedTrack} onSelectTrack={onSelectTrack} />
+      {/* Below the fold on a tablet: the browser skips its layout and paint until it scrolls near. */}
+      <div className="[content-visibility:auto] [contain-intrinsic-size:auto_40rem]">
+        <LesionTable lesions={lesions} conv={conv} selectedId={selectedId} status={status} onSelect={onSelect} />
+      </div>
+      <MapLegend showGhosts={showGhostKey} />
+    </>
+  );
+});

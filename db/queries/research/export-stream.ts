@@ -1,6 +1,5 @@
 import "server-only";
 import { PassThrough, Transform, type Readable } from "node:stream";
-import ExcelJS from "exceljs";
 import { sql } from "../../client";
 import { recordAudit } from "../audit";
 import type { ExportDataset } from "@/lib/validation/research";
@@ -90,8 +89,10 @@ const SHEET_NAMES: Record<ExportDataset, string> = { counts: "Counts per visit",
 export function streamWorkbookExport(scope: ExportScope, audit: ExportAudit): Readable {
   const out = new PassThrough();
   const rows: Record<string, number> = {};
-  const wb = new ExcelJS.stream.xlsx.WorkbookWriter({ stream: out, useSharedStrings: false, useStyles: false });
   const run = async () => {
+    // Loaded here, not at the top: the CSV exports share this module and need none of it.
+    const { default: ExcelJS } = await import("exceljs");
+    const wb = new ExcelJS.stream.xlsx.WorkbookWriter({ stream: out, useSharedStrings: false, useStyles: false });
     for (const dataset of EXPORT_DATASETS) {
       const sheet = wb.addWorksheet(SHEET_NAMES[dataset]);
       let n = 0;
