@@ -21,6 +21,8 @@ function openPool(): postgres.Sql {
     max: Number(process.env.DATABASE_POOL_MAX ?? 10),
     idle_timeout: 30,
     connect_timeout: 5,
+    // Tagged-template queries are prepared by default; DATABASE_PREPARE=false (below) turns it off.
+    prepare: process.env.DATABASE_PREPARE !== "false",
     // Reconnect attempts back off to at most 1 s (the driver's default climbs to 20 s), so
     // requests queued during a short outage are served soon after the database is back.
     backoff: (attempt: number) => Math.min(0.05 * 2 ** attempt, 1),
@@ -90,7 +92,9 @@ if (process.env.NODE_ENV !== "production") globalForDb.__dentateSql = sql;
 // each one per connection, keyed by its text, and a later call sends only bind and execute. Bulk
 // statements (many rows of values, long IN lists) vary in text with their size and would pile up
 // in that per-connection cache, so above a number of parameters they stay unnamed.
-const MAX_PREPARED_PARAMS = 64;
+// DATABASE_PREPARE=false turns preparing off, for a pooler that cannot carry prepared statements
+// across transactions (PgBouncer in transaction mode before 1.21, or without max_prepared_statements).
+const MAX_PREPARED_PARAMS = process.env.DATABASE_PREPARE === "false" ? -1 : 64;
 function preparing(target: postgres.Sql): postgres.Sql {
   type Fn = (...a: unknown[]) => unknown;
   return new Proxy(target, {
