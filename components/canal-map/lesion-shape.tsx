@@ -1,4 +1,4 @@
-import { memo, useMemo, useState, type KeyboardEvent, type PointerEvent } from "react";
+import { memo, useMemo, type KeyboardEvent, type PointerEvent } from "react";
 import { describeSite, type DisplayConvention } from "@/lib/geometry";
 import type { LesionDto } from "@/lib/validation/lesions";
 import { BIOPSY_TAG, GRADE_ENCODING, SELECTION_RING, TREATED_MARK, UNSAVED_MARK } from "./encoding";
@@ -24,6 +24,8 @@ export function lesionAccessibleName(l: MapLesion, conv: DisplayConvention): str
 const POINT_RADIUS = 9;
 /** Invisible stroke around each shape: the hit target stays ≥ 44 px on a tablet. */
 const HIT_STROKE = 30;
+/** The keyboard-focus stroke along the outline: half of it falls outside the shape. */
+const FOCUS_STROKE = 9;
 
 interface Props {
   lesion: MapLesion;
@@ -46,7 +48,7 @@ function LesionShapeInner({ lesion, conv, turnDeg, prefix, selected, saveState, 
   // Geometry is drawn in the stored frame (lithotomy numbering: display offset 0) and the
   // whole lesion layer is turned by the convention (CanalMap), so a change of numbering leaves
   // every path as it is: only the spoken names change, and the labels turn back upright.
-  // Only what is drawn is computed: the halo path when treated, the ring when selected or focused.
+  // Only what is drawn is computed: the halo path when treated, the ring when selected.
   const shape = useMemo(() => {
     const point = isPointLesion(lesion);
     const centre = centreOf(lesion);
@@ -60,11 +62,9 @@ function LesionShapeInner({ lesion, conv, turnDeg, prefix, selected, saveState, 
     return { point, c, body, halo, outerEdge, innerEdge };
   }, [lesion]);
   const name = useMemo(() => lesionAccessibleName(lesion, conv), [lesion, conv]);
-  const [focused, setFocused] = useState(false);
-  const ringed = selected || focused;
   const ring = useMemo(
-    () => (ringed && !shape.point ? sectorPath(sectorOf(lesion, STORED_FRAME, SELECTION_RING.padPx + (lesion.treated ? TREATED_MARK.haloPx : 0))) ?? "" : null),
-    [ringed, shape.point, lesion],
+    () => (selected && !shape.point ? sectorPath(sectorOf(lesion, STORED_FRAME, SELECTION_RING.padPx + (lesion.treated ? TREATED_MARK.haloPx : 0))) ?? "" : null),
+    [selected, shape.point, lesion],
   );
   /** Undoes the layer's turn around a point, so text reads upright in every convention. */
   const upright = (p: { x: number; y: number }) => (turnDeg ? `rotate(${-turnDeg} ${p.x} ${p.y})` : undefined);
@@ -88,8 +88,6 @@ function LesionShapeInner({ lesion, conv, turnDeg, prefix, selected, saveState, 
       opacity={saveState === "saving" ? 0.75 : 1}
       onPointerDown={onPointerDown ? (e) => onPointerDown(lesion.id, e) : undefined}
       onKeyDown={onKeyDown ? (e) => onKeyDown(lesion.id, e) : undefined}
-      onFocus={() => setFocused(true)}
-      onBlur={() => setFocused(false)}
     >
       {drawBody({ fill: "none", stroke: "transparent", strokeWidth: HIT_STROKE, pointerEvents: "all" })}
       {lesion.treated && !shape.point ? (
@@ -97,15 +95,14 @@ function LesionShapeInner({ lesion, conv, turnDeg, prefix, selected, saveState, 
       ) : null}
       {drawBody({ fill, stroke: outline, strokeWidth: saveState === "failed" ? UNSAVED_MARK.width : enc.outlineWidth, strokeDasharray: saveState === "failed" ? UNSAVED_MARK.dash : enc.outlineDash, strokeLinecap: "round", strokeLinejoin: "round" })}
       {enc.doubleOutline ? drawBody({ fill: "none", stroke: "var(--color-paper)", strokeWidth: 2 }) : null}
-      {/* Focus ring: drawn by us because outlines on SVG groups are unreliable across browsers;
-          present only while focused, shown only for keyboard focus (focus-visible). */}
-      {focused ? (
-        shape.point ? (
-          <circle cx={shape.c.x} cy={shape.c.y} r={POINT_RADIUS + 7} fill="none" stroke="var(--color-lagoon-900)" strokeWidth={3} strokeDasharray="4 3" className="opacity-0 group-focus-visible:opacity-100" />
-        ) : (
-          <path d={ring!} fill="none" stroke="var(--color-lagoon-900)" strokeWidth={3} strokeDasharray="4 3" className="opacity-0 group-focus-visible:opacity-100" />
-        )
-      ) : null}
+      {/* Focus ring, drawn by us because outlines on SVG groups are unreliable across browsers:
+          a wide dashed stroke along the shape's own outline, shown for keyboard focus only
+          (focus-visible). No state and no extra geometry: a tap that moves focus redraws nothing. */}
+      {shape.point ? (
+        <circle cx={shape.c.x} cy={shape.c.y} r={POINT_RADIUS + 7} fill="none" stroke="var(--color-lagoon-900)" strokeWidth={3} strokeDasharray="4 3" className="opacity-0 group-focus-visible:opacity-100" />
+      ) : (
+        drawBody({ fill: "none", stroke: "var(--color-lagoon-900)", strokeWidth: FOCUS_STROKE, strokeDasharray: "6 4", className: "opacity-0 group-focus-visible:opacity-100" })
+      )}
       {selected ? (
         shape.point ? (
           <circle cx={shape.c.x} cy={shape.c.y} r={POINT_RADIUS + 4} fill="none" stroke={SELECTION_RING.stroke} strokeWidth={SELECTION_RING.width} />

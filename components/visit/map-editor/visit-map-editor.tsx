@@ -1,9 +1,9 @@
 "use client";
 // The visit's canal map screen: map, inspector and lesion table, saved through SWR.
 // A tap or a change of numbering repaints the map first; the inspector, the follow-up list and
-// the 200-row table follow in a deferred render (useDeferredValue), so they never hold up the
-// frame that shows the clinician what the finger did.
-import { memo, useCallback, useDeferredValue, useEffect, useMemo, useRef, useState } from "react";
+// the 200-row table follow once that frame is painted (useAfterPaint), so they never hold up
+// the frame that shows the clinician what the finger did.
+import { memo, useCallback, useEffect, useMemo, useRef, useState } from "react";
 import { CONVENTION_LABEL, MapLegend, type GhostLesion, type LesionSaveState, type MapExtent } from "@/components/canal-map";
 import { sendJson } from "@/components/data/fetcher";
 import { Caution } from "@/components/ui/caution";
@@ -14,6 +14,7 @@ import { tapExtent } from "./extent-math";
 import { LesionForm } from "./lesion-form";
 import { LesionTable } from "./lesion-table";
 import { MapEditor } from "./map-editor";
+import { useAfterPaint } from "./use-after-paint";
 import { useLesionStore, type LesionPatch, type SaveInfo } from "./use-lesion-store";
 import type { LesionDto } from "@/lib/validation/lesions";
 import type { FollowUp } from "@/components/visit/follow-up/use-follow-up";
@@ -97,20 +98,22 @@ export function VisitMapEditor({ visitId, initialConvention, canEdit = true }: V
 
   const onCommitSelected = useCallback((id: string, patch: LesionPatch) => change(id, patch), [change]);
   const closeTrack = useCallback(() => setSelectedTrack(null), []);
-  // Everything beside and below the map, as one value: React shows the previous one while the
-  // map's frame is painted, then renders this one in the background.
-  const deferred = useDeferredValue({
-    inspector: {
-      selected: store.lesions.find((l) => l.id === selectedId) ?? null,
-      saveInfo: selectedId ? store.status[selectedId] : undefined,
-      selectedTrack, conv, readOnly: !canEdit || (store.visit?.readOnly ?? true), fu, look, lesions: store.lesions,
-      onCommit: onCommitSelected, onDelete: onRequestDelete, onCloseTrack: closeTrack,
-    },
-    below: {
-      treated, fu, look, lesions: store.lesions, conv, readOnly: !canEdit || (store.visit?.readOnly ?? true), selectedTrack, onSelectTrack: onGhostSelect,
-      selectedId, status: store.status, onSelect: setSelected, showGhostKey: ghosts.length > 0,
-    },
-  });
+  // Everything beside and below the map: shown as it was until the map's frame is painted,
+  // then brought up to date (useAfterPaint). Memoised, so it changes only when its parts do.
+  const panelReadOnly = !canEdit || (store.visit?.readOnly ?? true);
+  const panelSelected = useMemo(() => store.lesions.find((l) => l.id === selectedId) ?? null, [store.lesions, selectedId]);
+  const panelSaveInfo = selectedId ? store.status[selectedId] : undefined;
+  const inspectorNow = useMemo<InspectorProps>(
+    () => ({ selected: panelSelected, saveInfo: panelSaveInfo, selectedTrack, conv, readOnly: panelReadOnly, fu, look, lesions: store.lesions, onCommit: onCommitSelected, onDelete: onRequestDelete, onCloseTrack: closeTrack }),
+    [panelSelected, panelSaveInfo, selectedTrack, conv, panelReadOnly, fu, look, store.lesions, onCommitSelected, onRequestDelete, closeTrack],
+  );
+  const showGhostKey = ghosts.length > 0;
+  const belowNow = useMemo<BelowMapProps>(
+    () => ({ treated, fu, look, lesions: store.lesions, conv, readOnly: panelReadOnly, selectedTrack, onSelectTrack: onGhostSelect, selectedId, status: store.status, onSelect: setSelected, showGhostKey }),
+    [treated, fu, look, store.lesions, conv, panelReadOnly, selectedTrack, onGhostSelect, selectedId, store.status, setSelected, showGhostKey],
+  );
+  // One value, so the inspector and the panels below always show the same moment.
+  const { inspector, below } = useAfterPaint(useMemo(() => ({ inspector: inspectorNow, below: belowNow }), [inspectorNow, belowNow]));
 
   const chooseConvention = async (next: DisplayConvention) => {
     const before = conv;
@@ -197,9 +200,9 @@ export function VisitMapEditor({ visitId, initialConvention, canEdit = true }: V
             newGrade={newGrade}
           />
         </div>
-        <Inspector {...deferred.inspector} />
+        <Inspector {...inspector} />
       </div>
-      <BelowMap {...deferred.below} />
+      <BelowMap {...below} />
     </div>
   );
 }
