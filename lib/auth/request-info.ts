@@ -27,13 +27,18 @@ export function originAllowed(headers: Headers): boolean {
   const origin = headers.get("origin");
   if (!origin) return false;
   const host = headers.get("x-forwarded-host") ?? headers.get("host");
-  let originHost: string;
+  let originUrl: URL;
   try {
-    originHost = new URL(origin).host;
+    originUrl = new URL(origin);
   } catch {
     return false;
   }
-  if (host && originHost === host) return true;
+  const originHost = originUrl.host;
+  // Same host, and (behind a proxy that says how the request arrived) the same scheme: a page
+  // served over plain http on our host name is not our https origin.
+  const proto = headers.get("x-forwarded-proto")?.split(",")[0]!.trim();
+  const sameScheme = !proto || originUrl.protocol === `${proto}:`;
+  if (host && originHost === host && sameScheme) return true;
   const extra = (process.env.DENTATE_ALLOWED_ORIGINS ?? "").split(",").map((s) => s.trim()).filter(Boolean);
   return extra.includes(origin);
 }
