@@ -44,7 +44,6 @@ interface Props {
 const STORED_FRAME: DisplayConvention = "lithotomy";
 
 function LesionShapeInner({ lesion, conv, turnDeg, prefix, selected, saveState, focusable, onPointerDown, onKeyDown }: Props) {
-  const enc = GRADE_ENCODING[lesion.grade];
   // Geometry is drawn in the stored frame (lithotomy numbering: display offset 0) and the
   // whole lesion layer is turned by the convention (CanalMap), so a change of numbering leaves
   // every path as it is: only the spoken names change, and the labels turn back upright.
@@ -62,17 +61,9 @@ function LesionShapeInner({ lesion, conv, turnDeg, prefix, selected, saveState, 
     return { point, c, body, halo, outerEdge, innerEdge };
   }, [lesion]);
   const name = useMemo(() => lesionAccessibleName(lesion, conv), [lesion, conv]);
-  const ring = useMemo(
-    () => (selected && !shape.point ? sectorPath(sectorOf(lesion, STORED_FRAME, SELECTION_RING.padPx + (lesion.treated ? TREATED_MARK.haloPx : 0))) ?? "" : null),
-    [selected, shape.point, lesion],
-  );
   /** Undoes the layer's turn around a point, so text reads upright in every convention. */
   const upright = (p: { x: number; y: number }) => (turnDeg ? `rotate(${-turnDeg} ${p.x} ${p.y})` : undefined);
 
-  const fill = `url(#${patternId(prefix, lesion.grade)})`;
-  const outline = saveState === "failed" ? UNSAVED_MARK.stroke : enc.strokeHue;
-  const drawBody = (extra: Record<string, unknown>) =>
-    shape.point ? <circle cx={shape.c.x} cy={shape.c.y} r={POINT_RADIUS} {...extra} /> : <path d={shape.body!} {...extra} />;
   const tagText = lesion.biopsyLabels.join("");
   const tagWidth = Math.max(BIOPSY_TAG.size, 8 + tagText.length * 10);
 
@@ -89,6 +80,50 @@ function LesionShapeInner({ lesion, conv, turnDeg, prefix, selected, saveState, 
       onPointerDown={onPointerDown ? (e) => onPointerDown(lesion.id, e) : undefined}
       onKeyDown={onKeyDown ? (e) => onKeyDown(lesion.id, e) : undefined}
     >
+      <ShapeBody lesion={lesion} shape={shape} prefix={prefix} selected={selected} saveState={saveState} />
+    </g>
+    {/* Visible marks sit outside the button, so its spoken name is the whole of its label. */}
+    <g aria-hidden="true" pointerEvents="none" transform={shape.point ? upright(shape.c) : undefined}>
+      {lesion.treated ? (
+        <g aria-hidden="true" pointerEvents="none">
+          <circle cx={shape.outerEdge.x} cy={shape.outerEdge.y} r={TREATED_MARK.markRadius} fill="var(--color-panel)" stroke="var(--color-ink)" strokeWidth={2} />
+          <circle cx={shape.outerEdge.x} cy={shape.outerEdge.y} r={2.2} fill="var(--color-ink)" />
+        </g>
+      ) : null}
+      {tagText ? (
+        <g aria-hidden="true" pointerEvents="none" transform={shape.point ? undefined : upright(shape.innerEdge)}>
+          <rect x={shape.innerEdge.x - tagWidth / 2} y={shape.innerEdge.y - BIOPSY_TAG.size / 2} width={tagWidth} height={BIOPSY_TAG.size} fill="var(--color-panel)" stroke="var(--color-ink)" strokeWidth={1.5} />
+          <text x={shape.innerEdge.x} y={shape.innerEdge.y + 5} textAnchor="middle" fontSize={13} fontWeight={700} fill="var(--color-ink)">{tagText}</text>
+        </g>
+      ) : null}
+      {/* The turn sits on a wrapping group: changing a <text>'s own transform makes Chromium lay
+          the text out again (~18 ms for 200 labels), changing its parent's does not (~3 ms). */}
+      <g transform={shape.point ? undefined : upright(shape.c)}>
+        <LesionLabel label={lesion.label} x={shape.c.x} y={shape.point ? shape.c.y - POINT_RADIUS - 6 : shape.c.y + 5} failed={saveState === "failed"} />
+      </g>
+    </g>
+    </>
+  );
+}
+
+type ShapeGeometry = { point: boolean; c: { x: number; y: number }; body: string | null; halo: string | null };
+
+/**
+ * What is drawn inside the lesion's button: hit area, treated halo, the graded body, focus and
+ * selection rings. Memoised without the convention: a change of numbering does not touch it.
+ */
+const ShapeBody = memo(function ShapeBody({ lesion, shape, prefix, selected, saveState }: { lesion: MapLesion; shape: ShapeGeometry; prefix: string; selected: boolean; saveState?: LesionSaveState }) {
+  const enc = GRADE_ENCODING[lesion.grade];
+  const ring = useMemo(
+    () => (selected && !shape.point ? sectorPath(sectorOf(lesion, STORED_FRAME, SELECTION_RING.padPx + (lesion.treated ? TREATED_MARK.haloPx : 0))) ?? "" : null),
+    [selected, shape.point, lesion],
+  );
+  const fill = `url(#${patternId(prefix, lesion.grade)})`;
+  const outline = saveState === "failed" ? UNSAVED_MARK.stroke : enc.strokeHue;
+  const drawBody = (extra: Record<string, unknown>) =>
+    shape.point ? <circle cx={shape.c.x} cy={shape.c.y} r={POINT_RADIUS} {...extra} /> : <path d={shape.body!} {...extra} />;
+  return (
+    <>
       {drawBody({ fill: "none", stroke: "transparent", strokeWidth: HIT_STROKE, pointerEvents: "all" })}
       {lesion.treated && !shape.point ? (
         <path d={shape.halo!} fill="none" stroke="var(--color-ink)" strokeWidth={TREATED_MARK.strokeWidth} strokeDasharray={TREATED_MARK.dash} />
@@ -110,45 +145,19 @@ function LesionShapeInner({ lesion, conv, turnDeg, prefix, selected, saveState, 
           <path d={ring!} fill="none" stroke={SELECTION_RING.stroke} strokeWidth={SELECTION_RING.width} />
         )
       ) : null}
-    </g>
-    {/* Visible marks sit outside the button, so its spoken name is the whole of its label. */}
-    <g aria-hidden="true" pointerEvents="none" transform={shape.point ? upright(shape.c) : undefined}>
-      {lesion.treated ? (
-        <g aria-hidden="true" pointerEvents="none">
-          <circle cx={shape.outerEdge.x} cy={shape.outerEdge.y} r={TREATED_MARK.markRadius} fill="var(--color-panel)" stroke="var(--color-ink)" strokeWidth={2} />
-          <circle cx={shape.outerEdge.x} cy={shape.outerEdge.y} r={2.2} fill="var(--color-ink)" />
-        </g>
-      ) : null}
-      {tagText ? (
-        <g aria-hidden="true" pointerEvents="none" transform={shape.point ? undefined : upright(shape.innerEdge)}>
-          <rect x={shape.innerEdge.x - tagWidth / 2} y={shape.innerEdge.y - BIOPSY_TAG.size / 2} width={tagWidth} height={BIOPSY_TAG.size} fill="var(--color-panel)" stroke="var(--color-ink)" strokeWidth={1.5} />
-          <text x={shape.innerEdge.x} y={shape.innerEdge.y + 5} textAnchor="middle" fontSize={13} fontWeight={700} fill="var(--color-ink)">{tagText}</text>
-        </g>
-      ) : null}
-      {/* The turn sits on a wrapping group: changing a <text>'s own transform makes Chromium lay
-          the text out again (~18 ms for 200 labels), changing its parent's does not (~3 ms). */}
-      <g transform={shape.point ? undefined : upright(shape.c)}>
-        <text
-          x={shape.c.x}
-          y={shape.point ? shape.c.y - POINT_RADIUS - 6 : shape.c.y + 5}
-          textAnchor="middle"
-          fontSize={14}
-          fontWeight={700}
-          fill="var(--color-ink)"
-          stroke="var(--color-panel)"
-          strokeWidth={4}
-          paintOrder="stroke"
-          pointerEvents="none"
-          aria-hidden="true"
-        >
-          {lesion.label}
-          {saveState === "failed" ? " !" : ""}
-        </text>
-      </g>
-    </g>
     </>
   );
-}
+});
+
+/** The lesion's visible label (its spoken name is on the button). */
+const LesionLabel = memo(function LesionLabel({ label, x, y, failed }: { label: string; x: number; y: number; failed: boolean }) {
+  return (
+    <text x={x} y={y} textAnchor="middle" fontSize={14} fontWeight={700} fill="var(--color-ink)" stroke="var(--color-panel)" strokeWidth={4} paintOrder="stroke" pointerEvents="none" aria-hidden="true">
+      {label}
+      {failed ? " !" : ""}
+    </text>
+  );
+});
 
 /** One lesion; memoised so a tap or drag re-renders only the lesions that changed. */
 export const LesionShape = memo(LesionShapeInner);

@@ -118,6 +118,9 @@ export function VisitMapEditor({ visitId, initialConvention, canEdit = true }: V
   const chooseConvention = async (next: DisplayConvention) => {
     const before = conv;
     setConv(next);
+    // Saved for next time once the turned map is painted: starting a request costs the click's
+    // frame a few milliseconds, and nothing on screen waits for it.
+    await new Promise<void>((done) => requestAnimationFrame(() => setTimeout(done, 0)));
     try {
       await sendJson("PATCH", "/api/me/preferences", { displayConvention: next });
       setPrefNotice(null);
