@@ -19,6 +19,11 @@ chmod 755 "$OUT"
 ensure_postgres_installed
 ensure_chromium_installed
 ensure_node_modules
+# The cluster is stopped again at the end when this run started it (another checkout's test run
+# may want the port next); one that was already running is left as it was found.
+cluster_paths test
+CLUSTER_WAS_UP=0
+pg_as_postgres "$PGBIN/pg_ctl" -D "$PGDATA_DIR" status >/dev/null 2>&1 && CLUSTER_WAS_UP=1
 start_cluster test "$PG_PORT" fast
 ensure_role "$PG_PORT" dentate_test dentate_test
 psql_super "$PG_PORT" -d postgres -c "create database $DB owner dentate_test"
@@ -38,6 +43,7 @@ cleanup() {
   stop_s3_fake
   stop_mail_fake
   psql_super "$PG_PORT" -d postgres -c "drop database if exists $DB with (force)" >/dev/null 2>&1 || true
+  [ "$CLUSTER_WAS_UP" = 1 ] || stop_cluster test
   exit "$rc"
 }
 trap cleanup EXIT
