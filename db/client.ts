@@ -119,3 +119,19 @@ function preparing(target: postgres.Sql): postgres.Sql {
 export const db = drizzle(preparing(sql), { schema });
 export type Db = typeof db;
 export type Tx = Parameters<Parameters<Db["transaction"]>[0]>[0];
+
+/**
+ * Runs a one-off script (seed, bench fixture, daily job) and closes its pool afterwards, so the
+ * process can exit; a failure is printed and exits 1. `pool` is the script's own postgres.js
+ * client when it has one.
+ */
+export function runScript(main: () => Promise<unknown>, pool: { end(): Promise<void> } = sql): void {
+  main().then(
+    () => pool.end(),
+    async (err: unknown) => {
+      console.error(err);
+      await pool.end();
+      process.exit(1);
+    },
+  );
+}

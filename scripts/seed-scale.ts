@@ -9,6 +9,7 @@ import type { Grade, Histology } from "@/lib/domain/vocab";
 import { zoneForDistance } from "@/lib/geometry/zones";
 import { treatedFraction } from "@/lib/dosing/extent";
 import { trackStatuses, withMetachronousContext, type TrackHistory } from "@/lib/tracking";
+import { runScript } from "@/db/client";
 
 const PATIENTS = Number(process.env.SCALE_PATIENTS ?? 10_000);
 const url = process.env.DATABASE_URL;
@@ -142,10 +143,4 @@ async function main() {
   console.log(JSON.stringify({ site: "SCL", study: "SCL-REG-01", seconds: Math.round((Date.now() - started) / 1000), ...counts }));
 }
 
-main()
-  .then(() => sql.end())
-  .catch(async (err) => {
-    console.error(err);
-    await sql.end();
-    process.exit(1);
-  });
+runScript(main, sql);

@@ -2,6 +2,7 @@ import "server-only";
 import { and, eq, inArray, sql as dsql } from "drizzle-orm";
 import { db } from "../client";
 import { rateLimits, sessions, users, userSites } from "../schema";
+import type { DisplayConvention } from "@/lib/geometry";
 
 /** The only query that reads a password hash; it never leaves the auth service. */
 export async function findUserCredentials(email: string) {
@@ -50,7 +51,7 @@ export async function getUserPublic(userId: string) {
   return row ?? null;
 }
 
-export async function setDisplayConvention(userId: string, convention: "lithotomy" | "prone_jackknife" | "left_lateral") {
+export async function setDisplayConvention(userId: string, convention: DisplayConvention) {
   await db.update(users).set({ displayConvention: convention }).where(eq(users.id, userId));
 }
 

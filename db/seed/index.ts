@@ -1,7 +1,7 @@
 // Seeds the invented demo scenario. Idempotent: when the demo sites exist, it adds nothing.
 // Run with: npm run db:seed (scripts/start.sh does).
 import { inArray } from "drizzle-orm";
-import { db, sql } from "../client";
+import { db, runScript, sql } from "../client";
 import * as s from "../schema";
 import { hashPassword } from "@/lib/auth/password";
 import { mgFromPercentAndMl } from "@/lib/dosing/anaesthetic";
@@ -104,10 +104,4 @@ async function main() {
   console.log(`demo data seeded: ${n} patients`);
 }
 
-main()
-  .then(() => sql.end())
-  .catch(async (err) => {
-    console.error(err);
-    await sql.end();
-    process.exit(1);
-  });
+runScript(main);

@@ -6,6 +6,7 @@ import { db } from "@/db/client";
 import { sessions, users } from "@/db/schema";
 import { findSessionWithUser } from "@/db/queries/users";
 import type { Role } from "@/lib/domain/vocab";
+import type { DisplayConvention } from "@/lib/geometry";
 
 /**
  * The drizzle adapter, but the session check every request makes is one statement that also
@@ -51,7 +52,7 @@ declare module "lucia" {
       displayName: string;
       role: Role;
       active: boolean;
-      displayConvention: "lithotomy" | "prone_jackknife" | "left_lateral";
+      displayConvention: DisplayConvention;
       siteIds: string[];
     };
   }

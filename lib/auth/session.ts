@@ -1,5 +1,6 @@
 import "server-only";
 import { lucia, SESSION_COOKIE } from "./lucia";
+import type { DisplayConvention } from "@/lib/geometry";
 
 export { SESSION_COOKIE };
 
@@ -9,7 +10,7 @@ export interface SessionUser {
   displayName: string;
   role: "clinician" | "reviewer" | "research_nurse" | "admin";
   active: boolean;
-  displayConvention: "lithotomy" | "prone_jackknife" | "left_lateral";
+  displayConvention: DisplayConvention;
   /** The sites the user works at, read with the session. */
   siteIds: string[];
 }

@@ -1,9 +1,10 @@
 // Observations, Procedures and DiagnosticReports for one patient's registry rows.
-import { GRADE_LABEL, HISTOLOGY_LABEL, type Modality } from "@/lib/domain/vocab";
+import { GRADE_LABEL, HISTOLOGY_LABEL } from "@/lib/domain/vocab";
 import { lastFromAin } from "@/lib/codes/last";
 import { trackLocation } from "./body-structure";
 import { GRADE_SYSTEM, HISTOLOGY_SYSTEM, MODALITY_SYSTEM, TARGET_BODY_STRUCTURE_EXTENSION } from "./terminology";
 import type { BundleBiopsy, BundleLesion, BundleTrack, BundleTreatment, CodeableConcept, FhirResource, Reference } from "./types";
+import { MODALITY_WORDS } from "@/lib/report/labels";
 
 /** Shared by every builder: how to reference another resource and how to write a date. */
 export interface MappingContext {
@@ -15,16 +16,6 @@ export interface MappingContext {
   track(trackId: string): BundleTrack | undefined;
 }
 
-const MODALITY_TEXT: Record<Modality, string> = {
-  electrocautery: "Electrocautery ablation",
-  infrared_coagulation: "Infrared coagulation",
-  laser: "Laser ablation",
-  surgical_excision: "Surgical excision",
-  topical_imiquimod: "Topical imiquimod",
-  topical_fluorouracil: "Topical fluorouracil",
-  topical_cidofovir: "Topical cidofovir",
-  other: "Other treatment",
-};
 
 function siteOf(ctx: MappingContext, trackId: string | undefined): CodeableConcept | undefined {
   const track = trackId ? ctx.track(trackId) : undefined;
@@ -77,7 +68,7 @@ export function buildBiopsyProcedure(biopsy: BundleBiopsy, ctx: MappingContext):
 export function buildTreatmentProcedure(treatment: BundleTreatment, ctx: MappingContext): FhirResource {
   const trackIds = treatment.trackIds ?? [];
   const sites = trackIds.map((id) => siteOf(ctx, id)).filter((s): s is CodeableConcept => s !== undefined);
-  const text = MODALITY_TEXT[treatment.modality];
+  const text = MODALITY_WORDS[treatment.modality];
   return {
     resourceType: "Procedure",
     id: ctx.uuid("Procedure", `treatment:${treatment.id}`),

@@ -2,13 +2,13 @@ import type {
   Acetowhite, Adequacy, AnaestheticAgent, Cytology, HpvResult, Lugol, Modality, Morphology, P16, Position, TrackStatus, Zone,
 } from "@/lib/domain/vocab";
 
-// Printed words for stored codes. Trade terms as the trade writes them (Bethesda, LAST);
-// our own plain words elsewhere.
+// Words for stored codes, one set for the screens, the printed report and FHIR texts. Trade
+// terms as the trade writes them (Bethesda, LAST); our own plain words elsewhere.
 
-export const POSITION_WORDS: Record<Position, string> = { lithotomy: "Lithotomy", prone_jackknife: "Prone jack-knife", left_lateral: "Left lateral" };
+export const POSITION_WORDS: Record<Position, string> = { lithotomy: "Lithotomy", prone_jackknife: "Prone jack-knife", left_lateral: "Left lateral (Sims)" };
 
 export const CYTOLOGY_WORDS: Record<Cytology, string> = {
-  nilm: "NILM", asc_us: "ASC-US", asc_h: "ASC-H", lsil: "LSIL", hsil: "HSIL", scc: "SCC", unsatisfactory: "Unsatisfactory", not_done: "Not done",
+  nilm: "NILM (negative)", asc_us: "ASC-US", asc_h: "ASC-H", lsil: "LSIL", hsil: "HSIL", scc: "Squamous cell carcinoma", unsatisfactory: "Unsatisfactory", not_done: "Not done",
 };
 
 export const HPV_WORDS: Record<HpvResult, string> = {
@@ -51,3 +51,4 @@ export const STATUS_WORDS: Record<TrackStatus, string> = {
 };
 
 export const COMPLICATION_WORDS = { pain: "Pain", bleeding: "Bleeding", other: "Other" } as const;
+export const SEVERITY_WORDS = { mild: "Mild", moderate: "Moderate", severe: "Severe" } as const;

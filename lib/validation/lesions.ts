@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { ACETOWHITE, GRADES, LUGOL, MORPHOLOGY, VESSELS } from "@/lib/domain/vocab";
+import { ACETOWHITE, GRADES, LUGOL, MORPHOLOGY, VESSELS, type Position } from "@/lib/domain/vocab";
 
 // One schema for the lesion form and the lesions route. Clock hours are stored in the
 // lithotomy convention, [0, 12); distance in cm from the verge, negative = perianal skin.
@@ -65,6 +65,6 @@ export interface LesionDto {
 }
 
 export interface VisitMapDto {
-  visit: { id: string; patientId: string; visitDate: string; status: "draft" | "signed"; patientPosition: "lithotomy" | "prone_jackknife" | "left_lateral"; readOnly: boolean };
+  visit: { id: string; patientId: string; visitDate: string; status: "draft" | "signed"; patientPosition: Position; readOnly: boolean };
   lesions: LesionDto[];
 }

@@ -67,7 +67,7 @@ for (const [i, slot] of prep.slots.entries()) Object.assign(slot, { n: 0, step: 
 let pool = [];
 let cursor = 0;
 let answered = false;
-function usePool(from, to) {
+function takeSlots(from, to) {
   pool = prep.slots.slice(from, to);
   cursor = 0;
   answered = false;
@@ -141,9 +141,9 @@ const mix = [
 const warm = { duration: 3, connections: 10 };
 await run({ ...warm, requests: [{ method: "GET", path: "/api/ping" }] });
 const floor = await run({ requests: [{ method: "GET", path: "/api/ping" }] });
-usePool(0, 20);
+takeSlots(0, 20);
 await run({ ...warm, requests: mix });
-usePool(20, prep.slots.length);
+takeSlots(20, prep.slots.length);
 for (const k of Object.keys(statusCounts)) delete statusCounts[k];
 conflicts = 0;
 const real = await run({ requests: mix });

@@ -12,6 +12,7 @@ import { readFileSync } from "node:fs";
 import postgres from "postgres";
 import { lesionsSelect } from "@/db/queries/research/export-sql";
 import { exportFilterSchema } from "@/lib/validation/research";
+import { runScript } from "@/db/client";
 
 const url = process.env.DATABASE_URL;
 const base = process.env.DENTATE_BASE_URL ?? "http://127.0.0.1:3000";
@@ -112,10 +113,4 @@ async function main() {
   }));
 }
 
-main()
-  .then(() => sql.end())
-  .catch(async (err) => {
-    console.error(err);
-    await sql.end();
-    process.exit(1);
-  });
+runScript(main, sql);

@@ -4,7 +4,7 @@
 // 100; api-load.mjs spreads its writes over them). Prints one JSON object for the other bench steps.
 // Run: DATABASE_URL=… tsx --conditions=react-server scripts/bench/prepare.ts [load-visits]
 import { and, eq } from "drizzle-orm";
-import { db, sql } from "@/db/client";
+import { db, runScript } from "@/db/client";
 import { lesions, lesionTracks, patients, sites, visits } from "@/db/schema";
 import { refreshTrackStatuses } from "@/db/queries/tracking";
 import { createSession, SESSION_COOKIE } from "@/lib/auth/session";
@@ -80,10 +80,4 @@ async function main() {
   }));
 }
 
-main()
-  .then(() => sql.end())
-  .catch(async (err) => {
-    console.error(err);
-    await sql.end();
-    process.exit(1);
-  });
+runScript(main);

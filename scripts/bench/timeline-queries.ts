@@ -3,7 +3,7 @@
 // lookups are left out (once per new pool connection, not per request).
 // Run: DATABASE_URL=… tsx --conditions=react-server scripts/bench/timeline-queries.ts <prepare.json>
 import { readFileSync } from "node:fs";
-import { onQuery, sql } from "@/db/client";
+import { onQuery, runScript } from "@/db/client";
 import { loadTimeline } from "@/db/queries/timeline";
 
 async function main() {
@@ -19,10 +19,4 @@ async function main() {
   console.log(JSON.stringify({ queries, visits: data.visits.length, lesions: data.lesions.length }));
 }
 
-main()
-  .then(() => sql.end())
-  .catch(async (err) => {
-    console.error(err);
-    await sql.end();
-    process.exit(1);
-  });
+runScript(main);

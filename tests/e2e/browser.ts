@@ -4,6 +4,7 @@ import { mkdtempSync, mkdirSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
 import { chromium, type BrowserContext, type Page } from "playwright-core";
+import { radiusOfCm, VIEW } from "@/components/canal-map/map-geometry";
 import { overlapH } from "@/lib/geometry";
 
 export const BASE_URL = process.env.DENTATE_BASE_URL ?? "http://127.0.0.1:3100";
@@ -53,4 +54,18 @@ export function freeSpots(lesions: Spot[]): Spot[] {
     if (!clash) out.push(s);
   }
   return out;
+}
+
+/** Page coordinates of a display clock hour and a distance on the canal map, from its own radial scale. */
+export async function mapPoint(page: Page, displayH: number, cm: number) {
+  const svg = page.locator("svg[aria-labelledby]").filter({ has: page.locator("title", { hasText: "Canal map" }) }).first();
+  // Buttons under the map scroll the page; the point must be on screen to be tapped.
+  await svg.evaluate((el) => el.scrollIntoView({ block: "center" }));
+  const box = (await svg.boundingBox())!;
+  const s = Math.min(box.width / VIEW.width, box.height / VIEW.height);
+  const ox = box.x + (box.width - VIEW.width * s) / 2;
+  const oy = box.y + (box.height - VIEW.height * s) / 2;
+  const a = (displayH * Math.PI) / 6;
+  const r = radiusOfCm(cm);
+  return { x: ox + (r * Math.sin(a) - VIEW.minX) * s, y: oy + (-r * Math.cos(a) - VIEW.minY) * s };
 }

@@ -2,9 +2,8 @@
 // grades it, reloads and finds everything; a reviewer sees the map and cannot change it.
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { BrowserContext, Page } from "playwright-core";
-import { radiusOfCm, VIEW } from "@/components/canal-map/map-geometry";
 import type { VisitMapDto } from "@/lib/validation/lesions";
-import { BASE_URL, launch, screenshot, signIn } from "./browser";
+import { BASE_URL, launch, mapPoint, screenshot, signIn } from "./browser";
 
 let browser: BrowserContext;
 let visitUrl = "";
@@ -43,16 +42,6 @@ async function emptyDraftVisit(page: Page): Promise<{ patientId: string; visitId
   return { patientId, visitId: id };
 }
 
-/** Page coordinates of a display clock hour and a distance, from the map's own radial scale. */
-async function mapPoint(page: Page, displayH: number, cm: number) {
-  const box = (await page.locator("svg[aria-labelledby]").filter({ has: page.locator("title", { hasText: "Canal map" }) }).first().boundingBox())!;
-  const s = Math.min(box.width / VIEW.width, box.height / VIEW.height);
-  const ox = box.x + (box.width - VIEW.width * s) / 2;
-  const oy = box.y + (box.height - VIEW.height * s) / 2;
-  const a = (displayH * Math.PI) / 6;
-  const r = radiusOfCm(cm);
-  return { x: ox + (r * Math.sin(a) - VIEW.minX) * s, y: oy + (-r * Math.cos(a) - VIEW.minY) * s };
-}
 
 async function lesionsOf(page: Page): Promise<VisitMapDto> {
   return (await (await page.request.get(`${BASE_URL}/api/visits/${visitId}/lesions`)).json()) as VisitMapDto;

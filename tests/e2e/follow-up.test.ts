@@ -3,9 +3,8 @@
 // marks the third not found, adds one new lesion, and the timeline says persistent, persistent,
 // regressed and new. The history is built through the API from the page's own session.
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import type { BrowserContext, Page } from "playwright-core";
-import { radiusOfCm, VIEW } from "@/components/canal-map/map-geometry";
-import { api, BASE_URL, freeSpots, launch, screenshot, signIn, type Spot } from "./browser";
+import type { BrowserContext } from "playwright-core";
+import { api, BASE_URL, freeSpots, launch, mapPoint, screenshot, signIn, type Spot } from "./browser";
 
 let browser: BrowserContext;
 beforeAll(async () => {
@@ -21,19 +20,6 @@ const addDays = (iso: string, days: number) => new Date(Date.parse(`${iso}T00:00
 
 
 
-/** Page coordinates of a lithotomy clock hour and a distance, from the map's own radial scale. */
-async function mapPoint(page: Page, displayH: number, cm: number) {
-  const svg = page.locator("svg[aria-labelledby]").filter({ has: page.locator("title", { hasText: "Canal map" }) }).first();
-  // Buttons under the map scroll the page; the point must be on screen to be tapped.
-  await svg.evaluate((el) => el.scrollIntoView({ block: "center" }));
-  const box = (await svg.boundingBox())!;
-  const s = Math.min(box.width / VIEW.width, box.height / VIEW.height);
-  const ox = box.x + (box.width - VIEW.width * s) / 2;
-  const oy = box.y + (box.height - VIEW.height * s) / 2;
-  const a = (displayH * Math.PI) / 6;
-  const r = radiusOfCm(cm);
-  return { x: ox + (r * Math.sin(a) - VIEW.minX) * s, y: oy + (-r * Math.cos(a) - VIEW.minY) * s };
-}
 
 describe("follow-up visit on a touch tablet", () => {
   it("re-finds two of three earlier lesions, marks one not found, adds one new; the timeline agrees", async () => {

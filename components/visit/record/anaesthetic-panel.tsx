@@ -9,7 +9,8 @@ import { mgFromPercentAndMl, type DoseAssessment } from "@/lib/dosing";
 import { anaestheticSchema, gateDose } from "@/lib/validation/treatments";
 import { DoseBar } from "./dose-bar";
 import { Field, FormError, inputClass, Section } from "./field";
-import { AGENT_LABEL, round1 } from "./labels";
+import { AGENT_WORDS } from "@/lib/report/labels";
+import { round1 } from "./labels";
 
 interface DoseRow { id: string; agent: AnaestheticAgent; concentrationPct: number; volumeMl: number; withEpinephrine: boolean; doseMg: number; overrideReason: string | null }
 interface DosesDto { entries: DoseRow[]; weightKg: number | null; assessment: DoseAssessment }
@@ -67,9 +68,9 @@ export function AnaestheticPanel({ visitId, canEdit }: { visitId: string; canEdi
         <ul className="divide-y divide-rule rounded-md border border-rule">
           {data.entries.map((d) => (
             <li key={d.id} className="flex flex-wrap items-center justify-between gap-2 px-3 py-2">
-              <span className="tabular-nums">{AGENT_LABEL[d.agent]} {d.concentrationPct}% × {d.volumeMl} mL {d.withEpinephrine ? "with" : "without"} epinephrine = <span className="font-bold">{round1(d.doseMg)} mg</span>
+              <span className="tabular-nums">{AGENT_WORDS[d.agent]} {d.concentrationPct}% × {d.volumeMl} mL {d.withEpinephrine ? "with" : "without"} epinephrine = <span className="font-bold">{round1(d.doseMg)} mg</span>
                 {d.overrideReason ? <span className="block text-sm">△ Over the maximum, recorded reason: {d.overrideReason}</span> : null}</span>
-              {canEdit ? <Button variant="ghost" onClick={() => remove(d.id)} aria-label={`Remove ${AGENT_LABEL[d.agent]} ${d.volumeMl} mL`}>Remove</Button> : null}
+              {canEdit ? <Button variant="ghost" onClick={() => remove(d.id)} aria-label={`Remove ${AGENT_WORDS[d.agent]} ${d.volumeMl} mL`}>Remove</Button> : null}
             </li>
           ))}
         </ul>
@@ -78,7 +79,7 @@ export function AnaestheticPanel({ visitId, canEdit }: { visitId: string; canEdi
         <form onSubmit={add} noValidate className="grid gap-3 sm:grid-cols-4">
           <Field id="dose-agent" label="Agent" error={fields.agent?.[0]}>
             <select id="dose-agent" className={inputClass} value={agent} onChange={(e) => setAgent(e.target.value as AnaestheticAgent)}>
-              {ANAESTHETIC_AGENTS.map((a) => <option key={a} value={a}>{AGENT_LABEL[a]}</option>)}
+              {ANAESTHETIC_AGENTS.map((a) => <option key={a} value={a}>{AGENT_WORDS[a]}</option>)}
             </select>
           </Field>
           <Field id="dose-pct" label="Concentration (%)" error={fields.concentrationPct?.[0]}>

@@ -5,7 +5,7 @@ import { ApiError, fetcher, sendJson } from "@/components/data/fetcher";
 import { Button } from "@/components/ui/button";
 import { COMPLICATION_KINDS, SEVERITIES } from "@/lib/domain/vocab";
 import { Field, FormError, inputClass, Section } from "./field";
-import { COMPLICATION_LABEL, SEVERITY_LABEL } from "./labels";
+import { COMPLICATION_WORDS, SEVERITY_WORDS } from "@/lib/report/labels";
 
 type Kind = (typeof COMPLICATION_KINDS)[number];
 type Severity = (typeof SEVERITIES)[number];
@@ -46,8 +46,8 @@ export function ComplicationsPanel({ visitId, canEdit }: { visitId: string; canE
         <ul className="divide-y divide-rule rounded-md border border-rule">
           {data.complications.map((c) => (
             <li key={c.id} className="flex flex-wrap items-center justify-between gap-2 px-3 py-2">
-              <span><span className="font-semibold">{COMPLICATION_LABEL[c.kind]}</span>, {SEVERITY_LABEL[c.severity].toLowerCase()}, {c.timing === "during" ? "during" : "after"} the procedure{c.note ? `: ${c.note}` : ""}</span>
-              {canEdit ? <Button variant="ghost" onClick={() => remove(c.id)} aria-label={`Remove ${COMPLICATION_LABEL[c.kind]}`}>Remove</Button> : null}
+              <span><span className="font-semibold">{COMPLICATION_WORDS[c.kind]}</span>, {SEVERITY_WORDS[c.severity].toLowerCase()}, {c.timing === "during" ? "during" : "after"} the procedure{c.note ? `: ${c.note}` : ""}</span>
+              {canEdit ? <Button variant="ghost" onClick={() => remove(c.id)} aria-label={`Remove ${COMPLICATION_WORDS[c.kind]}`}>Remove</Button> : null}
             </li>
           ))}
         </ul>
@@ -56,12 +56,12 @@ export function ComplicationsPanel({ visitId, canEdit }: { visitId: string; canE
         <form onSubmit={add} noValidate className="grid gap-3 sm:grid-cols-3">
           <Field id="c-kind" label="What" error={fields.kind?.[0]}>
             <select id="c-kind" className={inputClass} value={kind} onChange={(e) => setKind(e.target.value as Kind)}>
-              {COMPLICATION_KINDS.map((k) => <option key={k} value={k}>{COMPLICATION_LABEL[k]}</option>)}
+              {COMPLICATION_KINDS.map((k) => <option key={k} value={k}>{COMPLICATION_WORDS[k]}</option>)}
             </select>
           </Field>
           <Field id="c-severity" label="Severity" error={fields.severity?.[0]}>
             <select id="c-severity" className={inputClass} value={severity} onChange={(e) => setSeverity(e.target.value as Severity)}>
-              {SEVERITIES.map((s) => <option key={s} value={s}>{SEVERITY_LABEL[s]}</option>)}
+              {SEVERITIES.map((s) => <option key={s} value={s}>{SEVERITY_WORDS[s]}</option>)}
             </select>
           </Field>
           <Field id="c-timing" label="When" error={fields.timing?.[0]}>

@@ -1,5 +1,6 @@
 import type { AgentDoseAssessment } from "@/lib/dosing";
-import { AGENT_LABEL, round1 } from "./labels";
+import { AGENT_WORDS } from "@/lib/report/labels";
+import { round1 } from "./labels";
 
 const LEVEL_WORD = { ok: "Within the maximum", near: "Close to the maximum", over: "Over the maximum" } as const;
 const LEVEL_MARK = { ok: "✓", near: "△", over: "⚠" } as const;
@@ -11,10 +12,10 @@ export function DoseBar({ a }: { a: AgentDoseAssessment }) {
   return (
     <div className="flex flex-col gap-1">
       <div className="flex flex-wrap items-baseline justify-between gap-2">
-        <p className="font-semibold">{AGENT_LABEL[a.agent]} {a.withEpinephrineLimit ? "with epinephrine" : "without epinephrine"}</p>
+        <p className="font-semibold">{AGENT_WORDS[a.agent]} {a.withEpinephrineLimit ? "with epinephrine" : "without epinephrine"}</p>
         <p className="tabular-nums"><span className="font-bold">{round1(a.totalMg)} mg</span> of {round1(a.maxMg)} mg ({pct}%)</p>
       </div>
-      <div role="meter" aria-valuemin={0} aria-valuemax={round1(a.maxMg)} aria-valuenow={round1(a.totalMg)} aria-label={`${AGENT_LABEL[a.agent]} total`}
+      <div role="meter" aria-valuemin={0} aria-valuemax={round1(a.maxMg)} aria-valuenow={round1(a.totalMg)} aria-label={`${AGENT_WORDS[a.agent]} total`}
         className="relative h-4 overflow-hidden rounded border border-ink-soft bg-paper">
         <div className={`h-full ${FILL[a.level]}`} style={{ width: `${Math.min(100, pct)}%` }} />
         {/* The 80 % warning mark, drawn as a line so it reads in greyscale. */}

@@ -9,7 +9,7 @@ import { Button } from "@/components/ui/button";
 import { ADEQUACY, CYTOLOGY, HPV_RESULTS, POSITIONS } from "@/lib/domain/vocab";
 import { examDetailsSchema } from "@/lib/validation/visit-record";
 import { Field, FormError, inputClass, Section } from "./field";
-import { ADEQUACY_LABEL, CYTOLOGY_LABEL, HPV_LABEL, POSITION_LABEL } from "./labels";
+import { ADEQUACY_WORDS, CYTOLOGY_WORDS, HPV_WORDS, POSITION_WORDS } from "@/lib/report/labels";
 import { visitKey, type VisitRecordDto } from "./use-visit-record";
 
 type In = z.input<typeof examDetailsSchema>;
@@ -79,23 +79,23 @@ export function ExamDetailsForm({ visit, canEdit }: { visit: VisitRecordDto; can
           </Field>
           <Field id="patientPosition" label="Patient position used" error={err("patientPosition")}>
             <select id="patientPosition" className={inputClass} {...register("patientPosition")}>
-              {POSITIONS.map((p) => <option key={p} value={p}>{POSITION_LABEL[p]}</option>)}
+              {POSITIONS.map((p) => <option key={p} value={p}>{POSITION_WORDS[p]}</option>)}
             </select>
           </Field>
           <Field id="cytology" label="Prior anal cytology (Bethesda)" error={err("cytology")}>
             <select id="cytology" className={inputClass} {...register("cytology")}>
-              {CYTOLOGY.map((c) => <option key={c} value={c}>{CYTOLOGY_LABEL[c]}</option>)}
+              {CYTOLOGY.map((c) => <option key={c} value={c}>{CYTOLOGY_WORDS[c]}</option>)}
             </select>
           </Field>
           <Field id="hpvResult" label="HPV result" error={err("hpvResult")}>
             <select id="hpvResult" className={inputClass} {...register("hpvResult")}>
-              {HPV_RESULTS.map((h) => <option key={h} value={h}>{HPV_LABEL[h]}</option>)}
+              {HPV_RESULTS.map((h) => <option key={h} value={h}>{HPV_WORDS[h]}</option>)}
             </select>
           </Field>
           <Field id="adequacy" label="Exam adequacy" error={err("adequacy")}>
             <select id="adequacy" className={inputClass} {...register("adequacy", { setValueAs: blankToNull })}>
               <option value="">Not recorded</option>
-              {ADEQUACY.map((a) => <option key={a} value={a}>{ADEQUACY_LABEL[a]}</option>)}
+              {ADEQUACY.map((a) => <option key={a} value={a}>{ADEQUACY_WORDS[a]}</option>)}
             </select>
           </Field>
           <Field id="patientWeightKg" label="Patient weight (kg)" error={err("patientWeightKg")} hint="Needed for weight-based anaesthetic limits.">

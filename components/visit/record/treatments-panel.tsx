@@ -10,7 +10,7 @@ import type { DisplayConvention } from "@/lib/geometry";
 import { gateExtent, isTopical } from "@/lib/validation/treatments";
 import { ArcInputs, describeArc, toStoredArcs, type ArcDraft } from "./arc-inputs";
 import { Field, FormError, inputClass, Section } from "./field";
-import { MODALITY_LABEL } from "./labels";
+import { MODALITY_WORDS } from "@/lib/report/labels";
 
 interface TreatmentRow { id: string; lesionId: string | null; lesionLabel: string | null; modality: Modality; regimen: string | null; arcs: { startH: number; endH: number }[]; extentOverrideReason: string | null; note: string | null }
 interface TreatmentsDto { treatments: TreatmentRow[]; extent: ExtentAssessment; cautionFraction: number }
@@ -74,13 +74,13 @@ export function TreatmentsPanel({ visitId, canEdit, conv }: { visitId: string; c
           {data.treatments.map((t) => (
             <li key={t.id} className="flex flex-wrap items-start justify-between gap-2 px-3 py-2">
               <div>
-                <p className="font-semibold">{MODALITY_LABEL[t.modality]}{t.lesionLabel ? ` · lesion ${t.lesionLabel}` : ""}</p>
+                <p className="font-semibold">{MODALITY_WORDS[t.modality]}{t.lesionLabel ? ` · lesion ${t.lesionLabel}` : ""}</p>
                 {t.regimen ? <p className="text-sm">Regimen: {t.regimen}</p> : null}
                 {t.arcs.map((a, i) => <p key={i} className="text-sm">{describeArc(a, conv)}</p>)}
                 {t.extentOverrideReason ? <p className="text-sm">△ Saved past the caution level, recorded reason: {t.extentOverrideReason}</p> : null}
                 {t.note ? <p className="text-sm text-ink-soft">{t.note}</p> : null}
               </div>
-              {canEdit ? <Button variant="ghost" onClick={() => remove(t.id)} aria-label={`Remove ${MODALITY_LABEL[t.modality]} treatment`}>Remove</Button> : null}
+              {canEdit ? <Button variant="ghost" onClick={() => remove(t.id)} aria-label={`Remove ${MODALITY_WORDS[t.modality]} treatment`}>Remove</Button> : null}
             </li>
           ))}
         </ul>
@@ -89,7 +89,7 @@ export function TreatmentsPanel({ visitId, canEdit, conv }: { visitId: string; c
         <form onSubmit={add} noValidate className="grid gap-3 sm:grid-cols-2">
           <Field id="t-modality" label="How it was treated" error={fields.modality?.[0]}>
             <select id="t-modality" className={inputClass} value={modality} onChange={(e) => setModality(e.target.value as Modality)}>
-              {MODALITIES.map((m) => <option key={m} value={m}>{MODALITY_LABEL[m]}</option>)}
+              {MODALITIES.map((m) => <option key={m} value={m}>{MODALITY_WORDS[m]}</option>)}
             </select>
           </Field>
           <Field id="t-lesion" label="Lesion (optional)" error={fields.lesionId?.[0]}>

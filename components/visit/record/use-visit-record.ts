@@ -2,6 +2,7 @@
 import useSWR from "swr";
 import { fetcher } from "@/components/data/fetcher";
 import type { VisitPermissions } from "@/lib/validation/visit-record";
+import type { Adequacy, Cytology, HpvResult, Position } from "@/lib/domain/vocab";
 
 export interface VisitRecordDto {
   id: string;
@@ -10,11 +11,11 @@ export interface VisitRecordDto {
   status: "draft" | "signed";
   examinerId: string;
   examinerName: string;
-  patientPosition: "lithotomy" | "prone_jackknife" | "left_lateral";
+  patientPosition: Position;
   indication: string | null;
-  cytology: "nilm" | "asc_us" | "asc_h" | "lsil" | "hsil" | "scc" | "unsatisfactory" | "not_done";
-  hpvResult: "not_done" | "negative" | "hr_positive_16" | "hr_positive_other" | "lr_positive";
-  adequacy: "scj_full" | "scj_partial" | "scj_not_seen" | null;
+  cytology: Cytology;
+  hpvResult: HpvResult;
+  adequacy: Adequacy | null;
   examStartedAt: string | null;
   examEndedAt: string | null;
   anaesthesia: string | null;

@@ -14,9 +14,18 @@ export interface ExportAudit {
   reason?: string;
 }
 
-function auditDetail(scope: ExportScope, datasets: readonly ExportDataset[], audit: ExportAudit, rows: Record<string, number>, outcome: string) {
-  const { reason: _reason, ...filter } = scope.filter;
-  return { datasets, format: audit.format, filter, rows, outcome, ...(audit.reason ? { reason: audit.reason } : {}) };
+/** One audit event per export, written when it has ended (complete or failed), with the rows sent. */
+function auditExport(scope: ExportScope, datasets: readonly ExportDataset[], audit: ExportAudit, rows: Record<string, number>, outcome: "complete" | "failed") {
+  // The reason is recorded on its own below, never inside the filter.
+  const filter = { ...scope.filter, reason: undefined };
+  void recordAudit({
+    userId: audit.userId,
+    ip: audit.ip,
+    action: scope.filter.identified ? "export.identified" : "export.deidentified",
+    entityType: "study",
+    entityId: scope.filter.studyId,
+    detail: { datasets, format: audit.format, filter, rows, outcome, ...(audit.reason ? { reason: audit.reason } : {}) },
+  }).catch((err) => console.error("[dentate] export audit failed", err));
 }
 
 /**
@@ -67,14 +76,7 @@ export async function streamCsvExport(dataset: ExportDataset, scope: ExportScope
   const counter = lineCounter((records, failed) => {
     if (audited) return;
     audited = true;
-    void recordAudit({
-      userId: audit.userId,
-      ip: audit.ip,
-      action: scope.filter.identified ? "export.identified" : "export.deidentified",
-      entityType: "study",
-      entityId: scope.filter.studyId,
-      detail: auditDetail(scope, [dataset], audit, { [dataset]: records }, failed ? "failed" : "complete"),
-    }).catch((err) => console.error("[dentate] export audit failed", err));
+    auditExport(scope, [dataset], audit, { [dataset]: records }, failed ? "failed" : "complete");
   });
   source.on("error", (err) => counter.destroy(err));
   return source.pipe(counter);
@@ -112,24 +114,13 @@ export function streamWorkbookExport(scope: ExportScope, audit: ExportAudit): Re
     await wb.commit();
   };
   run().then(
-    () => auditWorkbook(scope, audit, rows, "complete"),
+    () => auditExport(scope, EXPORT_DATASETS, audit, rows, "complete"),
     (err) => {
-      auditWorkbook(scope, audit, rows, "failed");
+      auditExport(scope, EXPORT_DATASETS, audit, rows, "failed");
       out.destroy(err instanceof Error ? err : new Error(String(err)));
     },
   );
   return out;
-}
-
-function auditWorkbook(scope: ExportScope, audit: ExportAudit, rows: Record<string, number>, outcome: string) {
-  void recordAudit({
-    userId: audit.userId,
-    ip: audit.ip,
-    action: scope.filter.identified ? "export.identified" : "export.deidentified",
-    entityType: "study",
-    entityId: scope.filter.studyId,
-    detail: auditDetail(scope, EXPORT_DATASETS, audit, rows, outcome),
-  }).catch((err) => console.error("[dentate] export audit failed", err));
 }
 
 /** postgres.js gives bigint counts and numerics as strings; a statistician wants numbers in cells. */

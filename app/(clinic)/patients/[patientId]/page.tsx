@@ -10,10 +10,10 @@ import { NewVisitForm } from "@/components/patient/new-visit-form";
 import { FollowupBanner } from "@/components/followup/overdue-flag";
 import { ScreeningGuidance } from "@/components/followup/screening-guidance";
 import { OpenDisagreements } from "@/components/review/open-disagreements";
+import { POSITION_WORDS } from "@/lib/report/labels";
 
 export const metadata = { title: "Patient" };
 
-const POSITION_LABEL = { lithotomy: "Lithotomy", prone_jackknife: "Prone jack-knife", left_lateral: "Left lateral (Sims)" } as const;
 
 export default async function PatientPage({ params }: { params: Promise<{ patientId: string }> }) {
   const user = await requirePageRole(CLINICAL_ROLES);
@@ -62,7 +62,7 @@ export default async function PatientPage({ params }: { params: Promise<{ patien
             <tr key={v.id} className="border-b border-rule last:border-0">
               <td className="px-3 py-2 font-semibold tabular-nums"><Link className="text-lagoon-700 underline-offset-2 hover:underline" href={`/patients/${patient.id}/visits/${v.id}`}>{v.visitDate}</Link></td>
               <td className="px-3 py-2">{v.examinerName}</td>
-              <td className="px-3 py-2">{POSITION_LABEL[v.patientPosition]}</td>
+              <td className="px-3 py-2">{POSITION_WORDS[v.patientPosition]}</td>
               <td className="px-3 py-2">{v.status === "signed" ? "Signed" : "Draft"}</td>
             </tr>
           ))}
