@@ -4,6 +4,7 @@ import type { LesionDto } from "@/lib/validation/lesions";
 import { BIOPSY_TAG, GRADE_ENCODING, SELECTION_RING, TREATED_MARK, UNSAVED_MARK } from "./encoding";
 import { centreOf, isPointLesion, pointOfSite, polar, radiusOfCm, sectorOf, sectorPath } from "./map-geometry";
 import { patternId } from "./patterns";
+import { useIsSelected, useSelectedId, type SelectionStore } from "./selection";
 
 /** What the map needs of a lesion; LesionDto satisfies it. */
 export type MapLesion = Pick<
@@ -27,28 +28,12 @@ const HIT_STROKE = 30;
 /** The keyboard-focus stroke along the outline: half of it falls outside the shape. */
 const FOCUS_STROKE = 9;
 
-interface Props {
-  lesion: MapLesion;
-  conv: DisplayConvention;
-  /** How far CanalMap turns the lesion layer for this convention, in degrees clockwise. */
-  turnDeg: number;
-  prefix: string;
-  selected: boolean;
-  saveState?: LesionSaveState;
-  focusable: boolean;
-  onPointerDown?: (id: string, e: PointerEvent<SVGGElement>) => void;
-  onKeyDown?: (id: string, e: KeyboardEvent<SVGGElement>) => void;
-}
-
 /** The frame lesions are drawn in before the layer is turned: lithotomy numbering is the stored one. */
 const STORED_FRAME: DisplayConvention = "lithotomy";
 
-function LesionShapeInner({ lesion, conv, turnDeg, prefix, selected, saveState, focusable, onPointerDown, onKeyDown }: Props) {
-  // Geometry is drawn in the stored frame (lithotomy numbering: display offset 0) and the
-  // whole lesion layer is turned by the convention (CanalMap), so a change of numbering leaves
-  // every path as it is: only the spoken names change, and the labels turn back upright.
-  // Only what is drawn is computed: the halo path when treated, the ring when selected.
-  const shape = useMemo(() => {
+/** Where a lesion's parts are, in the stored frame; depends on the lesion alone. */
+function useShapeGeometry(lesion: MapLesion) {
+  return useMemo(() => {
     const point = isPointLesion(lesion);
     const centre = centreOf(lesion);
     const c = pointOfSite(centre.storedH, centre.cm, STORED_FRAME);
@@ -56,19 +41,44 @@ function LesionShapeInner({ lesion, conv, turnDeg, prefix, selected, saveState, 
     const body = point ? null : sectorPath(geo) ?? "";
     const halo = point || !lesion.treated ? null : sectorPath(sectorOf(lesion, STORED_FRAME, TREATED_MARK.haloPx)) ?? "";
     const mid = (geo.startAngle + geo.endAngle) / 2;
-    const outerEdge = point ? { x: c.x, y: c.y - POINT_RADIUS - 8 } : polar(mid, geo.outerRadius + TREATED_MARK.haloPx + 8);
-    const innerEdge = point ? { x: c.x + POINT_RADIUS + 12, y: c.y } : polar(mid, Math.max(geo.innerRadius - 14, radiusOfCm(8)));
+    const outerEdge = point ? c : polar(mid, geo.outerRadius + TREATED_MARK.haloPx + 8);
+    const innerEdge = point ? c : polar(mid, Math.max(geo.innerRadius - 14, radiusOfCm(8)));
     return { point, c, body, halo, outerEdge, innerEdge };
   }, [lesion]);
+}
+
+/** A stored-frame point turned by the layer's turn (degrees clockwise on screen). */
+function turned(p: { x: number; y: number }, turnDeg: number): { x: number; y: number } {
+  if (!turnDeg) return p;
+  const a = (turnDeg * Math.PI) / 180;
+  const cos = Math.cos(a);
+  const sin = Math.sin(a);
+  return { x: p.x * cos - p.y * sin, y: p.x * sin + p.y * cos };
+}
+
+interface BodyProps {
+  lesion: MapLesion;
+  /** The numbering the spoken name uses; the drawing itself is in the stored frame. */
+  conv: DisplayConvention;
+  prefix: string;
+  /** The map's selection; the shape re-renders only when it gains or loses it. */
+  selection: SelectionStore;
+  saveState?: LesionSaveState;
+  focusable: boolean;
+  onPointerDown?: (id: string, e: PointerEvent<SVGGElement>) => void;
+  onKeyDown?: (id: string, e: KeyboardEvent<SVGGElement>) => void;
+}
+
+/**
+ * A lesion's graded body: the button that is tapped, focused and spoken. Drawn in the stored
+ * frame, on the lesion layer that CanalMap turns as a whole, so a change of numbering redraws
+ * nothing here: only the spoken name changes.
+ */
+function LesionBodyInner({ lesion, conv, prefix, selection, saveState, focusable, onPointerDown, onKeyDown }: BodyProps) {
+  const selected = useIsSelected(selection, lesion.id);
+  const shape = useShapeGeometry(lesion);
   const name = useMemo(() => lesionAccessibleName(lesion, conv), [lesion, conv]);
-  /** Undoes the layer's turn around a point, so text reads upright in every convention. */
-  const upright = (p: { x: number; y: number }) => (turnDeg ? `rotate(${-turnDeg} ${p.x} ${p.y})` : undefined);
-
-  const tagText = lesion.biopsyLabels.join("");
-  const tagWidth = Math.max(BIOPSY_TAG.size, 8 + tagText.length * 10);
-
   return (
-    <>
     <g
       role="button"
       tabIndex={focusable ? 0 : -1}
@@ -80,44 +90,54 @@ function LesionShapeInner({ lesion, conv, turnDeg, prefix, selected, saveState, 
       onPointerDown={onPointerDown ? (e) => onPointerDown(lesion.id, e) : undefined}
       onKeyDown={onKeyDown ? (e) => onKeyDown(lesion.id, e) : undefined}
     >
-      <ShapeBody lesion={lesion} shape={shape} prefix={prefix} selected={selected} saveState={saveState} />
+      <ShapeBody lesion={lesion} shape={shape} prefix={prefix} saveState={saveState} />
     </g>
-    {/* Visible marks sit outside the button, so its spoken name is the whole of its label. */}
-    <g aria-hidden="true" pointerEvents="none" transform={shape.point ? upright(shape.c) : undefined}>
+  );
+}
+
+/**
+ * A lesion's visible marks: label, biopsy tag, treated mark. They sit outside the button (its
+ * spoken name is the whole of its label), on a layer that is not turned, placed where the
+ * turned body is: text always reads upright. Each sits in a translated group, so a change of
+ * numbering moves groups and never lays text out again (moving a <text> itself costs Chromium
+ * a text layout each, ~18 ms for 200 labels; moving its parent ~3 ms).
+ */
+function LesionMarksInner({ lesion, turnDeg, saveState }: { lesion: MapLesion; turnDeg: number; saveState?: LesionSaveState }) {
+  const shape = useShapeGeometry(lesion);
+  const c = turned(shape.c, turnDeg);
+  const outer = shape.point ? { x: c.x, y: c.y - POINT_RADIUS - 8 } : turned(shape.outerEdge, turnDeg);
+  const inner = shape.point ? { x: c.x + POINT_RADIUS + 12, y: c.y } : turned(shape.innerEdge, turnDeg);
+  const labelAt = shape.point ? { x: c.x, y: c.y - POINT_RADIUS - 6 } : { x: c.x, y: c.y + 5 };
+  const tagText = lesion.biopsyLabels.join("");
+  return (
+    <g aria-hidden="true" pointerEvents="none" data-marks-of={lesion.id}>
       {lesion.treated ? (
-        <g aria-hidden="true" pointerEvents="none">
-          <circle cx={shape.outerEdge.x} cy={shape.outerEdge.y} r={TREATED_MARK.markRadius} fill="var(--color-panel)" stroke="var(--color-ink)" strokeWidth={2} />
-          <circle cx={shape.outerEdge.x} cy={shape.outerEdge.y} r={2.2} fill="var(--color-ink)" />
+        <g transform={`translate(${outer.x} ${outer.y})`}>
+          <circle r={TREATED_MARK.markRadius} fill="var(--color-panel)" stroke="var(--color-ink)" strokeWidth={2} />
+          <circle r={2.2} fill="var(--color-ink)" />
         </g>
       ) : null}
       {tagText ? (
-        <g aria-hidden="true" pointerEvents="none" transform={shape.point ? undefined : upright(shape.innerEdge)}>
-          <rect x={shape.innerEdge.x - tagWidth / 2} y={shape.innerEdge.y - BIOPSY_TAG.size / 2} width={tagWidth} height={BIOPSY_TAG.size} fill="var(--color-panel)" stroke="var(--color-ink)" strokeWidth={1.5} />
-          <text x={shape.innerEdge.x} y={shape.innerEdge.y + 5} textAnchor="middle" fontSize={13} fontWeight={700} fill="var(--color-ink)">{tagText}</text>
+        <g transform={`translate(${inner.x} ${inner.y})`}>
+          <BiopsyTag text={tagText} />
         </g>
       ) : null}
-      {/* The turn sits on a wrapping group: changing a <text>'s own transform makes Chromium lay
-          the text out again (~18 ms for 200 labels), changing its parent's does not (~3 ms). */}
-      <g transform={shape.point ? undefined : upright(shape.c)}>
-        <LesionLabel label={lesion.label} x={shape.c.x} y={shape.point ? shape.c.y - POINT_RADIUS - 6 : shape.c.y + 5} failed={saveState === "failed"} />
+      <g transform={`translate(${labelAt.x} ${labelAt.y})`}>
+        <LesionLabel label={lesion.label} failed={saveState === "failed"} />
       </g>
     </g>
-    </>
   );
 }
 
 type ShapeGeometry = { point: boolean; c: { x: number; y: number }; body: string | null; halo: string | null };
 
 /**
- * What is drawn inside the lesion's button: hit area, treated halo, the graded body, focus and
- * selection rings. Memoised without the convention: a change of numbering does not touch it.
+ * What is drawn inside the lesion's button: hit area, treated halo, the graded body, the focus
+ * ring. Memoised without the convention and the selection (the ring of the selected lesion is
+ * drawn by CanalMap on the marks layer): neither a tap nor a change of numbering touches it.
  */
-const ShapeBody = memo(function ShapeBody({ lesion, shape, prefix, selected, saveState }: { lesion: MapLesion; shape: ShapeGeometry; prefix: string; selected: boolean; saveState?: LesionSaveState }) {
+const ShapeBody = memo(function ShapeBody({ lesion, shape, prefix, saveState }: { lesion: MapLesion; shape: ShapeGeometry; prefix: string; saveState?: LesionSaveState }) {
   const enc = GRADE_ENCODING[lesion.grade];
-  const ring = useMemo(
-    () => (selected && !shape.point ? sectorPath(sectorOf(lesion, STORED_FRAME, SELECTION_RING.padPx + (lesion.treated ? TREATED_MARK.haloPx : 0))) ?? "" : null),
-    [selected, shape.point, lesion],
-  );
   const fill = `url(#${patternId(prefix, lesion.grade)})`;
   const outline = saveState === "failed" ? UNSAVED_MARK.stroke : enc.strokeHue;
   const drawBody = (extra: Record<string, unknown>) =>
@@ -140,26 +160,48 @@ const ShapeBody = memo(function ShapeBody({ lesion, shape, prefix, selected, sav
       ) : (
         drawBody({ fill: "none", stroke: "var(--color-lagoon-900)", strokeWidth: FOCUS_STROKE, strokeDasharray: "6 4", className: "hidden group-focus-visible:inline" })
       )}
-      {selected ? (
-        shape.point ? (
-          <circle cx={shape.c.x} cy={shape.c.y} r={POINT_RADIUS + 4} fill="none" stroke={SELECTION_RING.stroke} strokeWidth={SELECTION_RING.width} />
-        ) : (
-          <path d={ring!} fill="none" stroke={SELECTION_RING.stroke} strokeWidth={SELECTION_RING.width} />
-        )
-      ) : null}
     </>
   );
 });
 
-/** The lesion's visible label (its spoken name is on the button). */
-const LesionLabel = memo(function LesionLabel({ label, x, y, failed }: { label: string; x: number; y: number; failed: boolean }) {
+/** The lesion's visible label (its spoken name is on the button), centred on its group's origin. */
+const LesionLabel = memo(function LesionLabel({ label, failed }: { label: string; failed: boolean }) {
   return (
-    <text x={x} y={y} textAnchor="middle" fontSize={14} fontWeight={700} fill="var(--color-ink)" stroke="var(--color-panel)" strokeWidth={4} paintOrder="stroke" pointerEvents="none" aria-hidden="true">
+    <text textAnchor="middle" fontSize={14} fontWeight={700} fill="var(--color-ink)" stroke="var(--color-panel)" strokeWidth={4} paintOrder="stroke">
       {label}
       {failed ? " !" : ""}
     </text>
   );
 });
 
-/** One lesion; memoised so a tap or drag re-renders only the lesions that changed. */
-export const LesionShape = memo(LesionShapeInner);
+/** A biopsy's specimen letters in a square tag, centred on its group's origin. */
+const BiopsyTag = memo(function BiopsyTag({ text }: { text: string }) {
+  const width = Math.max(BIOPSY_TAG.size, 8 + text.length * 10);
+  return (
+    <>
+      <rect x={-width / 2} y={-BIOPSY_TAG.size / 2} width={width} height={BIOPSY_TAG.size} fill="var(--color-panel)" stroke="var(--color-ink)" strokeWidth={1.5} />
+      <text y={5} textAnchor="middle" fontSize={13} fontWeight={700} fill="var(--color-ink)">{text}</text>
+    </>
+  );
+});
+
+/** Memoised, so a tap, a drag or a save re-renders only the lesions it concerns. */
+export const LesionBody = memo(LesionBodyInner);
+export const LesionMarks = memo(LesionMarksInner);
+
+/**
+ * The selected lesion's ring, in display coordinates on the marks layer: a tap changes this
+ * small group and nothing on the lesion layer, which the browser then need not paint again.
+ */
+export function SelectionRing({ selection, lesions, conv }: { selection: SelectionStore; lesions: readonly MapLesion[]; conv: DisplayConvention }) {
+  const id = useSelectedId(selection);
+  const lesion = id ? lesions.find((l) => l.id === id) : undefined;
+  if (!lesion) return null;
+  if (isPointLesion(lesion)) {
+    const centre = centreOf(lesion);
+    const c = pointOfSite(centre.storedH, centre.cm, conv);
+    return <circle cx={c.x} cy={c.y} r={POINT_RADIUS + 4} fill="none" stroke={SELECTION_RING.stroke} strokeWidth={SELECTION_RING.width} pointerEvents="none" data-selection-ring={lesion.id} />;
+  }
+  const d = sectorPath(sectorOf(lesion, conv, SELECTION_RING.padPx + (lesion.treated ? TREATED_MARK.haloPx : 0))) ?? "";
+  return <path d={d} fill="none" stroke={SELECTION_RING.stroke} strokeWidth={SELECTION_RING.width} pointerEvents="none" data-selection-ring={lesion.id} />;
+}

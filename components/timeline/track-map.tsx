@@ -22,7 +22,7 @@ export function toMapLesion(l: TrackLesion): MapLesion {
   };
 }
 
-function lesionIdFromEvent(e: ReactPointerEvent<SVGSVGElement>): string | null {
+function lesionIdFromEvent(e: ReactPointerEvent<Element>): string | null {
   const el = (e.target as Element | null)?.closest?.("[data-lesion-id]");
   return el?.getAttribute("data-lesion-id") ?? null;
 }
@@ -61,7 +61,7 @@ export function TrackMap(props: {
       focusable={Boolean(onSelectTrack)}
       onLesionPointerDown={onSelectTrack ? (id) => select(id) : undefined}
       onLesionKeyDown={onSelectTrack ? (id, e) => { if (e.key === "Enter" || e.key === " ") { e.preventDefault(); select(id); } } : undefined}
-      svgProps={onHoverTrack ? {
+      surfaceProps={onHoverTrack ? {
         onPointerOver: (e) => { const id = lesionIdFromEvent(e); onHoverTrack(id ? (trackOf.get(id) ?? null) : null); },
         onPointerLeave: () => onHoverTrack(null),
       } : undefined}

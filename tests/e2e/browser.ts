@@ -58,7 +58,8 @@ export function freeSpots(lesions: Spot[]): Spot[] {
 
 /** Page coordinates of a display clock hour and a distance on the canal map, from its own radial scale. */
 export async function mapPoint(page: Page, displayH: number, cm: number) {
-  const svg = page.locator("svg[aria-labelledby]").filter({ has: page.locator("title", { hasText: "Canal map" }) }).first();
+  // The face: the first of the map's stacked layers, the one that holds its title.
+  const svg = page.locator("[data-canal-map] > svg").filter({ has: page.locator("title", { hasText: "Canal map" }) }).first();
   // Buttons under the map scroll the page; the point must be on screen to be tapped.
   await svg.evaluate((el) => el.scrollIntoView({ block: "center" }));
   const box = (await svg.boundingBox())!;

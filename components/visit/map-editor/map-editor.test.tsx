@@ -1,6 +1,6 @@
 import { describe, expect, it, vi } from "vitest";
-import { fireEvent, render, screen } from "@testing-library/react";
-import { radiusOfCm, VIEW, type MapExtent, type MapLesion } from "@/components/canal-map";
+import { act, fireEvent, render, screen } from "@testing-library/react";
+import { createSelectionStore, radiusOfCm, VIEW, type MapExtent, type MapLesion } from "@/components/canal-map";
 import { toDisplayHours, type DisplayConvention } from "@/lib/geometry";
 import { MapEditor, type MapEditorProps } from "./map-editor";
 
@@ -30,7 +30,7 @@ function setup(over: Partial<MapEditorProps> = {}) {
     lesions: [],
     convention: "lithotomy",
     readOnly: false,
-    selectedId: null,
+    selection: createSelectionStore(),
     onSelect: vi.fn(),
     onCreate: vi.fn(),
     onChange: vi.fn(),
@@ -105,7 +105,7 @@ describe("MapEditor: gestures and keys", () => {
 
   it("the arrow key turns a focused lesion by half an hour, saved once per key", () => {
     const lesion: MapLesion = { id: "l1", label: "L1", grade: "lsil", treated: false, biopsyLabels: [], clockStartH: 3, clockEndH: 4, distanceStartCm: 1, distanceEndCm: 2 };
-    const { props } = setup({ lesions: [lesion], selectedId: "l1" });
+    const { props } = setup({ lesions: [lesion], selection: createSelectionStore("l1") });
     const shape = screen.getByRole("button", { name: /^L1: LSIL/ });
     shape.focus();
     fireEvent.keyDown(shape, { key: "ArrowRight" });
@@ -114,6 +114,27 @@ describe("MapEditor: gestures and keys", () => {
     expect(props.onChange).toHaveBeenCalledWith("l1", { clockStartH: 3.5, clockEndH: 4.5, distanceStartCm: 1, distanceEndCm: 2 });
     fireEvent.keyDown(shape, { key: "ArrowLeft", shiftKey: true });
     expect(props.onChange).toHaveBeenLastCalledWith("l1", { clockStartH: 3, clockEndH: 3.5, distanceStartCm: 1, distanceEndCm: 2 });
+  });
+
+  it("the selection store alone drives the pressed state and the handles", () => {
+    const a: MapLesion = { id: "l1", label: "L1", grade: "lsil", treated: false, biopsyLabels: [], clockStartH: 3, clockEndH: 4, distanceStartCm: 1, distanceEndCm: 2 };
+    const b: MapLesion = { ...a, id: "l2", label: "L2", clockStartH: 8, clockEndH: 9 };
+    const selection = createSelectionStore();
+    const { container } = setup({ lesions: [a, b], selection });
+    const shapeA = screen.getByRole("button", { name: /^L1: LSIL/ });
+    const shapeB = screen.getByRole("button", { name: /^L2: LSIL/ });
+    expect(shapeA.getAttribute("aria-pressed")).toBe("false");
+    expect(container.querySelector("[data-handle]")).toBeNull();
+    act(() => selection.set("l2"));
+    expect(shapeB.getAttribute("aria-pressed")).toBe("true");
+    expect(shapeA.getAttribute("aria-pressed")).toBe("false");
+    expect(container.querySelector("[data-selection-ring]")?.getAttribute("data-selection-ring")).toBe("l2");
+    // Four handles: both ends of the arc, the deep and the shallow edge.
+    expect(container.querySelectorAll("[data-handle]")).toHaveLength(4);
+    act(() => selection.set(null));
+    expect(shapeB.getAttribute("aria-pressed")).toBe("false");
+    expect(container.querySelector("[data-handle]")).toBeNull();
+    expect(container.querySelector("[data-selection-ring]")).toBeNull();
   });
 
   it("read-only: a tap places nothing and keys change nothing", () => {
@@ -126,6 +147,6 @@ describe("MapEditor: gestures and keys", () => {
     expect(props.onCreate).not.toHaveBeenCalled();
     expect(props.onChange).not.toHaveBeenCalled();
     expect(props.onRequestDelete).not.toHaveBeenCalled();
-    expect(svg.querySelector("[data-handle]")).toBeNull();
+    expect(svg.ownerDocument.querySelector("[data-handle]")).toBeNull();
   });
 });

@@ -2,7 +2,7 @@
 // The interactive canal map: gestures and keys in, extents out. It holds no server state;
 // the owner (VisitMapEditor) saves. Tested on its own in map-editor.test.tsx.
 import { memo, useCallback, useEffect, useLayoutEffect, useMemo, useRef, type KeyboardEvent, type PointerEvent } from "react";
-import { CanalMap, sectorOf, polar, type GhostLesion, type LesionSaveState, type MapExtent, type MapLesion, type TreatedArc } from "@/components/canal-map";
+import { CanalMap, sectorOf, polar, useSelectedId, type SelectionStore, type GhostLesion, type LesionSaveState, type MapExtent, type MapLesion, type TreatedArc } from "@/components/canal-map";
 import type { DisplayConvention } from "@/lib/geometry";
 import type { Grade } from "@/lib/domain/vocab";
 import { moveExtent, resizeArc, resizeDepth, STEP_CM, STEP_H, type HandleKind } from "./extent-math";
@@ -12,7 +12,9 @@ export interface MapEditorProps {
   lesions: readonly MapLesion[];
   convention: DisplayConvention;
   readOnly: boolean;
-  selectedId: string | null;
+  /** The selected lesion, held outside React state (createSelectionStore): a tap re-renders the
+   *  two shapes concerned and the handles, not this editor. onSelect is told of every choice. */
+  selection: SelectionStore;
   onSelect: (id: string | null) => void;
   /** A new extent from a tap or a sweep; grade and the rest are the owner's business. */
   onCreate: (extent: MapExtent) => void;
@@ -36,14 +38,14 @@ export const KEY_HELP = "Tap or drag on the map to add · Tab to a lesion · ←
 const extentOf = (l: MapExtent): MapExtent => ({ clockStartH: l.clockStartH, clockEndH: l.clockEndH, distanceStartCm: l.distanceStartCm, distanceEndCm: l.distanceEndCm });
 
 export function MapEditor(props: MapEditorProps) {
-  const { lesions, convention, readOnly, selectedId, onSelect, onCreate, onChange, onRequestDelete, saveStates, ghosts, onGhostSelect, selectedGhostId, treatedArcs, focusId, newGrade = "lsil" } = props;
+  const { lesions, convention, readOnly, selection, onSelect, onCreate, onChange, onRequestDelete, saveStates, ghosts, onGhostSelect, selectedGhostId, treatedArcs, focusId, newGrade = "lsil" } = props;
   const svgRef = useRef<SVGSVGElement | null>(null);
   const { preview, svgHandlers, startMove, startHandle } = useMapGestures({ svgRef, conv: convention, enabled: !readOnly, onCreate, onChange });
 
   // Latest values for the stable callbacks handed to memoised lesion shapes.
-  const latest = useRef({ lesions, selectedId, readOnly });
+  const latest = useRef({ lesions, readOnly });
   useLayoutEffect(() => {
-    latest.current = { lesions, selectedId, readOnly };
+    latest.current = { lesions, readOnly };
   });
   const find = (id: string) => latest.current.lesions.find((l) => l.id === id);
 
@@ -87,10 +89,10 @@ export function MapEditor(props: MapEditorProps) {
       else if (key === "ArrowDown") next = e.shiftKey ? resizeDepth(from, -STEP_CM) : moveExtent(from, 0, -STEP_CM);
       if (!next) return;
       e.preventDefault();
-      if (latest.current.selectedId !== id) onSelect(id);
+      if (selection.get() !== id) onSelect(id);
       onChange(id, next);
     },
-    [onSelect, onChange, onRequestDelete],
+    [onSelect, onChange, onRequestDelete, selection],
   );
 
   useEffect(() => {
@@ -106,7 +108,6 @@ export function MapEditor(props: MapEditorProps) {
     return lesions.map((l) => (l.id === preview.id ? { ...l, ...preview.extent } : l));
   }, [lesions, preview]);
   const draft: MapLesion | null = preview && !preview.id ? { id: "draft", label: "New", grade: newGrade, treated: false, biopsyLabels: [], ...preview.extent } : null;
-  const selected = !readOnly && selectedId ? shown.find((l) => l.id === selectedId) : undefined;
 
   return (
     <div className="flex flex-col" onKeyDown={(e) => e.key === "Escape" && onSelect(null)}>
@@ -114,7 +115,7 @@ export function MapEditor(props: MapEditorProps) {
         <CanalMap
           lesions={draft ? [...shown, draft] : shown}
           convention={convention}
-          selectedId={selectedId}
+          selection={selection}
           ghosts={ghosts}
           onGhostSelect={onGhostSelect}
           selectedGhostId={selectedGhostId}
@@ -124,8 +125,8 @@ export function MapEditor(props: MapEditorProps) {
           onLesionKeyDown={onLesionKeyDown}
           svgRef={svgRef}
           title={readOnly ? "Canal map (read only)" : "Canal map: tap to add a lesion"}
-          svgProps={{ ...svgHandlers, style: { touchAction: readOnly ? "auto" : "none" }, "aria-disabled": readOnly || undefined }}
-          overlay={selected ? <Handles lesion={selected} conv={convention} onStart={startHandle} /> : null}
+          surfaceProps={{ ...svgHandlers, style: { touchAction: readOnly ? "auto" : "none" }, "aria-disabled": readOnly || undefined }}
+          overlay={readOnly ? null : <SelectedHandles selection={selection} lesions={shown} conv={convention} onStart={startHandle} />}
         />
       </div>
       <p className="mt-1 text-sm text-ink-soft" id="map-key-help">
@@ -138,7 +139,16 @@ export function MapEditor(props: MapEditorProps) {
 const HANDLE_R = 9;
 const HANDLE_HIT_R = 24;
 
-const Handles = memo(function Handles({ lesion, conv, onStart }: { lesion: MapLesion; conv: DisplayConvention; onStart: (id: string, h: HandleKind, from: MapExtent, e: PointerEvent) => unknown }) {
+type HandleStart = (id: string, h: HandleKind, from: MapExtent, e: PointerEvent) => unknown;
+
+/** Handles on whichever lesion is selected: follows the selection store on its own. */
+const SelectedHandles = memo(function SelectedHandles({ selection, lesions, conv, onStart }: { selection: SelectionStore; lesions: readonly MapLesion[]; conv: DisplayConvention; onStart: HandleStart }) {
+  const id = useSelectedId(selection);
+  const lesion = id ? lesions.find((l) => l.id === id) : undefined;
+  return lesion ? <Handles lesion={lesion} conv={conv} onStart={onStart} /> : null;
+});
+
+const Handles = memo(function Handles({ lesion, conv, onStart }: { lesion: MapLesion; conv: DisplayConvention; onStart: HandleStart }) {
   const g = sectorOf(lesion, conv);
   const midR = (g.innerRadius + g.outerRadius) / 2;
   const midA = (g.startAngle + g.endAngle) / 2;
@@ -155,6 +165,7 @@ const Handles = memo(function Handles({ lesion, conv, onStart }: { lesion: MapLe
           key={kind}
           data-handle={kind}
           className="cursor-grab"
+          pointerEvents="all"
           onPointerDown={(e) => {
             e.stopPropagation();
             onStart(lesion.id, kind, extentOf(lesion), e);

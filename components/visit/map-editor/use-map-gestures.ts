@@ -106,13 +106,13 @@ export function useMapGestures({ svgRef, conv, enabled, onCreate, onChange }: Op
   );
 
   const svgHandlers = {
-    onPointerDown: (e: PointerEvent<SVGSVGElement>) => {
+    onPointerDown: (e: PointerEvent<Element>) => {
       if (!enabled || (e.pointerType === "mouse" && e.button !== 0)) return;
       if (begin(e, { kind: "create" })) e.preventDefault();
     },
-    onPointerMove: (e: PointerEvent<SVGSVGElement>) => step(e),
-    onPointerUp: (e: PointerEvent<SVGSVGElement>) => end(e),
-    onPointerCancel: (e: PointerEvent<SVGSVGElement>) => end(e, true),
+    onPointerMove: (e: PointerEvent<Element>) => step(e),
+    onPointerUp: (e: PointerEvent<Element>) => end(e),
+    onPointerCancel: (e: PointerEvent<Element>) => end(e, true),
   };
 
   const startMove = useCallback((id: string, from: MapExtent, e: PointerEvent) => enabled && begin(e, { kind: "move", id, from }), [begin, enabled]);

@@ -1,10 +1,12 @@
 "use client";
 // The visit's canal map screen: map, inspector and lesion table, saved through SWR.
 // A tap or a change of numbering repaints the map first; the inspector, the follow-up list and
-// the 200-row table follow once that frame is painted (useAfterPaint), so they never hold up
-// the frame that shows the clinician what the finger did.
-import { memo, useCallback, useEffect, useMemo, useRef, useState } from "react";
-import { CONVENTION_LABEL, MapLegend, type GhostLesion, type LesionSaveState, type MapExtent } from "@/components/canal-map";
+// the 200-row table follow once that frame is painted (useAfterPaint, useSelectionAfterPaint),
+// so they never hold up the frame that shows the clinician what the finger did. The selection
+// lives in a small store (createSelectionStore): a tap renders two lesion shapes and the
+// handles, not this screen.
+import { memo, useCallback, useEffect, useLayoutEffect, useMemo, useRef, useState } from "react";
+import { CONVENTION_LABEL, MapLegend, createSelectionStore, useAfterPaint, useSelectionAfterPaint, type GhostLesion, type LesionSaveState, type MapExtent } from "@/components/canal-map";
 import { sendJson } from "@/components/data/fetcher";
 import { Caution } from "@/components/ui/caution";
 import { GRADE_LABEL, GRADES, type Grade } from "@/lib/domain/vocab";
@@ -14,7 +16,6 @@ import { tapExtent } from "./extent-math";
 import { LesionForm } from "./lesion-form";
 import { LesionTable } from "./lesion-table";
 import { MapEditor } from "./map-editor";
-import { useAfterPaint } from "./use-after-paint";
 import { useLesionStore, type LesionPatch, type SaveInfo } from "./use-lesion-store";
 import type { LesionDto } from "@/lib/validation/lesions";
 import type { FollowUp } from "@/components/visit/follow-up/use-follow-up";
@@ -38,7 +39,7 @@ export function VisitMapEditor({ visitId, initialConvention, canEdit = true }: V
   const store = useLesionStore(visitId);
   const [conv, setConv] = useState<DisplayConvention>(initialConvention);
   const [prefNotice, setPrefNotice] = useState<string | null>(null);
-  const [rawSelected, setLesionSelected] = useState<string | null>(null);
+  const [selection] = useState(() => createSelectionStore());
   const [selectedTrack, setSelectedTrack] = useState<string | null>(null);
   const fu = useFollowUp(visitId);
   const look = useLookAgain(fu, store.lesions);
@@ -49,17 +50,22 @@ export function VisitMapEditor({ visitId, initialConvention, canEdit = true }: V
   const confirmRef = useRef<HTMLButtonElement>(null);
 
   const readOnly = !canEdit || (store.visit?.readOnly ?? true);
-  const selectedId = rawSelected ? store.resolveId(rawSelected) : null;
-  const { create, change, remove } = store;
+  const { create, change, remove, resolveId } = store;
+  // A lesion created here is selected under its temporary id; once the server has named it,
+  // the selection follows the new id (before the paint, so the map never shows neither).
+  useLayoutEffect(() => {
+    const current = selection.get();
+    if (current && resolveId(current) !== current) selection.set(resolveId(current));
+  });
   // Picking a lesion and picking an earlier outline exclude each other: one inspector.
   const setSelected = useCallback((id: string | null) => {
-    setLesionSelected(id);
+    selection.set(id);
     if (id) setSelectedTrack(null);
-  }, []);
+  }, [selection]);
   const onGhostSelect = useCallback((trackId: string) => {
     setSelectedTrack(trackId);
-    setLesionSelected(null);
-  }, []);
+    selection.set(null);
+  }, [selection]);
   const fuGhosts = fu.data?.ghosts;
   const ghosts = useMemo<GhostLesion[]>(
     () => (fuGhosts ?? []).map((g) => ({ id: g.trackId, trackLabel: g.trackLabel, grade: g.grade, clockStartH: g.clockStartH, clockEndH: g.clockEndH, distanceStartCm: g.distanceStartCm, distanceEndCm: g.distanceEndCm, statusWords: ghostStatusWords(g).toLowerCase() })),
@@ -99,21 +105,33 @@ export function VisitMapEditor({ visitId, initialConvention, canEdit = true }: V
   const onCommitSelected = useCallback((id: string, patch: LesionPatch) => change(id, patch), [change]);
   const closeTrack = useCallback(() => setSelectedTrack(null), []);
   // Everything beside and below the map: shown as it was until the map's frame is painted,
-  // then brought up to date (useAfterPaint). Memoised, so it changes only when its parts do.
-  const panelReadOnly = !canEdit || (store.visit?.readOnly ?? true);
-  const panelSelected = useMemo(() => store.lesions.find((l) => l.id === selectedId) ?? null, [store.lesions, selectedId]);
-  const panelSaveInfo = selectedId ? store.status[selectedId] : undefined;
-  const inspectorNow = useMemo<InspectorProps>(
-    () => ({ selected: panelSelected, saveInfo: panelSaveInfo, selectedTrack, conv, readOnly: panelReadOnly, fu, look, lesions: store.lesions, onCommit: onCommitSelected, onDelete: onRequestDelete, onCloseTrack: closeTrack }),
-    [panelSelected, panelSaveInfo, selectedTrack, conv, panelReadOnly, fu, look, store.lesions, onCommitSelected, onRequestDelete, closeTrack],
-  );
+  // then brought up to date. One memoised value, so the panels always show the same moment
+  // and change only when their parts do; the selection arrives the same way, from the store.
   const showGhostKey = ghosts.length > 0;
-  const belowNow = useMemo<BelowMapProps>(
-    () => ({ treated, fu, look, lesions: store.lesions, conv, readOnly: panelReadOnly, selectedTrack, onSelectTrack: onGhostSelect, selectedId, status: store.status, onSelect: setSelected, showGhostKey }),
-    [treated, fu, look, store.lesions, conv, panelReadOnly, selectedTrack, onGhostSelect, selectedId, store.status, setSelected, showGhostKey],
+  const later = useAfterPaint(
+    useMemo(
+      () => ({ lesions: store.lesions, status: store.status, conv, readOnly, selectedTrack, fu, look, treated, showGhostKey }),
+      [store.lesions, store.status, conv, readOnly, selectedTrack, fu, look, treated, showGhostKey],
+    ),
   );
-  // One value, so the inspector and the panels below always show the same moment.
-  const { inspector, below } = useAfterPaint(useMemo(() => ({ inspector: inspectorNow, below: belowNow }), [inspectorNow, belowNow]));
+  const shownId = useSelectionAfterPaint(selection);
+  const selectedId = shownId ? resolveId(shownId) : null;
+  const inspector = useMemo<InspectorProps>(
+    () => ({
+      selected: later.lesions.find((l) => l.id === selectedId) ?? null,
+      saveInfo: selectedId ? later.status[selectedId] : undefined,
+      selectedTrack: later.selectedTrack, conv: later.conv, readOnly: later.readOnly, fu: later.fu, look: later.look, lesions: later.lesions,
+      onCommit: onCommitSelected, onDelete: onRequestDelete, onCloseTrack: closeTrack,
+    }),
+    [later, selectedId, onCommitSelected, onRequestDelete, closeTrack],
+  );
+  const below = useMemo<BelowMapProps>(
+    () => ({
+      treated: later.treated, fu: later.fu, look: later.look, lesions: later.lesions, conv: later.conv, readOnly: later.readOnly,
+      selectedTrack: later.selectedTrack, onSelectTrack: onGhostSelect, selectedId, status: later.status, onSelect: setSelected, showGhostKey: later.showGhostKey,
+    }),
+    [later, selectedId, onGhostSelect, setSelected],
+  );
 
   const chooseConvention = async (next: DisplayConvention) => {
     const before = conv;
@@ -189,7 +207,7 @@ export function VisitMapEditor({ visitId, initialConvention, canEdit = true }: V
             lesions={store.lesions}
             convention={conv}
             readOnly={readOnly}
-            selectedId={selectedId}
+            selection={selection}
             onSelect={setSelected}
             onCreate={onCreate}
             onChange={onChange}
