@@ -8,18 +8,18 @@ import { startTransition, useEffect, useState } from "react";
 import type { SelectionStore } from "./selection";
 
 /**
- * Runs `fn` in a transition once the frame that answers the input is painted and the next
- * frame has begun, so it never delays either; returns a cancel function. The panels therefore
- * show a change one frame after the map does (about 17 ms later at 60 Hz).
+ * Runs `fn` once the frame that answers the input is painted and the next frame has begun, so
+ * it never delays either; returns a cancel function. The panels therefore show a change one
+ * frame after the map does (about 17 ms later at 60 Hz).
  */
-function afterPaint(fn: () => void): () => void {
+export function afterNextFrame(fn: () => void): () => void {
   let timer: ReturnType<typeof setTimeout> | undefined;
   let frame = 0;
   // A frame callback runs just before its frame is painted: the first is the map's frame,
   // the second the next one; a task queued from there runs after that frame's paint.
   frame = requestAnimationFrame(() => {
     frame = requestAnimationFrame(() => {
-      timer = setTimeout(() => startTransition(fn), 0);
+      timer = setTimeout(fn, 0);
     });
   });
   return () => {
@@ -27,6 +27,9 @@ function afterPaint(fn: () => void): () => void {
     if (timer !== undefined) clearTimeout(timer);
   };
 }
+
+/** afterNextFrame, as an interruptible React transition. */
+const afterPaint = (fn: () => void) => afterNextFrame(() => startTransition(fn));
 
 /** `value` must keep its identity while nothing in it changes (build it with useMemo). */
 export function useAfterPaint<T>(value: T): T {

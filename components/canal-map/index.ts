@@ -6,5 +6,5 @@ export { TreatedRing, type TreatedArc } from "./treated-ring";
 export { GRADE_ENCODING, ZONE_ENCODING, ORIENTATION_NOTE, TREATED_RING } from "./encoding";
 export * from "./map-geometry";
 export { clientToSvg } from "./pointer";
-export { useAfterPaint, useSelectionAfterPaint } from "./after-paint";
+export { afterNextFrame, useAfterPaint, useSelectionAfterPaint } from "./after-paint";
 export { createSelectionStore, useIsSelected, useSelectedId, type SelectionStore } from "./selection";

@@ -43,9 +43,11 @@ export function MapEditor(props: MapEditorProps) {
   const { preview, svgHandlers, startMove, startHandle } = useMapGestures({ svgRef, conv: convention, enabled: !readOnly, onCreate, onChange });
 
   // Latest values for the stable callbacks handed to memoised lesion shapes.
-  const latest = useRef({ lesions, readOnly });
+  // startMove changes with the numbering (it converts coordinates); read through the ref, so a
+  // change of numbering does not hand every lesion a new handler.
+  const latest = useRef({ lesions, readOnly, startMove });
   useLayoutEffect(() => {
-    latest.current = { lesions, readOnly };
+    latest.current = { lesions, readOnly, startMove };
   });
   const find = (id: string) => latest.current.lesions.find((l) => l.id === id);
 
@@ -54,9 +56,9 @@ export function MapEditor(props: MapEditorProps) {
       e.stopPropagation();
       onSelect(id);
       const l = find(id);
-      if (l && !latest.current.readOnly) startMove(id, extentOf(l), e);
+      if (l && !latest.current.readOnly) latest.current.startMove(id, extentOf(l), e);
     },
-    [onSelect, startMove],
+    [onSelect],
   );
 
   const onLesionKeyDown = useCallback(

@@ -6,7 +6,7 @@
 // lives in a small store (createSelectionStore): a tap renders two lesion shapes and the
 // handles, not this screen.
 import { memo, useCallback, useEffect, useLayoutEffect, useMemo, useRef, useState } from "react";
-import { CONVENTION_LABEL, MapLegend, createSelectionStore, useAfterPaint, useSelectionAfterPaint, type GhostLesion, type LesionSaveState, type MapExtent } from "@/components/canal-map";
+import { CONVENTION_LABEL, MapLegend, afterNextFrame, createSelectionStore, useAfterPaint, useSelectionAfterPaint, type GhostLesion, type LesionSaveState, type MapExtent } from "@/components/canal-map";
 import { sendJson } from "@/components/data/fetcher";
 import { Caution } from "@/components/ui/caution";
 import { GRADE_LABEL, GRADES, type Grade } from "@/lib/domain/vocab";
@@ -136,9 +136,9 @@ export function VisitMapEditor({ visitId, initialConvention, canEdit = true }: V
   const chooseConvention = async (next: DisplayConvention) => {
     const before = conv;
     setConv(next);
-    // Saved for next time once the turned map is painted: starting a request costs the click's
-    // frame a few milliseconds, and nothing on screen waits for it.
-    await new Promise<void>((done) => requestAnimationFrame(() => setTimeout(done, 0)));
+    // Saved for next time once the turned map and the panels after it are painted: starting a
+    // request costs a frame a few milliseconds, and nothing on screen waits for it.
+    await new Promise<void>((done) => afterNextFrame(done));
     try {
       await sendJson("PATCH", "/api/me/preferences", { displayConvention: next });
       setPrefNotice(null);
