@@ -46,7 +46,8 @@ describe("VisitMapEditor saving", { timeout: 20_000 }, () => {
     const post = spy.mock.calls.find(([, i]) => i?.method === "POST")!;
     expect(post[1]!.headers).toMatchObject({ "content-type": "application/json" });
     await act(async () => releaseFirst(new Response(JSON.stringify({ error: { code: "unavailable", message: "Database unavailable." } }), { status: 503 })));
-    expect((await screen.findAllByText(/Not saved: Database unavailable/)).length).toBeGreaterThan(0);
+    // The failure is said in the inspector and the table, which follow the map a frame later.
+    expect((await screen.findAllByText(/Not saved: Database unavailable/, {}, { timeout: 10_000 })).length).toBeGreaterThan(0);
     expect(screen.getByRole("button", { name: /^New…: LSIL.*not saved/ })).toBeTruthy();
     fireEvent.click(screen.getAllByRole("button", { name: "Retry" })[0]!);
     expect(await screen.findByRole("button", { name: /^L9: LSIL/ })).toBeTruthy();
