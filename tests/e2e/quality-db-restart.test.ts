@@ -1,7 +1,7 @@
 // Fault: PostgreSQL stops in the middle of a burst of lesion writes and comes back ~3 s later.
 // Requests during the outage must get a clear 503 JSON (never a 500), the app must reconnect by
-// itself, every write that got a 201 must be stored, and no failed write may leave half of itself
-// behind (a track without its lesion, a lesion without its track or its derived status).
+// itself, every write that got a 201 must be stored, and no write may leave half of itself
+// behind (a track without its lesion, a lesion without its track, its derived status or its audit).
 // Needs the test cluster's data dir, socket dir, port and binaries, which scripts/test.sh exports.
 import { execFileSync } from "node:child_process";
 import postgres from "postgres";
@@ -124,24 +124,35 @@ describe.skipIf(!ready)("database restart in the middle of a write burst", () =>
     for (const o of failed) expect({ status: o.status, code: o.code }).toEqual({ status: 503, code: "unavailable" });
     expect(outcomes.some((o) => o.phase === "outage" && o.status === 503)).toBe(true);
 
-    // Every confirmed write is there, and nothing else is.
+    // Every confirmed write is there.
     const confirmed = outcomes.filter((o) => o.status === 201).map((o) => o.id!);
     const res = await fetch(`${BASE_URL}/api/visits/${visitId}/lesions`, { headers: { cookie } });
     expect(res.status).toBe(200);
     const stored = ((await res.json()) as { lesions: { id: string; trackId: string | null }[] }).lesions;
-    expect(new Set(stored.map((l) => l.id))).toEqual(new Set(confirmed));
+    const storedIds = stored.map((l) => l.id);
+    expect(new Set(confirmed).size).toBe(confirmed.length);
+    for (const id of confirmed) expect(storedIds).toContain(id);
+    // Anything else stored must be a write whose answer was lost with the connection: a COMMIT
+    // the server carried out while it shut down, its reply never delivered, so the app could only
+    // answer 503 (a limit of every database client, stated from memory, not from a cited page: a
+    // client that loses the connection during COMMIT cannot know whether it committed). The UI
+    // shows such a write as not saved; a retry would add a second copy, which the clinician sees
+    // on the map. There can be no more of those than failed answers.
+    const unconfirmed = storedIds.filter((id) => !confirmed.includes(id));
+    expect(unconfirmed.length).toBeLessThanOrEqual(failed.length);
     expect(stored.every((l) => l.trackId)).toBe(true);
 
-    // No half-writes: one new track per confirmed lesion, each with its derived status row.
+    // No half-writes, confirmed or not: one new track per stored lesion, each with its derived
+    // status row and its audit event.
     const sql = postgres(DATABASE_URL!, { max: 1, onnotice: () => {} });
     const [{ n: tracksAfter }] = await sql<{ n: number }[]>`select count(*)::int as n from lesion_tracks where patient_id = ${patientId}`;
     const [{ n: statuses }] = await sql<{ n: number }[]>`
       select count(*)::int as n from track_statuses s join lesions l on l.track_id = s.track_id and l.visit_id = s.visit_id where l.visit_id = ${visitId}`;
-    const [{ n: audits }] = await sql<{ n: number }[]>`select count(*)::int as n from audit_events where action = 'lesion.create' and entity_id in ${sql(confirmed)}`;
+    const [{ n: audits }] = await sql<{ n: number }[]>`select count(*)::int as n from audit_events where action = 'lesion.create' and entity_id in ${sql(storedIds)}`;
     await sql.end();
-    expect(tracksAfter - tracksBefore).toBe(confirmed.length);
-    expect(statuses).toBe(confirmed.length);
-    expect(audits).toBe(confirmed.length);
+    expect(tracksAfter - tracksBefore).toBe(stored.length);
+    expect(statuses).toBe(stored.length);
+    expect(audits).toBe(stored.length);
     expect(Date.now() - started).toBeLessThan(60_000);
   });
 });
