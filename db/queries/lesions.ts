@@ -87,6 +87,12 @@ export async function createLesion(scope: SiteScope, visitId: string, input: Cre
   return db.transaction(async (tx) => {
     // Track labels are per patient: the patient is locked with the visit so two visits cannot take the same label.
     const { visit } = await lockDraftVisitForLesion(tx, scope, visitId, { lockPatient: true });
+    // The same create sent again (its first answer was lost): answer with the lesion it made.
+    // The visit lock above orders two such requests, so the second sees the first's row.
+    if (input.clientKey) {
+      const [made] = await tx.select({ id: lesions.id }).from(lesions).where(and(eq(lesions.visitId, visit.id), eq(lesions.clientKey, input.clientKey)));
+      if (made) return fetchOne(tx, made.id);
+    }
     const zone = zoneFor(boundsOf(visit.zoneBounds), input.distanceStartCm, input.distanceEndCm);
     const [track] = await tx
       .insert(lesionTracks)

@@ -1,5 +1,5 @@
 import {
-  boolean, char, date, doublePrecision, index, integer, jsonb, pgTable, text, timestamp, unique, uuid,
+  boolean, char, date, doublePrecision, index, integer, jsonb, pgTable, text, timestamp, unique, uniqueIndex, uuid,
 } from "drizzle-orm/pg-core";
 import { sites, users } from "./accounts";
 import * as e from "./enums";
@@ -115,10 +115,18 @@ export const lesions = pgTable(
     sizeMm: doublePrecision("size_mm"),
     note: text("note"),
     version: integer("version").notNull().default(1),
+    /** Chosen by the client for a create, so a retry after a lost answer finds the lesion it
+     *  already made instead of making a second one. Unique per visit; null for older rows. */
+    clientKey: uuid("client_key"),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
     updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
   },
-  (t) => [index("lesions_visit_idx").on(t.visitId), index("lesions_track_idx").on(t.trackId), index("lesions_site_idx").on(t.siteId)],
+  (t) => [
+    index("lesions_visit_idx").on(t.visitId),
+    index("lesions_track_idx").on(t.trackId),
+    index("lesions_site_idx").on(t.siteId),
+    uniqueIndex("lesions_visit_client_key_idx").on(t.visitId, t.clientKey),
+  ],
 );
 
 /** At a follow-up visit, a previous track looked for and not found (or found treated away). */

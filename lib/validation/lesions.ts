@@ -24,7 +24,13 @@ const ordered = (v: { distanceStartCm?: number; distanceEndCm?: number }) =>
   v.distanceStartCm === undefined || v.distanceEndCm === undefined || v.distanceStartCm <= v.distanceEndCm;
 const orderedMessage = { message: "The distance range must run from the lower to the higher value.", path: ["distanceEndCm"] };
 
-export const createLesionSchema = lesionFieldsSchema.refine(ordered, orderedMessage);
+export const createLesionSchema = lesionFieldsSchema
+  .extend({
+    // Chosen by the client once per new lesion and sent again with every retry of that create:
+    // a retry after an answer lost on the way finds the lesion already made (no second copy).
+    clientKey: z.string().uuid("Not a valid client key.").optional(),
+  })
+  .refine(ordered, orderedMessage);
 export type CreateLesionInput = z.infer<typeof createLesionSchema>;
 
 export const updateLesionSchema = lesionFieldsSchema

@@ -136,8 +136,9 @@ describe.skipIf(!ready)("database restart in the middle of a write burst", () =>
     // the server carried out while it shut down, its reply never delivered, so the app could only
     // answer 503 (a limit of every database client, stated from memory, not from a cited page: a
     // client that loses the connection during COMMIT cannot know whether it committed). The UI
-    // shows such a write as not saved; a retry would add a second copy, which the clinician sees
-    // on the map. There can be no more of those than failed answers.
+    // shows such a write as not saved, and its retry carries the same client key, so the server
+    // answers with the lesion already made (tests/integration/lesions.test.ts); this burst sends
+    // no keys. There can be no more of those than failed answers.
     const unconfirmed = storedIds.filter((id) => !confirmed.includes(id));
     expect(unconfirmed.length).toBeLessThanOrEqual(failed.length);
     expect(stored.every((l) => l.trackId)).toBe(true);

@@ -1,7 +1,7 @@
 import { beforeAll, describe, expect, it } from "vitest";
 import { count, eq } from "drizzle-orm";
 import { db } from "@/db/client";
-import { lesions, trackStatuses, visits } from "@/db/schema";
+import { auditEvents, lesions, lesionTracks, trackStatuses, visits } from "@/db/schema";
 import { GET, POST } from "@/app/api/visits/[visitId]/lesions/route";
 import { DELETE, PATCH } from "@/app/api/visits/[visitId]/lesions/[lesionId]/route";
 import { actor, ctx, makePatient, makeSite, req, type Actor } from "../fixtures/factory";
@@ -72,6 +72,31 @@ describe("lesions route", () => {
     expect(await db.select().from(lesions).where(eq(lesions.id, lesion.id))).toHaveLength(0);
   });
 
+  it("makes a create sent twice with one client key once: the retry gets the same lesion, one track, one audit", async () => {
+    // A retry after a lost answer (common practice for safe retries of a POST, no source).
+    const clientKey = "7d0e9f52-3c1a-4b6e-9a2f-0c8d1e4b5a67";
+    const before = await lesionCount(visitId);
+    const [{ n: tracksBefore }] = await db.select({ n: count() }).from(lesionTracks).where(eq(lesionTracks.patientId, patientId));
+    const first = await POST(req("POST", `/api/visits/${visitId}/lesions`, clinician, { ...body, clientKey }), ctx({ visitId }));
+    const again = await POST(req("POST", `/api/visits/${visitId}/lesions`, clinician, { ...body, clockStartH: 5, clockEndH: 6, clientKey }), ctx({ visitId }));
+    expect(first.status).toBe(201);
+    expect(again.status).toBe(201);
+    const a = (await first.json()).lesion;
+    const b = (await again.json()).lesion;
+    expect(b.id).toBe(a.id);
+    // The lesion as first made: the second body is not applied over it.
+    expect(b).toMatchObject({ clockStartH: 1, clockEndH: 3, label: a.label, version: 1 });
+    expect(await lesionCount(visitId)).toBe(before + 1);
+    const [{ n: tracksAfter }] = await db.select({ n: count() }).from(lesionTracks).where(eq(lesionTracks.patientId, patientId));
+    expect(tracksAfter).toBe(tracksBefore + 1);
+    const audits = await db.select().from(auditEvents).where(eq(auditEvents.entityId, a.id));
+    expect(audits.filter((e) => e.action === "lesion.create")).toHaveLength(1);
+    // Another key makes another lesion.
+    const other = await POST(req("POST", `/api/visits/${visitId}/lesions`, clinician, { ...body, clientKey: "0b6f3a2e-8d4c-4f1a-b7e9-5c2d1a0f9e83" }), ctx({ visitId }));
+    expect(other.status).toBe(201);
+    expect((await other.json()).lesion.id).not.toBe(a.id);
+  });
+
   it("answers 400 with field messages for bad input and writes nothing", async () => {
     const before = await lesionCount(visitId);
     for (const bad of [
@@ -80,6 +105,7 @@ describe("lesions route", () => {
       { ...body, distanceStartCm: 3, distanceEndCm: 1 },
       { ...body, grade: "AIN9" },
       { ...body, distanceStartCm: -9 },
+      { ...body, clientKey: "not-a-uuid" },
       {},
     ]) {
       const res = await POST(req("POST", `/api/visits/${visitId}/lesions`, clinician, bad), ctx({ visitId }));

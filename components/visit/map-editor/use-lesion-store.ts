@@ -5,6 +5,7 @@
 import { useCallback, useEffect, useMemo, useRef, useState } from "react";
 import useSWR from "swr";
 import { ApiError, fetcher, sendJson } from "@/components/data/fetcher";
+import { newClientKey } from "@/lib/ids/client-key";
 import type { CreateLesionInput, LesionDto, UpdateLesionInput, VisitMapDto } from "@/lib/validation/lesions";
 
 export type LesionPatch = Partial<CreateLesionInput>;
@@ -50,6 +51,9 @@ export function useLesionStore(visitId: string) {
   const queues = useRef(new Map<string, Promise<void>>());
   const alias = useRef(new Map<string, string>()); // temporary id → server id
   const chainOf = useRef(new Map<string, string>()); // server id → temporary id it came from
+  // temporary id → the key its create is sent with, every time: a retry after a lost answer
+  // gets back the lesion the first attempt made instead of a second copy.
+  const clientKeys = useRef(new Map<string, string>());
 
   const update = useCallback((fn: (o: Overlay) => Overlay) => {
     ov.current = fn(ov.current);
@@ -108,7 +112,9 @@ export function useLesionStore(visitId: string) {
         if (!local || alias.current.has(tempId)) return;
         setStatus(tempId, { state: "saving" });
         try {
-          const { lesion } = await sendJson<{ lesion: LesionDto }>("POST", key, pickFields(local));
+          let clientKey = clientKeys.current.get(tempId);
+          if (!clientKey) clientKeys.current.set(tempId, (clientKey = newClientKey()));
+          const { lesion } = await sendJson<{ lesion: LesionDto }>("POST", key, { ...pickFields(local), clientKey });
           alias.current.set(tempId, lesion.id);
           chainOf.current.set(lesion.id, tempId);
           setServer((d) => ({ ...d, lesions: [...d.lesions.filter((l) => l.id !== lesion.id), lesion] }));

@@ -51,6 +51,11 @@ describe("VisitMapEditor saving", { timeout: 20_000 }, () => {
     expect(screen.getByRole("button", { name: /^New…: LSIL.*not saved/ })).toBeTruthy();
     fireEvent.click(screen.getAllByRole("button", { name: "Retry" })[0]!);
     expect(await screen.findByRole("button", { name: /^L9: LSIL/ })).toBeTruthy();
+    // The retry carries the first attempt's key, so a create whose answer was lost is not made twice.
+    const keys = spy.mock.calls.filter(([, i]) => i?.method === "POST").map(([, i]) => (JSON.parse(String(i!.body)) as { clientKey?: string }).clientKey);
+    expect(keys).toHaveLength(2);
+    expect(keys[0]).toMatch(/^[0-9a-f]{8}-[0-9a-f]{4}-4[0-9a-f]{3}-[89ab][0-9a-f]{3}-[0-9a-f]{12}$/);
+    expect(keys[1]).toBe(keys[0]);
     // The table and inspector follow the map in a deferred render: wait for them too.
     await waitFor(() => expect(screen.queryByText(/Not saved/)).toBeNull(), { timeout: 10_000 });
   });
