@@ -74,7 +74,7 @@ interface Outcome {
 }
 
 describe.skipIf(!ready)("database restart in the middle of a write burst", () => {
-  it("answers 503 during the outage, recovers alone, and keeps exactly the writes it confirmed", async () => {
+  it("answers 503 during the outage, recovers alone, keeps every write it confirmed and none by halves", async () => {
     const started = Date.now();
     const outcomes: Outcome[] = [];
     let phase: Outcome["phase"] = "before";
