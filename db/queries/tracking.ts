@@ -1,6 +1,7 @@
-import { and, eq, inArray, isNotNull, sql as dsql, type AnyColumn, type SQL } from "drizzle-orm";
+import { and, eq, inArray, isNotNull, sql as dsql } from "drizzle-orm";
 import { biopsies, lesions, trackChecks, trackStatuses, treatments, visits, lesionTracks } from "../schema";
 import { prepared, type Db, type Tx } from "../client";
+import { rowsOf } from "./json-rows";
 import { HISTOLOGY, type Histology } from "@/lib/domain/vocab";
 import { trackStatuses as computeStatuses, withMetachronousContext, type TrackHistory } from "@/lib/tracking";
 
@@ -11,11 +12,6 @@ const HISTOLOGY_RANK = Object.fromEntries(HISTOLOGY.map((h, i) => [h, i])) as Re
 type Visit = typeof visits.$inferSelect;
 type Lesion = typeof lesions.$inferSelect;
 type StoredStatus = Pick<typeof trackStatuses.$inferSelect, "trackId" | "visitId" | "siteId" | "status" | "effectiveGrade" | "reason">;
-
-/** One subquery's rows as a JSON array of arrays (`[]` when there are none). */
-function rowsOf<T extends unknown[]>(columns: AnyColumn[], rest: SQL, orderBy?: SQL) {
-  return dsql<T[]>`(select coalesce(json_agg(json_build_array(${dsql.join(columns, dsql`, `)})${orderBy ? dsql` order by ${orderBy}` : dsql``}), '[]') ${rest})`;
-}
 
 const patientParam = dsql.placeholder("patientId");
 const ofPatient = eq(visits.patientId, patientParam);
