@@ -22,5 +22,10 @@ export function inScopeParam(column: Column): SQL {
 
 /** The value of inScopeParam's `siteIds` placeholder: a PostgreSQL array literal of the site ids. */
 export function siteIdsParam(scope: SiteScope): string {
-  return `{${scope.siteIds.map((id) => `"${id.replace(/["\\]/g, "\\$&")}"`).join(",")}}`;
+  return pgArrayLiteral(scope.siteIds);
+}
+
+/** A PostgreSQL array literal (text form) of these values, each quoted; null stays NULL. */
+export function pgArrayLiteral(values: readonly (string | null)[]): string {
+  return `{${values.map((v) => (v === null ? "NULL" : `"${v.replace(/["\\]/g, "\\$&")}"`)).join(",")}}`;
 }

@@ -2,6 +2,7 @@ import { and, eq, inArray, isNotNull, sql as dsql } from "drizzle-orm";
 import { biopsies, lesions, trackChecks, trackStatuses, treatments, visits, lesionTracks } from "../schema";
 import { prepared, type Db, type Tx } from "../client";
 import { rowsOf } from "./json-rows";
+import { pgArrayLiteral } from "./scope";
 import { HISTOLOGY, type Histology } from "@/lib/domain/vocab";
 import { trackStatuses as computeStatuses, withMetachronousContext, type TrackHistory } from "@/lib/tracking";
 
@@ -93,6 +94,21 @@ function historiesOf(h: Awaited<ReturnType<typeof readHistory>>): TrackHistory[]
 }
 
 type StatusRow = typeof trackStatuses.$inferInsert;
+
+// Status rows written, however many, as one statement built once: each column is one array
+// parameter, turned back into rows by unnest (in the table's column order).
+const ph = (name: string) => dsql.placeholder(name);
+const upsertStatuses = prepared((run) =>
+  run
+    .insert(trackStatuses)
+    .select(
+      dsql`select * from unnest(${ph("trackIds")}::uuid[], ${ph("visitIds")}::uuid[], ${ph("siteIds")}::uuid[], ${ph("statuses")}::track_status[], ${ph("grades")}::grade[], ${ph("reasons")}::text[])`,
+    )
+    .onConflictDoUpdate({
+      target: [trackStatuses.trackId, trackStatuses.visitId],
+      set: { siteId: dsql`excluded.site_id`, status: dsql`excluded.status`, effectiveGrade: dsql`excluded.effective_grade`, reason: dsql`excluded.reason` },
+    }),
+);
 const sameRow = (a: StatusRow, b: StatusRow) =>
   a.status === b.status && (a.effectiveGrade ?? null) === (b.effectiveGrade ?? null) && a.reason === b.reason && a.siteId === b.siteId;
 
@@ -137,13 +153,14 @@ export async function refreshTrackStatuses(run: Runner, patientId: string, siteI
   await Promise.all([
     ...[...stale].map(([trackId, visitIds]) => run.delete(trackStatuses).where(and(eq(trackStatuses.trackId, trackId), inArray(trackStatuses.visitId, visitIds)))),
     upserts.length
-      ? run
-          .insert(trackStatuses)
-          .values(upserts)
-          .onConflictDoUpdate({
-            target: [trackStatuses.trackId, trackStatuses.visitId],
-            set: { siteId: dsql`excluded.site_id`, status: dsql`excluded.status`, effectiveGrade: dsql`excluded.effective_grade`, reason: dsql`excluded.reason` },
-          })
+      ? upsertStatuses(run, {
+          trackIds: pgArrayLiteral(upserts.map((r) => r.trackId)),
+          visitIds: pgArrayLiteral(upserts.map((r) => r.visitId)),
+          siteIds: pgArrayLiteral(upserts.map((r) => r.siteId)),
+          statuses: pgArrayLiteral(upserts.map((r) => r.status)),
+          grades: pgArrayLiteral(upserts.map((r) => r.effectiveGrade ?? null)),
+          reasons: pgArrayLiteral(upserts.map((r) => r.reason)),
+        })
       : null,
   ]);
 }
