@@ -121,6 +121,22 @@ export type Db = typeof db;
 export type Tx = Parameters<Parameters<Db["transaction"]>[0]>[0];
 
 /**
+ * A statement the app runs on most requests, built once: drizzle renders its SQL when the module
+ * loads, and each call only fills in its `dsql.placeholder(...)` values and runs it, on the pool
+ * or inside a transaction (the runner passed). Building a query is a good share of a request's
+ * CPU otherwise (`npm run bench`, API under load).
+ */
+export function prepared<Q extends { execute(values?: Record<string, unknown>): Promise<unknown> }>(build: (run: Db) => { prepare(name: string): Q }) {
+  const onPool = build(db).prepare("dentate");
+  return (run: Db | Tx, values?: Record<string, unknown>): ReturnType<Q["execute"]> => {
+    // drizzle's prepared query keeps the client it was built on; a transaction's differs.
+    const client = (run._.session as unknown as { client: unknown }).client;
+    const query = run === db ? onPool : (Object.create(onPool, { client: { value: client } }) as Q);
+    return query.execute(values) as ReturnType<Q["execute"]>;
+  };
+}
+
+/**
  * Runs a one-off script (seed, bench fixture, daily job) and closes its pool afterwards, so the
  * process can exit; a failure is printed and exits 1. `pool` is the script's own postgres.js
  * client when it has one.

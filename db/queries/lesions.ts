@@ -1,8 +1,9 @@
 import "server-only";
+import { randomUUID } from "node:crypto";
 import { and, asc, eq, sql as dsql } from "drizzle-orm";
-import { db, type Tx } from "../client";
+import { db, prepared, type Tx } from "../client";
 import { biopsies, lesions, lesionTracks, treatments } from "../schema";
-import { inScope, type SiteScope } from "./scope";
+import { inScopeParam, siteIdsParam, type SiteScope } from "./scope";
 import { loadVisit, lockDraftVisit, lockDraftVisitForLesion } from "./visit-access";
 import { refreshTrackStatuses } from "./tracking";
 import { recordAudit } from "./audit";
@@ -51,14 +52,19 @@ function toDto({ histologies, ...r }: DecoratedRow): LesionDto {
 }
 
 const selectLesions = (run: typeof db | Tx) => run.select({ ...lesionColumns, ...decorationColumns }).from(lesions).leftJoin(lesionTracks, eq(lesionTracks.id, lesions.trackId));
+// Built once: the map reads a visit's lesions on every open, and every update returns its lesion.
+const lesionsOfVisit = prepared((run) =>
+  selectLesions(run)
+    .where(and(eq(lesions.visitId, dsql.placeholder("visitId")), inScopeParam(lesions.siteId)))
+    .orderBy(asc(lesions.createdAt), asc(lesions.id)),
+);
+const lesionById = prepared((run) => selectLesions(run).where(eq(lesions.id, dsql.placeholder("id"))));
 
 export async function listLesionsForVisit(scope: SiteScope, visitId: string): Promise<VisitMapDto> {
   // The lesions are read beside the visit, filtered by the same site scope; kept only if the visit is.
   const [visit, rows] = await Promise.all([
     loadVisit(db, scope, visitId),
-    selectLesions(db)
-      .where(and(eq(lesions.visitId, visitId), inScope(lesions.siteId, scope)))
-      .orderBy(asc(lesions.createdAt), asc(lesions.id)),
+    lesionsOfVisit(db, { visitId, siteIds: siteIdsParam(scope) }),
   ]);
   return {
     visit: { id: visit.id, patientId: visit.patientId, visitDate: visit.visitDate, status: visit.status, patientPosition: visit.patientPosition, readOnly: visit.status === "signed" },
@@ -78,9 +84,48 @@ function zoneFor(bounds: ZoneBounds, startCm: number, endCm: number) {
 }
 
 async function fetchOne(tx: Tx, id: string): Promise<LesionDto> {
-  const rows = await selectLesions(tx).where(eq(lesions.id, id));
+  const rows = await lesionById(tx, { id });
   return toDto(rows[0] as DecoratedRow);
 }
+
+// A new lesion's track and the lesion itself, each built once. Both ids are made here, so the two
+// inserts and everything that follows them go out together (one round trip in the transaction).
+const ph = (name: string) => dsql.placeholder(name);
+const insertTrack = prepared((run) =>
+  run
+    .insert(lesionTracks)
+    .values({
+      id: ph("id"),
+      patientId: ph("patientId"),
+      siteId: ph("siteId"),
+      label: dsql`'T' || (select coalesce(max(substring(label from 2)::int), 0) + 1 from lesion_tracks where patient_id = ${ph("patientId")} and label ~ '^T[0-9]+$')`,
+    })
+    .returning({ id: lesionTracks.id, label: lesionTracks.label }),
+);
+const insertLesion = prepared((run) =>
+  run
+    .insert(lesions)
+    .values({
+      id: ph("id"),
+      visitId: ph("visitId"),
+      siteId: ph("siteId"),
+      trackId: ph("trackId"),
+      label: dsql`'L' || (select coalesce(max(substring(label from 2)::int), 0) + 1 from lesions where visit_id = ${ph("visitId")} and label ~ '^L[0-9]+$')`,
+      clockStartH: ph("clockStartH"),
+      clockEndH: ph("clockEndH"),
+      distanceStartCm: ph("distanceStartCm"),
+      distanceEndCm: ph("distanceEndCm"),
+      zone: ph("zone"),
+      grade: ph("grade"),
+      morphology: ph("morphology"),
+      acetowhite: ph("acetowhite"),
+      lugol: ph("lugol"),
+      vessels: ph("vessels"),
+      sizeMm: ph("sizeMm"),
+      note: ph("note"),
+    })
+    .returning(lesionColumnsOfRow),
+);
 
 /** A new lesion starts its own track; linking it to an earlier track is a separate, audited step. */
 export async function createLesion(scope: SiteScope, visitId: string, input: CreateLesionInput, ip: string): Promise<LesionDto> {
@@ -94,30 +139,33 @@ export async function createLesion(scope: SiteScope, visitId: string, input: Cre
       if (made) return fetchOne(tx, made.id);
     }
     const zone = zoneFor(boundsOf(visit.zoneBounds), input.distanceStartCm, input.distanceEndCm);
-    const [track] = await tx
-      .insert(lesionTracks)
-      .values({
-        patientId: visit.patientId,
-        siteId: visit.siteId,
-        label: dsql`'T' || (select coalesce(max(substring(label from 2)::int), 0) + 1 from lesion_tracks where patient_id = ${visit.patientId} and label ~ '^T[0-9]+$')`,
-      })
-      .returning({ id: lesionTracks.id, label: lesionTracks.label });
-    const [row] = await tx
-      .insert(lesions)
-      .values({
-        ...input,
-        vessels: input.vessels ?? [],
+    const trackId = randomUUID();
+    const lesionId = randomUUID();
+    // Sent together, in the order they are started here on the transaction's one connection: the
+    // track, the lesion on it, then (seeing both) the status refresh's read and the audit. A failed
+    // insert fails the rest and the transaction.
+    const [[track], [row]] = await Promise.all([
+      insertTrack(tx, { id: trackId, patientId: visit.patientId, siteId: visit.siteId }),
+      insertLesion(tx, {
+        id: lesionId,
         visitId: visit.id,
         siteId: visit.siteId,
-        trackId: track!.id,
-        label: dsql`'L' || (select coalesce(max(substring(label from 2)::int), 0) + 1 from lesions where visit_id = ${visit.id} and label ~ '^L[0-9]+$')`,
+        trackId,
+        clockStartH: input.clockStartH,
+        clockEndH: input.clockEndH,
+        distanceStartCm: input.distanceStartCm,
+        distanceEndCm: input.distanceEndCm,
         zone,
-      })
-      .returning(lesionColumnsOfRow);
-    // Independent of each other: sent together.
-    await Promise.all([
+        grade: input.grade,
+        morphology: input.morphology ?? null,
+        acetowhite: input.acetowhite ?? null,
+        lugol: input.lugol ?? null,
+        vessels: input.vessels ?? [],
+        sizeMm: input.sizeMm ?? null,
+        note: input.note ?? null,
+      }),
       refreshTrackStatuses(tx, visit.patientId, visit.siteId),
-      recordAudit({ userId: scope.userId, siteId: visit.siteId, patientId: visit.patientId, action: "lesion.create", entityType: "lesion", entityId: row!.id, ip, detail: { ...input } }, tx),
+      recordAudit({ userId: scope.userId, siteId: visit.siteId, patientId: visit.patientId, action: "lesion.create", entityType: "lesion", entityId: lesionId, ip, detail: { ...input } }, tx),
     ]);
     // A lesion created just now has no biopsy and no treatment yet.
     return { ...(row as Omit<LesionRow, "trackLabel">), vessels: row!.vessels as LesionDto["vessels"], trackLabel: track!.label, histology: null, biopsyLabels: [], treated: false };
@@ -137,18 +185,23 @@ export async function updateLesion(scope: SiteScope, visitId: string, lesionId: 
     const start = fields.distanceStartCm ?? current.distanceStartCm;
     const end = fields.distanceEndCm ?? current.distanceEndCm;
     if (start > end) throw new AppError("invalid", undefined, { distanceEndCm: ["The distance range must run from the lower to the higher value."] });
-    const updated = await tx
-      .update(lesions)
-      .set({ ...fields, ...(trackId !== undefined ? { trackId } : {}), zone: zoneFor(boundsOf(visit.zoneBounds), start, end), version: current.version + 1, updatedAt: new Date() })
-      .where(and(eq(lesions.id, lesionId), eq(lesions.version, version)))
-      .returning({ id: lesions.id });
-    if (updated.length === 0) throw new AppError("conflict");
-    // Independent of each other, all after the update: sent together.
-    const [, , lesion] = await Promise.all([
+    const zone = zoneFor(boundsOf(visit.zoneBounds), start, end);
+    // The update, then (seeing it) the status refresh's read, the audit and the lesion as saved:
+    // sent together, in the order they are started here on the transaction's one connection (so
+    // the update is started with execute(), not left for Promise.all to start after the others).
+    // Should the update match no row, the transaction is rolled back with the rest.
+    const [updated, , , lesion] = await Promise.all([
+      tx
+        .update(lesions)
+        .set({ ...fields, ...(trackId !== undefined ? { trackId } : {}), zone, version: current.version + 1, updatedAt: new Date() })
+        .where(and(eq(lesions.id, lesionId), eq(lesions.version, version)))
+        .returning({ id: lesions.id })
+        .execute(),
       refreshTrackStatuses(tx, visit.patientId, visit.siteId),
       recordAudit({ userId: scope.userId, siteId: visit.siteId, patientId: visit.patientId, action: "lesion.update", entityType: "lesion", entityId: lesionId, ip, detail: { ...input } }, tx),
       fetchOne(tx, lesionId),
     ]);
+    if (updated.length === 0) throw new AppError("conflict");
     return lesion;
   });
 }

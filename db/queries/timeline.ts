@@ -1,47 +1,96 @@
 import "server-only";
-import { and, asc, eq, isNotNull } from "drizzle-orm";
-import { db } from "../client";
+import { and, eq, isNotNull, sql as dsql } from "drizzle-orm";
+import { db, prepared } from "../client";
 import { adjudications, biopsies, lesions, lesionTracks, patients, reviews, trackChecks, trackStatuses, treatments, users, visits } from "../schema";
-import { inScope, type SiteScope } from "./scope";
+import { inScopeParam, siteIdsParam, type SiteScope } from "./scope";
+import { rowsOf } from "./json-rows";
 import { recordAudit, type AuditInput } from "./audit";
 import { AppError } from "@/lib/errors";
 import { HISTOLOGY, HISTOLOGY_AS_GRADE, type Grade, type Histology } from "@/lib/domain/vocab";
 import { unionLengthH } from "@/lib/geometry/arcs";
 
+type Visit = typeof visits.$inferSelect;
+type Lesion = typeof lesions.$inferSelect;
+type Biopsy = typeof biopsies.$inferSelect;
+type Treatment = typeof treatments.$inferSelect;
+type TrackStatus = typeof trackStatuses.$inferSelect;
+type Review = typeof reviews.$inferSelect;
+type Adjudication = typeof adjudications.$inferSelect;
+
+const ofPatient = eq(visits.patientId, patients.id);
+
+// The patient in the caller's scope and everything the timeline shows of them, in one statement
+// built once: each list is a JSON array (json-rows.ts), read only when the patient row is in scope.
+const timelineOf = prepared((run) =>
+  run
+    .select({
+      id: patients.id,
+      siteId: patients.siteId,
+      familyName: patients.familyName,
+      givenName: patients.givenName,
+      mrn: patients.mrn,
+      visits: rowsOf<[string, Visit["visitDate"], Visit["status"], Visit["patientPosition"], string, string]>(
+        [visits.id, visits.visitDate, visits.status, visits.patientPosition, users.displayName, visits.examinerId],
+        dsql`from ${visits} inner join ${users} on ${eq(users.id, visits.examinerId)} where ${ofPatient}`,
+        dsql`${visits.visitDate}, ${visits.createdAt}`,
+      ),
+      tracks: rowsOf<[string, string]>([lesionTracks.id, lesionTracks.label], dsql`from ${lesionTracks} where ${eq(lesionTracks.patientId, patients.id)}`, dsql`${lesionTracks.createdAt}`),
+      lesions: rowsOf<[string, string, string | null, string, number, number, number, number, Lesion["zone"], Lesion["grade"], number]>(
+        [lesions.id, lesions.visitId, lesions.trackId, lesions.label, lesions.clockStartH, lesions.clockEndH, lesions.distanceStartCm, lesions.distanceEndCm, lesions.zone, lesions.grade, lesions.version],
+        dsql`from ${lesions} inner join ${visits} on ${eq(visits.id, lesions.visitId)} where ${ofPatient}`,
+      ),
+      biopsies: rowsOf<[string | null, string, Biopsy["histology"]]>(
+        [biopsies.lesionId, biopsies.specimenLabel, biopsies.histology],
+        dsql`from ${biopsies} inner join ${visits} on ${eq(visits.id, biopsies.visitId)} where ${and(ofPatient, isNotNull(biopsies.lesionId))}`,
+      ),
+      treatments: rowsOf<[string, string | null, Treatment["arcs"], Treatment["modality"]]>(
+        [treatments.visitId, treatments.lesionId, treatments.arcs, treatments.modality],
+        dsql`from ${treatments} inner join ${visits} on ${eq(visits.id, treatments.visitId)} where ${ofPatient}`,
+      ),
+      statuses: rowsOf<[string, string, TrackStatus["status"], TrackStatus["effectiveGrade"], TrackStatus["reason"]]>(
+        [trackStatuses.trackId, trackStatuses.visitId, trackStatuses.status, trackStatuses.effectiveGrade, trackStatuses.reason],
+        dsql`from ${trackStatuses} inner join ${lesionTracks} on ${eq(lesionTracks.id, trackStatuses.trackId)} where ${eq(lesionTracks.patientId, patients.id)}`,
+      ),
+      checks: rowsOf<[string, string, (typeof trackChecks.$inferSelect)["outcome"]]>(
+        [trackChecks.visitId, trackChecks.trackId, trackChecks.outcome],
+        dsql`from ${trackChecks} inner join ${lesionTracks} on ${eq(lesionTracks.id, trackChecks.trackId)} where ${eq(lesionTracks.patientId, patients.id)}`,
+      ),
+      reviews: rowsOf<[string, string, string | null, Review["status"], string | null]>(
+        [reviews.id, reviews.visitId, reviews.comparedVisitId, reviews.status, reviews.reviewerId],
+        dsql`from ${reviews} where ${eq(reviews.patientId, patients.id)}`,
+      ),
+      adjudications: rowsOf<[string, string, string, Adjudication["verdict"], Adjudication["proposedStatus"], string | null, string | null, string]>(
+        [adjudications.id, adjudications.reviewId, adjudications.trackId, adjudications.verdict, adjudications.proposedStatus, adjudications.comment, adjudications.resolvedAt, adjudications.createdAt],
+        dsql`from ${adjudications} inner join ${reviews} on ${eq(reviews.id, adjudications.reviewId)} where ${eq(reviews.patientId, patients.id)}`,
+      ),
+    })
+    .from(patients)
+    .where(and(eq(patients.id, dsql.placeholder("patientId")), inScopeParam(patients.siteId))),
+);
+
 /**
- * Everything the timeline and compare screens need for one patient, in a fixed number of
- * queries (ten) whatever the number of visits and lesions: the patient in scope, then the rest
- * together. The read is audited (`audit`, completed with the patient) in that same second batch.
+ * Everything the timeline and compare screens need for one patient, in one statement whatever the
+ * number of visits and lesions (the patient in scope, and the lists only if it is). The read is
+ * audited (`audit`, completed with the patient) once the patient is known.
  */
 export async function loadTimeline(scope: SiteScope, patientId: string, audit?: Omit<AuditInput, "siteId" | "patientId">) {
-  const [patient] = await db
-    .select({ id: patients.id, siteId: patients.siteId, familyName: patients.familyName, givenName: patients.givenName, mrn: patients.mrn })
-    .from(patients)
-    .where(and(eq(patients.id, patientId), inScope(patients.siteId, scope)));
+  const [patient] = await timelineOf(db, { patientId, siteIds: siteIdsParam(scope) });
   if (!patient) throw new AppError("not_found");
+  if (audit) await recordAudit({ ...audit, siteId: patient.siteId, patientId: patient.id });
 
-  const [visitRows, trackRows, lesionRows, biopsyRows, treatmentRows, statusRows, checkRows, reviewRows, adjudicationRows] = await Promise.all([
-    db.select({ id: visits.id, visitDate: visits.visitDate, status: visits.status, patientPosition: visits.patientPosition, examiner: users.displayName, examinerId: visits.examinerId })
-      .from(visits).innerJoin(users, eq(users.id, visits.examinerId)).where(eq(visits.patientId, patient.id)).orderBy(asc(visits.visitDate), asc(visits.createdAt)),
-    db.select({ id: lesionTracks.id, label: lesionTracks.label }).from(lesionTracks).where(eq(lesionTracks.patientId, patient.id)).orderBy(asc(lesionTracks.createdAt)),
-    db.select({
-      id: lesions.id, visitId: lesions.visitId, trackId: lesions.trackId, label: lesions.label, clockStartH: lesions.clockStartH, clockEndH: lesions.clockEndH,
-      distanceStartCm: lesions.distanceStartCm, distanceEndCm: lesions.distanceEndCm, zone: lesions.zone, grade: lesions.grade, version: lesions.version,
-    }).from(lesions).innerJoin(visits, eq(visits.id, lesions.visitId)).where(eq(visits.patientId, patient.id)),
-    db.select({ lesionId: biopsies.lesionId, label: biopsies.specimenLabel, histology: biopsies.histology })
-      .from(biopsies).innerJoin(visits, eq(visits.id, biopsies.visitId)).where(and(eq(visits.patientId, patient.id), isNotNull(biopsies.lesionId))),
-    db.select({ visitId: treatments.visitId, lesionId: treatments.lesionId, arcs: treatments.arcs, modality: treatments.modality })
-      .from(treatments).innerJoin(visits, eq(visits.id, treatments.visitId)).where(eq(visits.patientId, patient.id)),
-    db.select({ trackId: trackStatuses.trackId, visitId: trackStatuses.visitId, status: trackStatuses.status, effectiveGrade: trackStatuses.effectiveGrade, reason: trackStatuses.reason })
-      .from(trackStatuses).innerJoin(lesionTracks, eq(lesionTracks.id, trackStatuses.trackId)).where(eq(lesionTracks.patientId, patient.id)),
-    db.select({ visitId: trackChecks.visitId, trackId: trackChecks.trackId, outcome: trackChecks.outcome })
-      .from(trackChecks).innerJoin(lesionTracks, eq(lesionTracks.id, trackChecks.trackId)).where(eq(lesionTracks.patientId, patient.id)),
-    db.select({ id: reviews.id, visitId: reviews.visitId, comparedVisitId: reviews.comparedVisitId, status: reviews.status, reviewerId: reviews.reviewerId })
-      .from(reviews).where(eq(reviews.patientId, patient.id)),
-    db.select({ id: adjudications.id, reviewId: adjudications.reviewId, trackId: adjudications.trackId, verdict: adjudications.verdict, proposedStatus: adjudications.proposedStatus, comment: adjudications.comment, resolvedAt: adjudications.resolvedAt, createdAt: adjudications.createdAt })
-      .from(adjudications).innerJoin(reviews, eq(reviews.id, adjudications.reviewId)).where(eq(reviews.patientId, patient.id)),
-    audit ? recordAudit({ ...audit, siteId: patient.siteId, patientId: patient.id }) : null,
-  ]);
+  const visitRows = patient.visits.map(([id, visitDate, status, patientPosition, examiner, examinerId]) => ({ id, visitDate, status, patientPosition, examiner, examinerId }));
+  const trackRows = patient.tracks.map(([id, label]) => ({ id, label }));
+  const lesionRows = patient.lesions.map(([id, visitId, trackId, label, clockStartH, clockEndH, distanceStartCm, distanceEndCm, zone, grade, version]) => ({
+    id, visitId, trackId, label, clockStartH, clockEndH, distanceStartCm, distanceEndCm, zone, grade, version,
+  }));
+  const biopsyRows = patient.biopsies.map(([lesionId, label, histology]) => ({ lesionId, label, histology }));
+  const treatmentRows = patient.treatments.map(([visitId, lesionId, arcs, modality]) => ({ visitId, lesionId, arcs, modality }));
+  const statusRows = patient.statuses.map(([trackId, visitId, status, effectiveGrade, reason]) => ({ trackId, visitId, status, effectiveGrade, reason }));
+  const checkRows = patient.checks.map(([visitId, trackId, outcome]) => ({ visitId, trackId, outcome }));
+  const reviewRows = patient.reviews.map(([id, visitId, comparedVisitId, status, reviewerId]) => ({ id, visitId, comparedVisitId, status, reviewerId }));
+  const adjudicationRows = patient.adjudications.map(([id, reviewId, trackId, verdict, proposedStatus, comment, resolvedAt, createdAt]) => ({
+    id, reviewId, trackId, verdict, proposedStatus, comment, resolvedAt: resolvedAt === null ? null : new Date(resolvedAt), createdAt: new Date(createdAt),
+  }));
 
   const histologyByLesion = new Map<string, Histology>();
   const biopsyLabels = new Map<string, string[]>();

@@ -1,6 +1,8 @@
-import { and, asc, eq, inArray, isNotNull, sql as dsql } from "drizzle-orm";
+import { and, eq, inArray, isNotNull, sql as dsql } from "drizzle-orm";
 import { biopsies, lesions, trackChecks, trackStatuses, treatments, visits, lesionTracks } from "../schema";
-import type { Db, Tx } from "../client";
+import { prepared, type Db, type Tx } from "../client";
+import { rowsOf } from "./json-rows";
+import { pgArrayLiteral } from "./scope";
 import { HISTOLOGY, type Histology } from "@/lib/domain/vocab";
 import { trackStatuses as computeStatuses, withMetachronousContext, type TrackHistory } from "@/lib/tracking";
 
@@ -8,38 +10,62 @@ type Runner = Db | Tx;
 
 const HISTOLOGY_RANK = Object.fromEntries(HISTOLOGY.map((h, i) => [h, i])) as Record<Histology, number>;
 
+type Visit = typeof visits.$inferSelect;
+type Lesion = typeof lesions.$inferSelect;
+type StoredStatus = Pick<typeof trackStatuses.$inferSelect, "trackId" | "visitId" | "siteId" | "status" | "effectiveGrade" | "reason">;
+
+const patientParam = dsql.placeholder("patientId");
+const ofPatient = eq(visits.patientId, patientParam);
+
+// A patient's whole track history and its stored statuses in one statement, built once (every
+// lesion write runs it): each part is a JSON array of rows, so the driver parses one value per part.
+const historyOfPatient = prepared((run) =>
+  run
+    .select({
+      visits: rowsOf<[string, Visit["visitDate"], Visit["status"]]>([visits.id, visits.visitDate, visits.status], dsql`from ${visits} where ${ofPatient}`, dsql`${visits.visitDate}, ${visits.createdAt}`),
+      tracks: rowsOf<[string, string]>([lesionTracks.id, lesionTracks.label], dsql`from ${lesionTracks} where ${eq(lesionTracks.patientId, patientParam)}`),
+      lesions: rowsOf<[string, string, string, Lesion["grade"]]>(
+        [lesions.id, lesions.visitId, lesions.trackId, lesions.grade],
+        dsql`from ${lesions} inner join ${visits} on ${eq(visits.id, lesions.visitId)} where ${and(ofPatient, isNotNull(lesions.trackId))}`,
+      ),
+      biopsies: rowsOf<[string | null, Histology]>(
+        [biopsies.lesionId, biopsies.histology],
+        dsql`from ${biopsies} inner join ${visits} on ${eq(visits.id, biopsies.visitId)} where ${and(ofPatient, isNotNull(biopsies.histology))}`,
+      ),
+      treatments: rowsOf<[string | null, string]>([treatments.lesionId, treatments.visitId], dsql`from ${treatments} inner join ${visits} on ${eq(visits.id, treatments.visitId)} where ${ofPatient}`),
+      checks: rowsOf<[string, string, (typeof trackChecks.$inferSelect)["outcome"]]>(
+        [trackChecks.visitId, trackChecks.trackId, trackChecks.outcome],
+        dsql`from ${trackChecks} inner join ${visits} on ${eq(visits.id, trackChecks.visitId)} where ${ofPatient}`,
+      ),
+      statuses: rowsOf<[string, string, string, StoredStatus["status"], StoredStatus["effectiveGrade"], StoredStatus["reason"]]>(
+        [trackStatuses.trackId, trackStatuses.visitId, trackStatuses.siteId, trackStatuses.status, trackStatuses.effectiveGrade, trackStatuses.reason],
+        dsql`from ${trackStatuses} inner join ${lesionTracks} on ${eq(lesionTracks.id, trackStatuses.trackId)} where ${eq(lesionTracks.patientId, patientParam)}`,
+      ),
+    })
+    .from(dsql`(select) as one`),
+);
+
+async function readHistory(run: Runner, patientId: string) {
+  const [row] = await historyOfPatient(run, { patientId });
+  return row!;
+}
+
 /**
- * Every track of one patient with one observation per visit, in six queries whatever the
- * number of visits and lesions, sent together (one round trip inside a transaction). A signed
- * visit is a complete exam: a track without a lesion there was looked for and not found. On a
- * draft only an explicit "not found" counts.
+ * Every track of one patient with one observation per visit, read in one statement whatever the
+ * number of visits and lesions. A signed visit is a complete exam: a track without a lesion there
+ * was looked for and not found. On a draft only an explicit "not found" counts.
  */
 export async function loadTrackHistories(run: Runner, patientId: string): Promise<TrackHistory[]> {
-  const ofPatient = eq(visits.patientId, patientId);
-  const [visitRows, tracks, lesionRows, biopsyRows, treatmentRows, checkRows] = await Promise.all([
-    run
-      .select({ id: visits.id, visitDate: visits.visitDate, status: visits.status })
-      .from(visits)
-      .where(ofPatient)
-      .orderBy(asc(visits.visitDate), asc(visits.createdAt)),
-    run.select({ id: lesionTracks.id, label: lesionTracks.label }).from(lesionTracks).where(eq(lesionTracks.patientId, patientId)),
-    run
-      .select({ id: lesions.id, visitId: lesions.visitId, trackId: lesions.trackId, grade: lesions.grade })
-      .from(lesions)
-      .innerJoin(visits, eq(visits.id, lesions.visitId))
-      .where(and(ofPatient, isNotNull(lesions.trackId))),
-    run
-      .select({ lesionId: biopsies.lesionId, histology: biopsies.histology })
-      .from(biopsies)
-      .innerJoin(visits, eq(visits.id, biopsies.visitId))
-      .where(and(ofPatient, isNotNull(biopsies.histology))),
-    run.select({ lesionId: treatments.lesionId, visitId: treatments.visitId }).from(treatments).innerJoin(visits, eq(visits.id, treatments.visitId)).where(ofPatient),
-    run
-      .select({ visitId: trackChecks.visitId, trackId: trackChecks.trackId, outcome: trackChecks.outcome })
-      .from(trackChecks)
-      .innerJoin(visits, eq(visits.id, trackChecks.visitId))
-      .where(ofPatient),
-  ]);
+  return historiesOf(await readHistory(run, patientId));
+}
+
+function historiesOf(h: Awaited<ReturnType<typeof readHistory>>): TrackHistory[] {
+  const visitRows = h.visits.map(([id, visitDate, status]) => ({ id, visitDate, status }));
+  const tracks = h.tracks.map(([id, label]) => ({ id, label }));
+  const lesionRows = h.lesions.map(([id, visitId, trackId, grade]) => ({ id, visitId, trackId, grade }));
+  const biopsyRows = h.biopsies.map(([lesionId, histology]) => ({ lesionId, histology }));
+  const treatmentRows = h.treatments.map(([lesionId, visitId]) => ({ lesionId, visitId }));
+  const checkRows = h.checks.map(([visitId, trackId, outcome]) => ({ visitId, trackId, outcome }));
   if (visitRows.length === 0 || tracks.length === 0) return [];
   // The worst histology among a lesion's biopsies decides.
   const histologyByLesion = new Map<string, Histology>();
@@ -68,6 +94,21 @@ export async function loadTrackHistories(run: Runner, patientId: string): Promis
 }
 
 type StatusRow = typeof trackStatuses.$inferInsert;
+
+// Status rows written, however many, as one statement built once: each column is one array
+// parameter, turned back into rows by unnest (in the table's column order).
+const ph = (name: string) => dsql.placeholder(name);
+const upsertStatuses = prepared((run) =>
+  run
+    .insert(trackStatuses)
+    .select(
+      dsql`select * from unnest(${ph("trackIds")}::uuid[], ${ph("visitIds")}::uuid[], ${ph("siteIds")}::uuid[], ${ph("statuses")}::track_status[], ${ph("grades")}::grade[], ${ph("reasons")}::text[])`,
+    )
+    .onConflictDoUpdate({
+      target: [trackStatuses.trackId, trackStatuses.visitId],
+      set: { siteId: dsql`excluded.site_id`, status: dsql`excluded.status`, effectiveGrade: dsql`excluded.effective_grade`, reason: dsql`excluded.reason` },
+    }),
+);
 const sameRow = (a: StatusRow, b: StatusRow) =>
   a.status === b.status && (a.effectiveGrade ?? null) === (b.effectiveGrade ?? null) && a.reason === b.reason && a.siteId === b.siteId;
 
@@ -78,14 +119,9 @@ const sameRow = (a: StatusRow, b: StatusRow) =>
  * changes one track touches only that track's rows.
  */
 export async function refreshTrackStatuses(run: Runner, patientId: string, siteId: string): Promise<void> {
-  const [histories, storedRows] = await Promise.all([
-    loadTrackHistories(run, patientId),
-    run
-      .select({ trackId: trackStatuses.trackId, visitId: trackStatuses.visitId, siteId: trackStatuses.siteId, status: trackStatuses.status, effectiveGrade: trackStatuses.effectiveGrade, reason: trackStatuses.reason })
-      .from(trackStatuses)
-      .innerJoin(lesionTracks, eq(lesionTracks.id, trackStatuses.trackId))
-      .where(eq(lesionTracks.patientId, patientId)),
-  ]);
+  const read = await readHistory(run, patientId);
+  const histories = historiesOf(read);
+  const storedRows: StatusRow[] = read.statuses.map(([trackId, visitId, siteId, status, effectiveGrade, reason]) => ({ trackId, visitId, siteId, status, effectiveGrade, reason }));
   const computed = new Map<string, StatusRow[]>();
   for (const h of withMetachronousContext(histories)) {
     computed.set(
@@ -117,13 +153,14 @@ export async function refreshTrackStatuses(run: Runner, patientId: string, siteI
   await Promise.all([
     ...[...stale].map(([trackId, visitIds]) => run.delete(trackStatuses).where(and(eq(trackStatuses.trackId, trackId), inArray(trackStatuses.visitId, visitIds)))),
     upserts.length
-      ? run
-          .insert(trackStatuses)
-          .values(upserts)
-          .onConflictDoUpdate({
-            target: [trackStatuses.trackId, trackStatuses.visitId],
-            set: { siteId: dsql`excluded.site_id`, status: dsql`excluded.status`, effectiveGrade: dsql`excluded.effective_grade`, reason: dsql`excluded.reason` },
-          })
+      ? upsertStatuses(run, {
+          trackIds: pgArrayLiteral(upserts.map((r) => r.trackId)),
+          visitIds: pgArrayLiteral(upserts.map((r) => r.visitId)),
+          siteIds: pgArrayLiteral(upserts.map((r) => r.siteId)),
+          statuses: pgArrayLiteral(upserts.map((r) => r.status)),
+          grades: pgArrayLiteral(upserts.map((r) => r.effectiveGrade ?? null)),
+          reasons: pgArrayLiteral(upserts.map((r) => r.reason)),
+        })
       : null,
   ]);
 }

@@ -1,8 +1,8 @@
 import "server-only";
 import { and, eq, sql as dsql } from "drizzle-orm";
 import { lesions, patients, sites, visits } from "../schema";
-import type { Db, Tx } from "../client";
-import { inScope, type SiteScope } from "./scope";
+import { prepared, type Db, type Tx } from "../client";
+import { inScopeParam, siteIdsParam, type SiteScope } from "./scope";
 import { AppError } from "@/lib/errors";
 
 const visitColumns = {
@@ -17,11 +17,17 @@ const visitColumns = {
   version: visits.version,
 };
 
+const visitInScope = and(eq(visits.id, dsql.placeholder("visitId")), inScopeParam(visits.siteId));
+
+// Built once: every visit page and every change to a visit starts with one of these.
+const visitHeader = prepared((run) => run.select(visitColumns).from(visits).where(visitInScope).limit(1));
+const visitHeaderForUpdate = prepared((run) => run.select(visitColumns).from(visits).where(visitInScope).for("update").limit(1));
+
 export type VisitHeader = Awaited<ReturnType<typeof loadVisit>>;
 
 /** A visit the caller's sites may see, or not_found. */
 export async function loadVisit(run: Db | Tx, scope: SiteScope, visitId: string) {
-  const [v] = await run.select(visitColumns).from(visits).where(and(eq(visits.id, visitId), inScope(visits.siteId, scope))).limit(1);
+  const [v] = await visitHeader(run, { visitId, siteIds: siteIdsParam(scope) });
   if (!v) throw new AppError("not_found");
   return v;
 }
@@ -31,16 +37,35 @@ export async function loadVisit(run: Db | Tx, scope: SiteScope, visitId: string)
  * visit (423: changes to a signed visit go in an addendum).
  */
 export async function lockDraftVisit(tx: Tx, scope: SiteScope, visitId: string) {
-  const [v] = await tx
-    .select(visitColumns)
-    .from(visits)
-    .where(and(eq(visits.id, visitId), inScope(visits.siteId, scope)))
-    .for("update")
-    .limit(1);
+  const [v] = await visitHeaderForUpdate(tx, { visitId, siteIds: siteIdsParam(scope) });
   if (!v) throw new AppError("not_found");
   if (v.status === "signed") throw new AppError("locked");
   return v;
 }
+
+// lockDraftVisitForLesion's statement, one per shape, each built once.
+function lockForLesion(opts: { lockPatient: boolean; withLesion: boolean }) {
+  return prepared((run) => {
+    const base = run
+      .select({
+        visit: { ...visitColumns, zoneBounds: sites.zoneBounds },
+        current: { id: lesions.id, version: lesions.version, distanceStartCm: lesions.distanceStartCm, distanceEndCm: lesions.distanceEndCm },
+      })
+      .from(visits)
+      .innerJoin(sites, eq(sites.id, visits.siteId))
+      .innerJoin(patients, eq(patients.id, visits.patientId))
+      .leftJoin(lesions, opts.withLesion ? and(eq(lesions.id, dsql.placeholder("lesionId")), eq(lesions.visitId, visits.id)) : dsql`false`)
+      .where(visitInScope)
+      .limit(1);
+    return opts.lockPatient ? base.for("update", { of: [visits, patients] }) : base.for("update", { of: visits });
+  });
+}
+const lockForLesionStatements = {
+  plain: lockForLesion({ lockPatient: false, withLesion: false }),
+  patient: lockForLesion({ lockPatient: true, withLesion: false }),
+  lesion: lockForLesion({ lockPatient: false, withLesion: true }),
+  patientAndLesion: lockForLesion({ lockPatient: true, withLesion: true }),
+};
 
 /**
  * lockDraftVisit for lesion writes, in one statement: also the site's zone bounds, optionally the
@@ -48,18 +73,10 @@ export async function lockDraftVisit(tx: Tx, scope: SiteScope, visitId: string) 
  * lesion being changed (null when it is not on this visit).
  */
 export async function lockDraftVisitForLesion(tx: Tx, scope: SiteScope, visitId: string, opts: { lockPatient?: boolean; lesionId?: string } = {}) {
-  const base = tx
-    .select({
-      visit: { ...visitColumns, zoneBounds: sites.zoneBounds },
-      current: { id: lesions.id, version: lesions.version, distanceStartCm: lesions.distanceStartCm, distanceEndCm: lesions.distanceEndCm },
-    })
-    .from(visits)
-    .innerJoin(sites, eq(sites.id, visits.siteId))
-    .innerJoin(patients, eq(patients.id, visits.patientId))
-    .leftJoin(lesions, opts.lesionId ? and(eq(lesions.id, opts.lesionId), eq(lesions.visitId, visits.id)) : dsql`false`)
-    .where(and(eq(visits.id, visitId), inScope(visits.siteId, scope)))
-    .limit(1);
-  const [row] = await (opts.lockPatient ? base.for("update", { of: [visits, patients] }) : base.for("update", { of: visits }));
+  const statement = opts.lockPatient
+    ? opts.lesionId ? lockForLesionStatements.patientAndLesion : lockForLesionStatements.patient
+    : opts.lesionId ? lockForLesionStatements.lesion : lockForLesionStatements.plain;
+  const [row] = await statement(tx, { visitId, siteIds: siteIdsParam(scope), ...(opts.lesionId ? { lesionId: opts.lesionId } : {}) });
   if (!row) throw new AppError("not_found");
   if (row.visit.status === "signed") throw new AppError("locked");
   return { visit: row.visit, current: opts.lesionId ? row.current : null };

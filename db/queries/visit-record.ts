@@ -1,9 +1,9 @@
 import "server-only";
-import { and, eq } from "drizzle-orm";
+import { and, eq, sql as dsql } from "drizzle-orm";
 import { alias } from "drizzle-orm/pg-core";
-import { db, type Db, type Tx } from "../client";
+import { db, prepared, type Db, type Tx } from "../client";
 import { sites, users, visits } from "../schema";
-import { inScope, type SiteScope } from "./scope";
+import { inScopeParam, siteIdsParam, type SiteScope } from "./scope";
 import { lockDraftVisit } from "./visit-access";
 import { refreshTrackStatuses } from "./tracking";
 import { recordAudit } from "./audit";
@@ -19,8 +19,9 @@ export function getVisitRecord(scope: SiteScope, visitId: string) {
   return readVisitRecord(db, scope, visitId);
 }
 
-async function readVisitRecord(run: Db | Tx, scope: SiteScope, visitId: string) {
-  const [row] = await run
+// Built once: every visit screen and every exam save reads it.
+const visitRecord = prepared((run) =>
+  run
     .select({
       id: visits.id,
       patientId: visits.patientId,
@@ -49,12 +50,41 @@ async function readVisitRecord(run: Db | Tx, scope: SiteScope, visitId: string) 
     .innerJoin(examiner, eq(examiner.id, visits.examinerId))
     .innerJoin(sites, eq(sites.id, visits.siteId))
     .leftJoin(signer, eq(signer.id, visits.signedBy))
-    .where(and(eq(visits.id, visitId), inScope(visits.siteId, scope)))
-    .limit(1);
+    .where(and(eq(visits.id, dsql.placeholder("visitId")), inScopeParam(visits.siteId)))
+    .limit(1),
+);
+
+async function readVisitRecord(run: Db | Tx, scope: SiteScope, visitId: string) {
+  const [row] = await visitRecord(run, { visitId, siteIds: siteIdsParam(scope) });
   if (!row) throw new AppError("not_found");
   return { ...row, extentCautionFraction: row.extentCautionFraction ?? DEFAULT_CAUTION_FRACTION };
 }
 export type VisitRecord = Awaited<ReturnType<typeof readVisitRecord>>;
+
+// A value bound as is (dates go in as ISO text, as drizzle would send them).
+const p = (name: string) => dsql`${dsql.placeholder(name)}`;
+// Built once: the exam form saves every field each time.
+const saveExam = prepared((run) =>
+  run
+    .update(visits)
+    .set({
+      visitDate: p("visitDate"),
+      patientPosition: p("patientPosition"),
+      indication: p("indication"),
+      cytology: p("cytology"),
+      hpvResult: p("hpvResult"),
+      adequacy: p("adequacy"),
+      examStartedAt: p("examStartedAt"),
+      examEndedAt: p("examEndedAt"),
+      anaesthesia: p("anaesthesia"),
+      patientWeightKg: p("patientWeightKg"),
+      plan: p("plan"),
+      version: p("version"),
+      updatedAt: p("updatedAt"),
+    })
+    .where(eq(visits.id, dsql.placeholder("id")))
+    .returning({ version: visits.version }),
+);
 
 /**
  * Saves the exam details if nobody saved since the caller loaded them (optimistic version).
@@ -66,31 +96,31 @@ export async function updateExamDetails(scope: SiteScope, visitId: string, input
     const v = await lockDraftVisit(tx, scope, visitId);
     if (v.version !== input.version) throw new AppError("conflict");
     const { version, ...fields } = input;
-    const [saved] = await tx
-      .update(visits)
-      .set({
+    const saved = { version: version + 1 };
+    // Sent together, in the order they are started here on the transaction's one connection: the
+    // update, then (seeing it) the audit and the record as saved.
+    const [, , record] = await Promise.all([
+      saveExam(tx, {
+        id: v.id,
         visitDate: fields.visitDate,
         patientPosition: fields.patientPosition,
         indication: fields.indication ?? null,
         cytology: fields.cytology,
         hpvResult: fields.hpvResult,
         adequacy: fields.adequacy ?? null,
-        examStartedAt: fields.examStartedAt ? new Date(fields.examStartedAt) : null,
-        examEndedAt: fields.examEndedAt ? new Date(fields.examEndedAt) : null,
+        examStartedAt: fields.examStartedAt ? new Date(fields.examStartedAt).toISOString() : null,
+        examEndedAt: fields.examEndedAt ? new Date(fields.examEndedAt).toISOString() : null,
         anaesthesia: fields.anaesthesia ?? null,
         patientWeightKg: fields.patientWeightKg ?? null,
         plan: fields.plan ?? null,
-        version: version + 1,
-        updatedAt: new Date(),
-      })
-      .where(eq(visits.id, v.id))
-      .returning({ version: visits.version });
-    if (fields.visitDate !== v.visitDate) await refreshTrackStatuses(tx, v.patientId, v.siteId);
-    // Independent of each other, both after the update: sent together.
-    const [, record] = await Promise.all([
-      recordAudit({ userId: scope.userId, siteId: v.siteId, patientId: v.patientId, action: "visit.exam.update", entityType: "visit", entityId: v.id, ip, detail: { fields: Object.keys(fields), version: saved!.version } }, tx),
+        version: saved.version,
+        updatedAt: new Date().toISOString(),
+      }),
+      recordAudit({ userId: scope.userId, siteId: v.siteId, patientId: v.patientId, action: "visit.exam.update", entityType: "visit", entityId: v.id, ip, detail: { fields: Object.keys(fields), version: saved.version } }, tx),
       readVisitRecord(tx, scope, v.id),
     ]);
+    // A changed date re-orders the patient's visits.
+    if (fields.visitDate !== v.visitDate) await refreshTrackStatuses(tx, v.patientId, v.siteId);
     return record;
   });
 }
