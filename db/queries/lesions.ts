@@ -123,8 +123,12 @@ const insertLesion = prepared((run) =>
       vessels: ph("vessels"),
       sizeMm: ph("sizeMm"),
       note: ph("note"),
+      clientKey: ph("clientKey"),
     })
     .returning(lesionColumnsOfRow),
+);
+const lesionByClientKey = prepared((run) =>
+  run.select({ id: lesions.id }).from(lesions).where(and(eq(lesions.visitId, ph("visitId")), eq(lesions.clientKey, ph("clientKey")))),
 );
 
 /** A new lesion starts its own track; linking it to an earlier track is a separate, audited step. */
@@ -135,7 +139,7 @@ export async function createLesion(scope: SiteScope, visitId: string, input: Cre
     // The same create sent again (its first answer was lost): answer with the lesion it made.
     // The visit lock above orders two such requests, so the second sees the first's row.
     if (input.clientKey) {
-      const [made] = await tx.select({ id: lesions.id }).from(lesions).where(and(eq(lesions.visitId, visit.id), eq(lesions.clientKey, input.clientKey)));
+      const [made] = await lesionByClientKey(tx, { visitId: visit.id, clientKey: input.clientKey });
       if (made) return fetchOne(tx, made.id);
     }
     const zone = zoneFor(boundsOf(visit.zoneBounds), input.distanceStartCm, input.distanceEndCm);
@@ -163,6 +167,7 @@ export async function createLesion(scope: SiteScope, visitId: string, input: Cre
         vessels: input.vessels ?? [],
         sizeMm: input.sizeMm ?? null,
         note: input.note ?? null,
+        clientKey: input.clientKey ?? null,
       }),
       refreshTrackStatuses(tx, visit.patientId, visit.siteId),
       recordAudit({ userId: scope.userId, siteId: visit.siteId, patientId: visit.patientId, action: "lesion.create", entityType: "lesion", entityId: lesionId, ip, detail: { ...input } }, tx),

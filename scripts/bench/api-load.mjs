@@ -6,6 +6,7 @@
 // 409s are still counted apart from other errors.
 // Run: node scripts/bench/api-load.mjs <base-url> <prepare.json> [seconds] [connections]
 import { readFileSync } from "node:fs";
+import { randomUUID } from "node:crypto";
 import autocannon from "autocannon";
 
 const [base, prepFile, secs = "10", conns = "50"] = process.argv.slice(2);
@@ -54,7 +55,8 @@ const note = (status, what) => {
 };
 
 // A fresh lesion near where the previous one was drawn; the extent moves so no two are identical.
-const lesionBody = (n) => ({ clockStartH: (n * 0.7) % 12, clockEndH: (n * 0.7 + 0.8) % 12, distanceStartCm: 1, distanceEndCm: 2.5, grade: "lsil", vessels: [] });
+// With a new client key each, as the map editor sends (the server first looks for that key).
+const lesionBody = (n) => ({ clockStartH: (n * 0.7) % 12, clockEndH: (n * 0.7 + 0.8) % 12, distanceStartCm: 1, distanceEndCm: 2.5, grade: "lsil", vessels: [], clientKey: randomUUID() });
 
 // Slots are the prepared draft visits (100); each keeps the versions it has seen. Requests take
 // slots round-robin, and a slot's state is updated from each response, so its next use (≥ 20
