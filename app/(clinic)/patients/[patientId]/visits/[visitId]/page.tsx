@@ -2,8 +2,7 @@ import Link from "next/link";
 import { notFound } from "next/navigation";
 import { AppShell } from "@/components/shell/app-shell";
 import { VisitMapEditor } from "@/components/visit/map-editor/visit-map-editor";
-import { VisitRecordPanels } from "@/components/visit/record/visit-record-panels";
-import { VisitGallery } from "@/components/visit/gallery/visit-gallery";
+import { LazyVisitGallery, LazyVisitRecordPanels } from "@/components/visit/lazy-panels";
 import { BiopsiesPanel } from "@/components/visit/biopsies-panel";
 import { getPatient } from "@/db/queries/patients";
 import { loadVisit } from "@/db/queries/visit-access";
@@ -49,10 +48,10 @@ export default async function VisitPage({ params }: { params: Promise<{ patientI
         <BiopsiesPanel visitId={visit.id} canEdit={canEdit} canEnterResults={user.role === "clinician"} />
       </div>
       <section aria-label="Visit record" className="mt-8">
-        <VisitRecordPanels visitId={visit.id} />
+        <LazyVisitRecordPanels visitId={visit.id} />
       </section>
       <section aria-label="Photographs and documents" className="mt-8">
-        <VisitGallery visitId={visit.id} canUpload={canEdit} convention={user.displayConvention} />
+        <LazyVisitGallery visitId={visit.id} canUpload={canEdit} convention={user.displayConvention} />
       </section>
     </AppShell>
   );
