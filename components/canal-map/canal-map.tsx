@@ -16,6 +16,9 @@ export const CONVENTION_LABEL: Record<DisplayConvention, string> = {
   left_lateral: "Left lateral",
 };
 
+/** Every angle a convention turns the lesion layer by (0° and 180°): one marks layer each. */
+const MARK_TURNS = [...new Set((Object.keys(CONVENTION_LABEL) as DisplayConvention[]).map((c) => toDisplayHours(0, c) * 30))].sort((a, b) => a - b);
+
 export interface CanalMapProps {
   lesions: readonly MapLesion[];
   convention: DisplayConvention;
@@ -52,13 +55,16 @@ export function orientationWords(conv: DisplayConvention): string {
  * The canal map: a pure SVG drawing that scales to its container. It draws; it does not
  * decide. Selection, gestures and saving belong to the screen that uses it.
  *
- * Four stacked SVGs with one viewBox, so the browser can keep each as its own layer:
+ * Stacked SVGs with one viewBox, so the browser can keep each as its own layer:
  *   1. the face (zones, rings, numbers, labels), the treated band and earlier outlines;
  *   2. the lesions, drawn in the stored frame and turned as a whole by the numbering (a CSS
  *      turn the compositor applies: switching conventions repaints nothing on this layer);
- *   3. the marks, upright in display coordinates: labels, biopsy tags, treated marks;
+ *   3. the marks, upright in display coordinates: labels, biopsy tags, treated marks. The
+ *      conventions turn the face by only two angles (0° and 180°), so there is one marks layer
+ *      per angle, both drawn, the other one transparent: a change of numbering shows the other
+ *      (the compositor again) instead of moving 200 labels;
  *   4. the selection ring and the owner's overlay (handles): a tap changes only this layer.
- * Pointer events fall through the upper two except on lesions, handles and other marks that ask
+ * Pointer events fall through the upper layers except on lesions, handles and other marks that ask
  * for them; gestures are handled on the wrapper, and `svgRef` (the face) gives coordinates.
  */
 export function CanalMap(props: CanalMapProps) {
@@ -71,6 +77,8 @@ export function CanalMap(props: CanalMapProps) {
   // The spoken names follow a change of numbering a frame after the drawing does.
   const namesConv = useAfterPaint(convention);
   const layer = "pointer-events-none absolute inset-0 h-full w-full [will-change:transform]";
+  // Kept painted while transparent (will-change: opacity), so showing one is the compositor's job.
+  const marksLayer = "pointer-events-none absolute inset-0 h-full w-full [will-change:transform,opacity]";
   return (
     <div
       role="group"
@@ -99,9 +107,11 @@ export function CanalMap(props: CanalMapProps) {
         </defs>
         <LesionBodies lesions={lesions} conv={namesConv} prefix={prefix} selection={selection} saveStates={saveStates} focusable={focusable} onPointerDown={props.onLesionPointerDown} onKeyDown={props.onLesionKeyDown} />
       </svg>
-      <svg viewBox={VIEW_BOX} className={layer} aria-hidden="true" data-layer="marks">
-        <LesionMarksLayer lesions={lesions} turnDeg={turnDeg} saveStates={saveStates} />
-      </svg>
+      {MARK_TURNS.map((turn) => (
+        <svg key={turn} viewBox={VIEW_BOX} className={marksLayer} style={{ opacity: turn === turnDeg ? 1 : 0 }} aria-hidden="true" data-layer="marks" data-turn={turn} data-shown={turn === turnDeg || undefined}>
+          <LesionMarksLayer lesions={lesions} turnDeg={turn} saveStates={saveStates} />
+        </svg>
+      ))}
       <svg viewBox={VIEW_BOX} className={layer} aria-hidden="true" data-layer="selection">
         <SelectionRing selection={selection} lesions={lesions} conv={convention} />
         {overlay}
