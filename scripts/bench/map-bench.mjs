@@ -6,6 +6,7 @@
 //   inspector = (editor only) the same tap, until the form of the tapped lesion is on screen
 //               and painted: the editor paints the map first and the side panels just after;
 //   re-render = click the control that recomputes every arc (the app: the next clock numbering).
+// Both pages are timed once settled (no request in flight for 0.5 s, then an idle period).
 // Frames are not throttled to 60 Hz (--disable-frame-rate-limit --disable-gpu-vsync), so the
 // two-frame wait measures work, not the time left until the next vsync. Median of 30 each.
 // Run: node scripts/bench/map-bench.mjs <base-url> <prepare.json>
@@ -103,6 +104,11 @@ try {
 
   await page.goto(`${base}/patients/${prep.map.patientId}/visits/${prep.map.visitId}`);
   await page.waitForFunction(() => document.querySelectorAll("g[data-lesion-id]").length === 200, null, { timeout: 60_000 });
+  // Timed on a settled page: the panels below the map load their code and data after the first
+  // load, and the first visit to a fresh server answers slowly; taps timed while those land
+  // would measure them, not the tap. (The floor page has nothing to wait for.)
+  await page.waitForLoadState("networkidle");
+  await page.evaluate(() => new Promise((r) => requestIdleCallback(() => r(), { timeout: 2000 })));
   // One warm-up pass of each, so code paths are compiled before the timed rounds (same on the floor below).
   await page.evaluate(timeInPage, { kind: "tap", rounds: 3, turnSelector: '[aria-label="Clock numbering"] [role="radio"]' });
   const appTap = await page.evaluate(timeInPage, { kind: "tap", rounds: ROUNDS, turnSelector: "" });
