@@ -6,7 +6,8 @@
 //   inspector = (editor only) the same tap, until the form of the tapped lesion is on screen
 //               and painted: the editor paints the map first and the side panels just after;
 //   re-render = click the control that recomputes every arc (the app: the next clock numbering).
-// Both pages are timed once settled (no request in flight for 0.5 s, then an idle period).
+// Both pages are timed once settled (no request in flight for 0.5 s, then an idle period), each
+// after the machine has gone quiet (≥ 80% CPU idle over a second, or 90 s at most).
 // Frames are not throttled to 60 Hz (--disable-frame-rate-limit --disable-gpu-vsync), so the
 // two-frame wait measures work, not the time left until the next vsync. Median of 30 each.
 // Run: node scripts/bench/map-bench.mjs <base-url> <prepare.json>
@@ -79,6 +80,29 @@ async function timeInPage({ kind, rounds, turnSelector }) {
   return out;
 }
 
+/** Share of CPU time idle over `ms` milliseconds, from /proc/stat (all cores). */
+async function idleShare(ms) {
+  const read = () => readFileSync("/proc/stat", "utf8").split("\n")[0].trim().split(/\s+/).slice(1).map(Number);
+  const a = read();
+  await new Promise((r) => setTimeout(r, ms));
+  const b = read();
+  const d = b.map((v, i) => v - a[i]);
+  const total = d.reduce((x, y) => x + y, 0);
+  return total ? (d[3] + d[4]) / total : 1; // idle + iowait
+}
+
+/**
+ * Waits (at most 90 s) until the machine is mostly idle: a frame-sized figure on 2 cores is at
+ * the mercy of whatever else runs, and the steps before this one leave the database busy for a
+ * while (autovacuum after the 200,000-row load and the write burst, checkpoints).
+ */
+async function quiet() {
+  const until = Date.now() + 90_000;
+  let idle = await idleShare(1000);
+  while (idle < 0.8 && Date.now() < until) idle = await idleShare(1000);
+  return +idle.toFixed(2);
+}
+
 const median = (xs) => { const s = [...xs].sort((a, b) => a - b); return +s[Math.floor(s.length / 2)].toFixed(2); };
 const p95 = (xs) => { const s = [...xs].sort((a, b) => a - b); return +s[Math.ceil(0.95 * s.length) - 1].toFixed(2); };
 
@@ -96,6 +120,7 @@ try {
   await ctx.addCookies([{ name, value, url: base }]);
   const page = ctx.pages()[0] ?? (await ctx.newPage());
 
+  const idleBeforeFloor = await quiet();
   await page.goto(floor.url);
   await page.waitForFunction(() => document.querySelectorAll("[data-lesion-id]").length === 200);
   await page.evaluate(timeInPage, { kind: "tap", rounds: 3, turnSelector: "#turn" });
@@ -109,6 +134,7 @@ try {
   // would measure them, not the tap. (The floor page has nothing to wait for.)
   await page.waitForLoadState("networkidle");
   await page.evaluate(() => new Promise((r) => requestIdleCallback(() => r(), { timeout: 2000 })));
+  const idleBeforeApp = await quiet();
   // One warm-up pass of each, so code paths are compiled before the timed rounds (same on the floor below).
   await page.evaluate(timeInPage, { kind: "tap", rounds: 3, turnSelector: '[aria-label="Clock numbering"] [role="radio"]' });
   const appTap = await page.evaluate(timeInPage, { kind: "tap", rounds: ROUNDS, turnSelector: "" });
@@ -120,6 +146,8 @@ try {
     lesions: 200,
     rounds: ROUNDS,
     selectionWorked: selectedOk,
+    // Share of CPU idle just before each page was timed (the wait aims for ≥ 0.8).
+    idleBefore: { floor: idleBeforeFloor, app: idleBeforeApp },
     tap: { appMedianMs: median(appTap), appP95Ms: p95(appTap), floorMedianMs: median(floorTap), floorP95Ms: p95(floorTap) },
     // The editor only (the floor has no inspector): tap until the selected lesion's form is painted.
     tapToInspector: { appMedianMs: median(appInspect), appP95Ms: p95(appInspect) },
