@@ -7,4 +7,4 @@ export { GRADE_ENCODING, ZONE_ENCODING, ORIENTATION_NOTE, TREATED_RING } from ".
 export * from "./map-geometry";
 export { clientToSvg } from "./pointer";
 export { afterNextFrame, useAfterPaint, useSelectionAfterPaint } from "./after-paint";
-export { createSelectionStore, useIsSelected, useSelectedId, type SelectionStore } from "./selection";
+export { createSelectionStore, useIsSelected, useSelectedId, useSelectedLesion, type SelectionStore } from "./selection";

@@ -4,7 +4,7 @@ import type { LesionDto } from "@/lib/validation/lesions";
 import { BIOPSY_TAG, GRADE_ENCODING, SELECTION_RING, TREATED_MARK, UNSAVED_MARK } from "./encoding";
 import { centreOf, isPointLesion, pointOfSite, polar, radiusOfCm, sectorOf, sectorPath } from "./map-geometry";
 import { patternId } from "./patterns";
-import { useIsSelected, useSelectedId, type SelectionStore } from "./selection";
+import { useIsSelected, useSelectedLesion, type SelectionStore } from "./selection";
 
 /** What the map needs of a lesion; LesionDto satisfies it. */
 export type MapLesion = Pick<
@@ -31,19 +31,31 @@ const FOCUS_STROKE = 9;
 /** The frame lesions are drawn in before the layer is turned: lithotomy numbering is the stored one. */
 const STORED_FRAME: DisplayConvention = "lithotomy";
 
-/** Where a lesion's parts are, in the stored frame; depends on the lesion alone. */
-function useShapeGeometry(lesion: MapLesion) {
+/** Where a lesion is drawn, in the stored frame: point or sector, and its centre. */
+function placeOf(lesion: MapLesion) {
+  const point = isPointLesion(lesion);
+  const centre = centreOf(lesion);
+  return { point, c: pointOfSite(centre.storedH, centre.cm, STORED_FRAME), geo: sectorOf(lesion, STORED_FRAME) };
+}
+
+/** The body's outlines (the path strings, the costly part), for the lesion layer only. */
+function useShapeGeometry(lesion: MapLesion): ShapeGeometry {
   return useMemo(() => {
-    const point = isPointLesion(lesion);
-    const centre = centreOf(lesion);
-    const c = pointOfSite(centre.storedH, centre.cm, STORED_FRAME);
-    const geo = sectorOf(lesion, STORED_FRAME);
+    const { point, c, geo } = placeOf(lesion);
     const body = point ? null : sectorPath(geo) ?? "";
     const halo = point || !lesion.treated ? null : sectorPath(sectorOf(lesion, STORED_FRAME, TREATED_MARK.haloPx)) ?? "";
+    return { point, c, body, halo };
+  }, [lesion]);
+}
+
+/** Where the marks sit, in the stored frame: no path strings, for the marks layers. */
+function useMarkAnchors(lesion: MapLesion) {
+  return useMemo(() => {
+    const { point, c, geo } = placeOf(lesion);
     const mid = (geo.startAngle + geo.endAngle) / 2;
     const outerEdge = point ? c : polar(mid, geo.outerRadius + TREATED_MARK.haloPx + 8);
     const innerEdge = point ? c : polar(mid, Math.max(geo.innerRadius - 14, radiusOfCm(8)));
-    return { point, c, body, halo, outerEdge, innerEdge };
+    return { point, c, outerEdge, innerEdge };
   }, [lesion]);
 }
 
@@ -103,7 +115,7 @@ function LesionBodyInner({ lesion, conv, prefix, selection, saveState, focusable
  * a text layout each, ~18 ms for 200 labels; moving its parent ~3 ms).
  */
 function LesionMarksInner({ lesion, turnDeg, saveState }: { lesion: MapLesion; turnDeg: number; saveState?: LesionSaveState }) {
-  const shape = useShapeGeometry(lesion);
+  const shape = useMarkAnchors(lesion);
   const c = turned(shape.c, turnDeg);
   const outer = shape.point ? { x: c.x, y: c.y - POINT_RADIUS - 8 } : turned(shape.outerEdge, turnDeg);
   const inner = shape.point ? { x: c.x + POINT_RADIUS + 12, y: c.y } : turned(shape.innerEdge, turnDeg);
@@ -194,8 +206,7 @@ export const LesionMarks = memo(LesionMarksInner);
  * small group and nothing on the lesion layer, which the browser then need not paint again.
  */
 export function SelectionRing({ selection, lesions, conv }: { selection: SelectionStore; lesions: readonly MapLesion[]; conv: DisplayConvention }) {
-  const id = useSelectedId(selection);
-  const lesion = id ? lesions.find((l) => l.id === id) : undefined;
+  const lesion = useSelectedLesion(selection, lesions);
   if (!lesion) return null;
   if (isPointLesion(lesion)) {
     const centre = centreOf(lesion);

@@ -38,6 +38,12 @@ export function useSelectedId(store: SelectionStore): string | null {
   return useSyncExternalStore(store.subscribe, store.get, store.get);
 }
 
+/** The selected lesion among `lesions` (undefined when none is, or it is not among them). */
+export function useSelectedLesion<L extends { id: string }>(store: SelectionStore, lesions: readonly L[]): L | undefined {
+  const id = useSelectedId(store);
+  return id ? lesions.find((l) => l.id === id) : undefined;
+}
+
 /** A store that follows a `selectedId` prop, for maps whose owner keeps selection in React state. */
 export function useSelectionFromProp(selectedId: string | null | undefined): SelectionStore {
   const [store] = useState(() => createSelectionStore(selectedId ?? null));

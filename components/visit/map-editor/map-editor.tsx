@@ -2,7 +2,7 @@
 // The interactive canal map: gestures and keys in, extents out. It holds no server state;
 // the owner (VisitMapEditor) saves. Tested on its own in map-editor.test.tsx.
 import { memo, useCallback, useEffect, useLayoutEffect, useMemo, useRef, type KeyboardEvent, type PointerEvent } from "react";
-import { CanalMap, sectorOf, polar, useSelectedId, type SelectionStore, type GhostLesion, type LesionSaveState, type MapExtent, type MapLesion, type TreatedArc } from "@/components/canal-map";
+import { CanalMap, sectorOf, polar, useSelectedLesion, type SelectionStore, type GhostLesion, type LesionSaveState, type MapExtent, type MapLesion, type TreatedArc } from "@/components/canal-map";
 import type { DisplayConvention } from "@/lib/geometry";
 import type { Grade } from "@/lib/domain/vocab";
 import { moveExtent, resizeArc, resizeDepth, STEP_CM, STEP_H, type HandleKind } from "./extent-math";
@@ -145,8 +145,7 @@ type HandleStart = (id: string, h: HandleKind, from: MapExtent, e: PointerEvent)
 
 /** Handles on whichever lesion is selected: follows the selection store on its own. */
 const SelectedHandles = memo(function SelectedHandles({ selection, lesions, conv, onStart }: { selection: SelectionStore; lesions: readonly MapLesion[]; conv: DisplayConvention; onStart: HandleStart }) {
-  const id = useSelectedId(selection);
-  const lesion = id ? lesions.find((l) => l.id === id) : undefined;
+  const lesion = useSelectedLesion(selection, lesions);
   return lesion ? <Handles lesion={lesion} conv={conv} onStart={onStart} /> : null;
 });
 
