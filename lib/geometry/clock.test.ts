@@ -26,6 +26,25 @@ describe("normalizeHours", () => {
     expect(() => normalizeHours(Number.NaN)).toThrow(RangeError);
     expect(() => normalizeHours(Infinity)).toThrow(RangeError);
   });
+  // An in-range value is already normalized, so it must come back bit for bit: a value that
+  // drifts by one unit in the last place reads as a moved lesion (a tap once saved 6.29 as
+  // 6.289999999999999). The case below is that one; IEEE 754 addition rounds 6.29 + 12.
+  it("returns an in-range value exactly as given", () => {
+    expect(normalizeHours(6.29)).toBe(6.29);
+    expect(normalizeHours(9.709999999999999)).toBe(9.709999999999999);
+    expect(Object.is(normalizeHours(-0), 0)).toBe(true);
+  });
+  it("is the identity on [0, 12) and idempotent everywhere (property)", () => {
+    fc.assert(
+      fc.property(fc.double({ min: 0, max: 12, maxExcluded: true, noNaN: true }), (h) => Object.is(normalizeHours(h), h === 0 ? 0 : h)),
+    );
+    fc.assert(
+      fc.property(fc.double({ min: -1e6, max: 1e6, noNaN: true }), (h) => {
+        const once = normalizeHours(h);
+        return normalizeHours(once) === once;
+      }),
+    );
+  });
   it("always lands in [0, 12) (property)", () => {
     fc.assert(
       fc.property(fc.double({ min: -1e6, max: 1e6, noNaN: true }), (h) => {

@@ -19,10 +19,16 @@ function assertFinite(value: number, name: string): void {
   if (!Number.isFinite(value)) throw new RangeError(`${name} must be a finite number, got ${value}`);
 }
 
-/** Any hour value → [0, 12). Tiny negative inputs would otherwise round up to 12. */
+/**
+ * Any hour value → [0, 12). A value already in range comes back exactly as it was (adding 12
+ * and taking the remainder would turn 6.29 into 6.289999999999999, and an untouched lesion
+ * would look moved). `%` itself is exact; only the wrap of a negative remainder rounds, and a
+ * tiny negative input would round up to 12, so that becomes 0.
+ */
 export function normalizeHours(h: number): number {
   assertFinite(h, "hours");
-  const r = ((h % HOURS_PER_CIRCLE) + HOURS_PER_CIRCLE) % HOURS_PER_CIRCLE;
+  let r = h % HOURS_PER_CIRCLE;
+  if (r < 0) r += HOURS_PER_CIRCLE;
   return r >= HOURS_PER_CIRCLE || Object.is(r, -0) ? 0 : r;
 }
 

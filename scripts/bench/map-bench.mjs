@@ -10,6 +10,7 @@
 // after the machine has gone quiet (≥ 80% CPU idle over a second, or 90 s at most).
 // Frames are not throttled to 60 Hz (--disable-frame-rate-limit --disable-gpu-vsync), so the
 // two-frame wait measures work, not the time left until the next vsync. Median of 30 each.
+// The taps must not write anything: the step fails if the page sends a POST/PATCH/DELETE then.
 // Run: node scripts/bench/map-bench.mjs <base-url> <prepare.json>
 import { execFileSync } from "node:child_process";
 import { mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
@@ -137,8 +138,16 @@ try {
   const idleBeforeApp = await quiet();
   // One warm-up pass of each, so code paths are compiled before the timed rounds (same on the floor below).
   await page.evaluate(timeInPage, { kind: "tap", rounds: 3, turnSelector: '[aria-label="Clock numbering"] [role="radio"]' });
+  // A tap selects; it must not write. (One did: lesions off the half-hour grid were saved again
+  // with their clock values off by a rounding error, and every such tap re-rendered the map.)
+  const writes = [];
+  const onRequest = (r) => { if (r.method() !== "GET" && r.method() !== "HEAD") writes.push(`${r.method()} ${new URL(r.url()).pathname}`); };
+  page.on("request", onRequest);
   const appTap = await page.evaluate(timeInPage, { kind: "tap", rounds: ROUNDS, turnSelector: "" });
   const appInspect = await page.evaluate(timeInPage, { kind: "inspect", rounds: ROUNDS, turnSelector: "" });
+  await page.waitForLoadState("networkidle");
+  page.off("request", onRequest);
+  if (writes.length) throw new Error(`taps on lesions sent ${writes.length} writes, e.g. ${writes[0]}`);
   const appRe = await page.evaluate(timeInPage, { kind: "rerender", rounds: ROUNDS, turnSelector: '[aria-label="Clock numbering"] [role="radio"]' });
   const selectedOk = await page.evaluate(() => document.querySelectorAll('g[data-lesion-id][aria-pressed="true"]').length === 1);
 
@@ -146,6 +155,7 @@ try {
     lesions: 200,
     rounds: ROUNDS,
     selectionWorked: selectedOk,
+    writesDuringTaps: writes.length,
     // Share of CPU idle just before each page was timed (the wait aims for ≥ 0.8).
     idleBefore: { floor: idleBeforeFloor, app: idleBeforeApp },
     tap: { appMedianMs: median(appTap), appP95Ms: p95(appTap), floorMedianMs: median(floorTap), floorP95Ms: p95(floorTap) },

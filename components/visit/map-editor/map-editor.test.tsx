@@ -137,6 +137,41 @@ describe("MapEditor: gestures and keys", () => {
     expect(container.querySelector("[data-selection-ring]")).toBeNull();
   });
 
+  // A lesion whose stored values lie off the editor's half-hour grid (typed into the form, or
+  // from an import): 6.29 h is not exact in binary floating point, so recomputing it (6.29 + 12,
+  // then the remainder) gives 6.289999999999999. Such a tap once saved the lesion again.
+  const offGrid: MapLesion = { id: "l1", label: "L1", grade: "hsil", treated: false, biopsyLabels: [], clockStartH: 6.29, clockEndH: 7.09, distanceStartCm: 1, distanceEndCm: 2 };
+  for (const conv of ["lithotomy", "prone_jackknife"] as const) {
+    it(`${conv}: a tap on a lesion selects it and saves nothing, even off the grid`, () => {
+      const selection = createSelectionStore();
+      const { props } = setup({ lesions: [offGrid], selection, convention: conv });
+      const shape = screen.getByRole("button", { name: /^L1: HSIL/ });
+      const at = screenAt(toDisplayHours(6.69, conv), 1.5);
+      fireEvent.pointerDown(shape, { ...at, pointerId: 1, button: 0, pointerType: "touch" });
+      fireEvent.pointerUp(shape, { ...at, pointerId: 1, button: 0, pointerType: "touch" });
+      expect(props.onSelect).toHaveBeenCalledWith("l1");
+      expect(props.onChange).not.toHaveBeenCalled();
+      expect(props.onCreate).not.toHaveBeenCalled();
+    });
+  }
+
+  it("a tap on a handle (a finger's wobble, under 4 px) changes nothing; a drag of a handle does", () => {
+    const { container, props } = setup({ lesions: [offGrid], selection: createSelectionStore("l1") });
+    const start = container.querySelector('[data-handle="start"]')!;
+    const at = screenAt(6.29, 1.5);
+    const opts = { pointerId: 1, button: 0, pointerType: "touch" };
+    fireEvent.pointerDown(start, { ...at, ...opts });
+    fireEvent.pointerMove(start, { clientX: at.clientX + 2, clientY: at.clientY + 1, ...opts });
+    fireEvent.pointerUp(start, { clientX: at.clientX + 2, clientY: at.clientY + 1, ...opts });
+    expect(props.onChange).not.toHaveBeenCalled();
+    // Dragged to 5 o'clock: the arc's start snaps there (half-hour grid), the rest stays.
+    fireEvent.pointerDown(start, { ...at, ...opts });
+    fireEvent.pointerMove(start, { ...screenAt(5.5, 1.5), ...opts });
+    fireEvent.pointerUp(start, { ...screenAt(5, 1.5), ...opts });
+    expect(props.onChange).toHaveBeenCalledTimes(1);
+    expect(props.onChange).toHaveBeenCalledWith("l1", { clockStartH: 5, clockEndH: 7.09, distanceStartCm: 1, distanceEndCm: 2 });
+  });
+
   it("read-only: a tap places nothing and keys change nothing", () => {
     const lesion: MapLesion = { id: "l1", label: "L1", grade: "lsil", treated: false, biopsyLabels: [], clockStartH: 3, clockEndH: 4, distanceStartCm: 1, distanceEndCm: 2 };
     const { svg, props } = setup({ readOnly: true, lesions: [lesion] });

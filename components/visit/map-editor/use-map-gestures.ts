@@ -14,6 +14,10 @@ type Gesture =
 interface Active {
   gesture: Gesture;
   pointerId: number;
+  /** Where the pointer went down, in CSS pixels, and whether it has since travelled. */
+  downX: number;
+  downY: number;
+  travelled: boolean;
   anchorDisplayH: number;
   anchorCm: number;
   lastDisplayH: number;
@@ -33,6 +37,12 @@ interface Options {
 
 /** Taps beyond the drawn face (on the numbers and labels) do not place anything. */
 const FACE_SLACK = 14;
+/**
+ * A press on a lesion or a handle that travels less than this (CSS px) is a tap: it selects
+ * and changes nothing, even where the lesion lies off the editor's grid and a drag of zero
+ * steps would snap it.
+ */
+const TAP_SLOP_PX = 4;
 
 export function useMapGestures({ svgRef, conv, enabled, onCreate, onChange }: Options) {
   const active = useRef<Active | null>(null);
@@ -54,7 +64,7 @@ export function useMapGestures({ svgRef, conv, enabled, onCreate, onChange }: Op
       const at = locate(e);
       if (!at) return false;
       if (gesture.kind === "create" && at.r > OUTER_RADIUS + FACE_SLACK) return false;
-      active.current = { gesture, pointerId: e.pointerId, anchorDisplayH: at.displayH, anchorCm: at.cm, lastDisplayH: at.displayH, sweepH: 0, extent: null };
+      active.current = { gesture, pointerId: e.pointerId, downX: e.clientX, downY: e.clientY, travelled: false, anchorDisplayH: at.displayH, anchorCm: at.cm, lastDisplayH: at.displayH, sweepH: 0, extent: null };
       try {
         svgRef.current?.setPointerCapture?.(e.pointerId);
       } catch {
@@ -74,6 +84,8 @@ export function useMapGestures({ svgRef, conv, enabled, onCreate, onChange }: Op
     (e: PointerEvent) => {
       const a = active.current;
       if (!a || e.pointerId !== a.pointerId) return;
+      if (!a.travelled && Math.hypot(e.clientX - a.downX, e.clientY - a.downY) < TAP_SLOP_PX && a.gesture.kind !== "create") return;
+      a.travelled = true;
       const at = locate(e);
       if (!at) return;
       a.sweepH += turnH(a.lastDisplayH, at.displayH);
