@@ -39,10 +39,12 @@ export function BiopsiesPanel({ visitId, canEdit, canEnterResults }: { visitId: 
     setError(null);
     try {
       await sendJson("POST", key, body);
-      await Promise.all([mutate(key), mutate(lesionsKey)]);
+      // Cleared as soon as the specimen is stored, before the lists reload: a lesion picked for
+      // the next specimen while they reload must not be wiped when they are done.
       setLesionId("");
       setClock("");
       setDist("");
+      await Promise.all([mutate(key), mutate(lesionsKey)]);
     } catch (err) {
       setError(err instanceof ApiError ? Object.values(err.fields ?? {})[0]?.[0] ?? err.message : "Not saved.");
     } finally {
