@@ -22,6 +22,10 @@ mkdir -p "$PARTS"
 ensure_postgres_installed
 ensure_chromium_installed
 ensure_node_modules
+# A bench cluster someone already had running is left running at the end.
+cluster_paths bench
+CLUSTER_WAS_UP=0
+pg_as_postgres "$PGBIN/pg_ctl" -D "$PGDATA_DIR" status >/dev/null 2>&1 && CLUSTER_WAS_UP=1
 start_cluster bench "$PG_PORT" fast
 ensure_role "$PG_PORT" dentate_bench dentate_bench
 psql_super "$PG_PORT" -d postgres -c "drop database if exists $DB with (force)"
@@ -40,7 +44,7 @@ cleanup() {
   stop_pid "$APP_PID"
   stop_s3_fake
   psql_super "$PG_PORT" -d postgres -c "drop database if exists $DB with (force)" >/dev/null 2>&1 || true
-  stop_cluster bench
+  [ "$CLUSTER_WAS_UP" = 1 ] || stop_cluster bench
 }
 trap cleanup EXIT
 
