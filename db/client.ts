@@ -10,14 +10,29 @@ function databaseUrl(): string {
 }
 
 // Query listeners: instrumentation (slow-query logging, query counting in tests and benchmarks).
+// postgres.js's `debug` hook, which calls them, is installed only while one listens: with it the
+// driver also captures a stack trace (an Error) for every query it builds, a measurable share of a
+// request's CPU (npm run bench, API under load), and makes a failed query's parameters enumerable
+// (so they would be printed with the error).
 const queryListeners = new Set<(query: string) => void>();
+const callListeners = (_connection: number, query: string) => {
+  for (const l of queryListeners) l(query);
+};
+function applyListeners(p: postgres.Sql | null): void {
+  // The driver reads the option as each query is built, so a change applies to the next query.
+  if (p) (p.options as { debug: unknown }).debug = queryListeners.size ? callListeners : false;
+}
 export function onQuery(listener: (query: string) => void): () => void {
   queryListeners.add(listener);
-  return () => queryListeners.delete(listener);
+  applyListeners(current);
+  return () => {
+    queryListeners.delete(listener);
+    applyListeners(current);
+  };
 }
 
 function openPool(): postgres.Sql {
-  return postgres(databaseUrl(), {
+  const p = postgres(databaseUrl(), {
     max: Number(process.env.DATABASE_POOL_MAX ?? 10),
     idle_timeout: 30,
     connect_timeout: 5,
@@ -28,10 +43,9 @@ function openPool(): postgres.Sql {
     backoff: (attempt: number) => Math.min(0.05 * 2 ** attempt, 1),
     onnotice: () => {},
     onclose: () => schedulePoolSwap(),
-    debug: (_connection, query) => {
-      for (const l of queryListeners) l(query);
-    },
   });
+  applyListeners(p);
+  return p;
 }
 
 // postgres.js 3.4.x can leave a pooled connection unusable after the server goes away mid-

@@ -52,12 +52,19 @@ function firstSeenDate(track: TrackHistory): string | null {
  * Any grade above benign counts as disease here, matching the rest of the tracking rules.
  */
 export function withMetachronousContext(tracks: readonly TrackHistory[]): TrackHistory[] {
+  // Each track's earliest diseased sighting, worked out once (not once per pair of tracks): some
+  // sighting of another track lies before this one's first exactly when its earliest one does.
+  const earliestDisease = tracks.map((t) => {
+    let min: string | null = null;
+    for (const d of diseasedDates(t)) if (min === null || d < min) min = d;
+    return min;
+  });
   return tracks.map((track) => {
     if (track.earlierDiseaseElsewhere !== undefined) return track;
     const first = firstSeenDate(track);
     const earlier =
       first !== null &&
-      tracks.some((other) => other.trackId !== track.trackId && diseasedDates(other).some((d) => d < first));
+      tracks.some((other, i) => other.trackId !== track.trackId && earliestDisease[i] !== null && earliestDisease[i]! < first);
     return { ...track, earlierDiseaseElsewhere: earlier };
   });
 }
