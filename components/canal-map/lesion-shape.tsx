@@ -2,7 +2,7 @@ import { memo, useMemo, type KeyboardEvent, type PointerEvent } from "react";
 import { describeSite, type DisplayConvention } from "@/lib/geometry";
 import type { LesionDto } from "@/lib/validation/lesions";
 import { BIOPSY_TAG, GRADE_ENCODING, SELECTION_RING, TREATED_MARK, UNSAVED_MARK } from "./encoding";
-import { centreOf, isPointLesion, pointOfSite, polar, radiusOfCm, sectorOf, sectorPath } from "./map-geometry";
+import { angleOf, centreOf, isPointLesion, pointOfSite, polar, radiusOfCm, sectorOf, sectorPath } from "./map-geometry";
 import { patternId } from "./patterns";
 import { useIsSelected, useSelectedLesion, type SelectionStore } from "./selection";
 
@@ -31,41 +31,36 @@ const FOCUS_STROKE = 9;
 /** The frame lesions are drawn in before the layer is turned: lithotomy numbering is the stored one. */
 const STORED_FRAME: DisplayConvention = "lithotomy";
 
-/** Where a lesion is drawn, in the stored frame: point or sector, and its centre. */
-function placeOf(lesion: MapLesion) {
-  const point = isPointLesion(lesion);
-  const centre = centreOf(lesion);
-  return { point, c: pointOfSite(centre.storedH, centre.cm, STORED_FRAME), geo: sectorOf(lesion, STORED_FRAME) };
-}
-
 /** The body's outlines (the path strings, the costly part), for the lesion layer only. */
 function useShapeGeometry(lesion: MapLesion): ShapeGeometry {
   return useMemo(() => {
-    const { point, c, geo } = placeOf(lesion);
+    const point = isPointLesion(lesion);
+    const centre = centreOf(lesion);
+    const c = pointOfSite(centre.storedH, centre.cm, STORED_FRAME);
+    const geo = sectorOf(lesion, STORED_FRAME);
     const body = point ? null : sectorPath(geo) ?? "";
     const halo = point || !lesion.treated ? null : sectorPath(sectorOf(lesion, STORED_FRAME, TREATED_MARK.haloPx)) ?? "";
     return { point, c, body, halo };
   }, [lesion]);
 }
 
-/** Where the marks sit, in the stored frame: no path strings, for the marks layers. */
+/**
+ * Where the marks sit, as angle and radius in the stored frame (no path strings): a marks layer
+ * adds its turn to the angle, since the lesion layer is turned about the same centre.
+ */
 function useMarkAnchors(lesion: MapLesion) {
   return useMemo(() => {
-    const { point, c, geo } = placeOf(lesion);
+    const point = isPointLesion(lesion);
+    const centre = centreOf(lesion);
+    const geo = sectorOf(lesion, STORED_FRAME);
     const mid = (geo.startAngle + geo.endAngle) / 2;
-    const outerEdge = point ? c : polar(mid, geo.outerRadius + TREATED_MARK.haloPx + 8);
-    const innerEdge = point ? c : polar(mid, Math.max(geo.innerRadius - 14, radiusOfCm(8)));
-    return { point, c, outerEdge, innerEdge };
+    return {
+      point,
+      c: { angle: angleOf(centre.storedH, STORED_FRAME), r: radiusOfCm(centre.cm) },
+      outerEdge: { angle: mid, r: geo.outerRadius + TREATED_MARK.haloPx + 8 },
+      innerEdge: { angle: mid, r: Math.max(geo.innerRadius - 14, radiusOfCm(8)) },
+    };
   }, [lesion]);
-}
-
-/** A stored-frame point turned by the layer's turn (degrees clockwise on screen). */
-function turned(p: { x: number; y: number }, turnDeg: number): { x: number; y: number } {
-  if (!turnDeg) return p;
-  const a = (turnDeg * Math.PI) / 180;
-  const cos = Math.cos(a);
-  const sin = Math.sin(a);
-  return { x: p.x * cos - p.y * sin, y: p.x * sin + p.y * cos };
 }
 
 interface BodyProps {
@@ -116,9 +111,11 @@ function LesionBodyInner({ lesion, conv, prefix, selection, saveState, focusable
  */
 function LesionMarksInner({ lesion, turnDeg, saveState }: { lesion: MapLesion; turnDeg: number; saveState?: LesionSaveState }) {
   const shape = useMarkAnchors(lesion);
-  const c = turned(shape.c, turnDeg);
-  const outer = shape.point ? { x: c.x, y: c.y - POINT_RADIUS - 8 } : turned(shape.outerEdge, turnDeg);
-  const inner = shape.point ? { x: c.x + POINT_RADIUS + 12, y: c.y } : turned(shape.innerEdge, turnDeg);
+  const turn = (turnDeg * Math.PI) / 180;
+  const at = ({ angle, r }: { angle: number; r: number }) => polar(angle + turn, r);
+  const c = at(shape.c);
+  const outer = shape.point ? { x: c.x, y: c.y - POINT_RADIUS - 8 } : at(shape.outerEdge);
+  const inner = shape.point ? { x: c.x + POINT_RADIUS + 12, y: c.y } : at(shape.innerEdge);
   const labelAt = shape.point ? { x: c.x, y: c.y - POINT_RADIUS - 6 } : { x: c.x, y: c.y + 5 };
   const tagText = lesion.biopsyLabels.join("");
   return (
@@ -146,7 +143,7 @@ type ShapeGeometry = { point: boolean; c: { x: number; y: number }; body: string
 /**
  * What is drawn inside the lesion's button: hit area, treated halo, the graded body, the focus
  * ring. Memoised without the convention and the selection (the ring of the selected lesion is
- * drawn by CanalMap on the marks layer): neither a tap nor a change of numbering touches it.
+ * drawn by CanalMap on the selection layer): neither a tap nor a change of numbering touches it.
  */
 const ShapeBody = memo(function ShapeBody({ lesion, shape, prefix, saveState }: { lesion: MapLesion; shape: ShapeGeometry; prefix: string; saveState?: LesionSaveState }) {
   const enc = GRADE_ENCODING[lesion.grade];

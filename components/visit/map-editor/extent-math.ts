@@ -64,8 +64,6 @@ export function moveExtent(e: MapExtent, dH: number, dCm: number): MapExtent {
   const lo = Math.min(e.distanceStartCm, e.distanceEndCm);
   const hi = Math.max(e.distanceStartCm, e.distanceEndCm);
   c = Math.min(MAX_CM - hi, Math.max(MIN_CM - lo, c));
-  // No whole step either way: the lesion stays exactly where it is (not recomputed in floats).
-  if (h === 0 && c === 0) return e;
   return {
     clockStartH: normalizeHours(e.clockStartH + h),
     clockEndH: normalizeHours(e.clockEndH + h),
