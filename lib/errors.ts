@@ -64,8 +64,10 @@ const DB_DOWN_CODES = new Set(["ECONNREFUSED", "ECONNRESET", "CONNECT_TIMEOUT", 
 // connection to a host with several addresses is an AggregateError), so look a few levels deep.
 export function isDatabaseDown(err: unknown, depth = 0): boolean {
   if (!err || typeof err !== "object" || depth > 4) return false;
-  const e = err as { code?: unknown; cause?: unknown; errors?: unknown };
+  const e = err as { code?: unknown; syscall?: unknown; cause?: unknown; errors?: unknown };
   if (typeof e.code === "string" && DB_DOWN_CODES.has(e.code)) return true;
+  // Through a Unix socket (DATABASE_SOCKET_DIR), a stopped server has removed its socket file.
+  if (e.code === "ENOENT" && e.syscall === "connect") return true;
   if (Array.isArray(e.errors) && e.errors.some((inner) => isDatabaseDown(inner, depth + 1))) return true;
   return isDatabaseDown(e.cause, depth + 1);
 }

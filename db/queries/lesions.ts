@@ -4,9 +4,9 @@ import { and, asc, eq, sql as dsql } from "drizzle-orm";
 import { db, prepared, type Tx } from "../client";
 import { biopsies, lesions, lesionTracks, treatments } from "../schema";
 import { inScopeParam, siteIdsParam, type SiteScope } from "./scope";
-import { loadVisit, lockDraftVisit, lockDraftVisitForLesion } from "./visit-access";
+import { loadVisit, loadVisitAudited, lockDraftVisit, lockDraftVisitForLesion } from "./visit-access";
 import { refreshTrackStatuses } from "./tracking";
-import { recordAudit } from "./audit";
+import { recordAudit, type AuditInput } from "./audit";
 import { AppError } from "@/lib/errors";
 import { HISTOLOGY, type Histology } from "@/lib/domain/vocab";
 import { DEFAULT_ZONE_BOUNDS, zoneBoundsSchema, zoneForDistance, type ZoneBounds } from "@/lib/geometry/zones";
@@ -60,10 +60,14 @@ const lesionsOfVisit = prepared((run) =>
 );
 const lesionById = prepared((run) => selectLesions(run).where(eq(lesions.id, dsql.placeholder("id"))));
 
-export async function listLesionsForVisit(scope: SiteScope, visitId: string): Promise<VisitMapDto> {
+/**
+ * A visit's map. With `audit`, the read is recorded (entity: the visit) by the statement that reads
+ * the visit, when the visit is in scope.
+ */
+export async function listLesionsForVisit(scope: SiteScope, visitId: string, audit?: Omit<AuditInput, "siteId" | "patientId" | "entityId">): Promise<VisitMapDto> {
   // The lesions are read beside the visit, filtered by the same site scope; kept only if the visit is.
   const [visit, rows] = await Promise.all([
-    loadVisit(db, scope, visitId),
+    audit ? loadVisitAudited(db, scope, visitId, audit) : loadVisit(db, scope, visitId),
     lesionsOfVisit(db, { visitId, siteIds: siteIdsParam(scope) }),
   ]);
   return {
@@ -135,13 +139,17 @@ const lesionByClientKey = prepared((run) =>
 export async function createLesion(scope: SiteScope, visitId: string, input: CreateLesionInput, ip: string): Promise<LesionDto> {
   return db.transaction(async (tx) => {
     // Track labels are per patient: the patient is locked with the visit so two visits cannot take the same label.
-    const { visit } = await lockDraftVisitForLesion(tx, scope, visitId, { lockPatient: true });
-    // The same create sent again (its first answer was lost): answer with the lesion it made.
-    // The visit lock above orders two such requests, so the second sees the first's row.
-    if (input.clientKey) {
-      const [made] = await lesionByClientKey(tx, { visitId: visit.id, clientKey: input.clientKey });
-      if (made) return fetchOne(tx, made.id);
-    }
+    // The same create sent again (its first answer was lost) is answered with the lesion it made.
+    // The client-key lookup goes out in the same round trip, right behind the lock on the
+    // transaction's one connection, as a statement of its own: PostgreSQL runs it after the lock
+    // is held, with a fresh snapshot (READ COMMITTED), so of two such requests the second sees the
+    // first's row. (Inside the locking statement it would read the snapshot from before the wait.)
+    // Its answer is used only once the lock has found the visit in the caller's scope.
+    const [{ visit }, made] = await Promise.all([
+      lockDraftVisitForLesion(tx, scope, visitId, { lockPatient: true }),
+      input.clientKey ? lesionByClientKey(tx, { visitId, clientKey: input.clientKey }).then((rows) => rows[0]) : undefined,
+    ]);
+    if (made) return fetchOne(tx, made.id);
     const zone = zoneFor(boundsOf(visit.zoneBounds), input.distanceStartCm, input.distanceEndCm);
     const trackId = randomUUID();
     const lesionId = randomUUID();

@@ -4,7 +4,7 @@ import { db, prepared } from "../client";
 import { adjudications, biopsies, lesions, lesionTracks, patients, reviews, trackChecks, trackStatuses, treatments, users, visits } from "../schema";
 import { inScopeParam, siteIdsParam, type SiteScope } from "./scope";
 import { rowsOf } from "./json-rows";
-import { recordAudit, type AuditInput } from "./audit";
+import { auditOfRead, auditReadValues, type AuditInput } from "./audit";
 import { AppError } from "@/lib/errors";
 import { HISTOLOGY, HISTOLOGY_AS_GRADE, type Grade, type Histology } from "@/lib/domain/vocab";
 import { unionLengthH } from "@/lib/geometry/arcs";
@@ -19,10 +19,16 @@ type Adjudication = typeof adjudications.$inferSelect;
 
 const ofPatient = eq(visits.patientId, patients.id);
 
+const patientInScope = and(eq(patients.id, dsql.placeholder("patientId")), inScopeParam(patients.siteId));
+
 // The patient in the caller's scope and everything the timeline shows of them, in one statement
 // built once: each list is a JSON array (json-rows.ts), read only when the patient row is in scope.
-const timelineOf = prepared((run) =>
-  run
+// The audited form also writes the read's audit row (auditOfRead), in the same statement.
+const timelineSelect = (run: Parameters<Parameters<typeof prepared>[0]>[0], audited: boolean) =>
+  (audited
+    ? run.with(auditOfRead(run, { siteId: dsql`${patients.siteId}`, patientId: dsql`${patients.id}`, entityId: dsql`${dsql.placeholder("auditEntityId")}::text` }, dsql`from ${patients} where ${patientInScope}`))
+    : run
+  )
     .select({
       id: patients.id,
       siteId: patients.siteId,
@@ -65,18 +71,20 @@ const timelineOf = prepared((run) =>
       ),
     })
     .from(patients)
-    .where(and(eq(patients.id, dsql.placeholder("patientId")), inScopeParam(patients.siteId))),
-);
+    .where(patientInScope);
+const timelineOf = prepared((run) => timelineSelect(run, false));
+const timelineAudited = prepared((run) => timelineSelect(run, true));
 
 /**
  * Everything the timeline and compare screens need for one patient, in one statement whatever the
- * number of visits and lesions (the patient in scope, and the lists only if it is). The read is
- * audited (`audit`, completed with the patient) once the patient is known.
+ * number of visits and lesions (the patient in scope, and the lists only if it is). With `audit`,
+ * the same statement records the read (completed with the patient's site and id) when the patient
+ * is in scope.
  */
 export async function loadTimeline(scope: SiteScope, patientId: string, audit?: Omit<AuditInput, "siteId" | "patientId">) {
-  const [patient] = await timelineOf(db, { patientId, siteIds: siteIdsParam(scope) });
+  const values = { patientId, siteIds: siteIdsParam(scope) };
+  const [patient] = await (audit ? timelineAudited(db, { ...values, ...auditReadValues(audit), auditEntityId: audit.entityId ?? null }) : timelineOf(db, values));
   if (!patient) throw new AppError("not_found");
-  if (audit) await recordAudit({ ...audit, siteId: patient.siteId, patientId: patient.id });
 
   const visitRows = patient.visits.map(([id, visitDate, status, patientPosition, examiner, examinerId]) => ({ id, visitDate, status, patientPosition, examiner, examinerId }));
   const trackRows = patient.tracks.map(([id, label]) => ({ id, label }));

@@ -3,6 +3,7 @@ import { and, eq, sql as dsql } from "drizzle-orm";
 import { lesions, patients, sites, visits } from "../schema";
 import { prepared, type Db, type Tx } from "../client";
 import { inScopeParam, siteIdsParam, type SiteScope } from "./scope";
+import { auditOfRead, auditReadValues, type AuditInput } from "./audit";
 import { AppError } from "@/lib/errors";
 
 const visitColumns = {
@@ -23,11 +24,31 @@ const visitInScope = and(eq(visits.id, dsql.placeholder("visitId")), inScopePara
 const visitHeader = prepared((run) => run.select(visitColumns).from(visits).where(visitInScope).limit(1));
 const visitHeaderForUpdate = prepared((run) => run.select(visitColumns).from(visits).where(visitInScope).for("update").limit(1));
 
+// The same, also writing the read's audit row (auditOfRead) when the visit is in scope.
+const visitHeaderAudited = prepared((run) =>
+  run
+    .with(auditOfRead(run, { siteId: dsql`${visits.siteId}`, patientId: dsql`${visits.patientId}`, entityId: dsql`${visits.id}::text` }, dsql`from ${visits} where ${visitInScope}`))
+    .select(visitColumns)
+    .from(visits)
+    .where(visitInScope)
+    .limit(1),
+);
+
 export type VisitHeader = Awaited<ReturnType<typeof loadVisit>>;
 
 /** A visit the caller's sites may see, or not_found. */
 export async function loadVisit(run: Db | Tx, scope: SiteScope, visitId: string) {
   const [v] = await visitHeader(run, { visitId, siteIds: siteIdsParam(scope) });
+  if (!v) throw new AppError("not_found");
+  return v;
+}
+
+/**
+ * loadVisit, and the read recorded in the audit log by the same statement (the visit's site,
+ * patient and id completed from the row), only when the visit is in scope.
+ */
+export async function loadVisitAudited(run: Db | Tx, scope: SiteScope, visitId: string, audit: Omit<AuditInput, "siteId" | "patientId" | "entityId">) {
+  const [v] = await visitHeaderAudited(run, { visitId, siteIds: siteIdsParam(scope), ...auditReadValues(audit) });
   if (!v) throw new AppError("not_found");
   return v;
 }

@@ -1,6 +1,6 @@
 import { beforeAll, describe, expect, it } from "vitest";
 import { count, eq } from "drizzle-orm";
-import { db } from "@/db/client";
+import { db, sql } from "@/db/client";
 import { auditEvents, lesions, lesionTracks, trackStatuses, visits } from "@/db/schema";
 import { GET, POST } from "@/app/api/visits/[visitId]/lesions/route";
 import { DELETE, PATCH } from "@/app/api/visits/[visitId]/lesions/[lesionId]/route";
@@ -95,6 +95,31 @@ describe("lesions route", () => {
     const other = await POST(req("POST", `/api/visits/${visitId}/lesions`, clinician, { ...body, clientKey: "0b6f3a2e-8d4c-4f1a-b7e9-5c2d1a0f9e83" }), ctx({ visitId }));
     expect(other.status).toBe(201);
     expect((await other.json()).lesion.id).not.toBe(a.id);
+  });
+
+  it("makes a create sent twice at the same moment with one client key once: both answers name the same lesion", async () => {
+    // The retry can overtake the first attempt's answer (common practice for safe retries of a POST,
+    // no source). The second request waits on the visit lock, then looks the key up afresh.
+    const clientKey = "3f1c2b8e-6a4d-4e7f-9b2a-1d5c8e0f7a46";
+    const before = await lesionCount(visitId);
+    const send = () => POST(req("POST", `/api/visits/${visitId}/lesions`, clinician, { ...body, clientKey }), ctx({ visitId }));
+    // Another transaction holds the visit row, so both requests are surely in flight together:
+    // each waits on the lock, then they take it in turn.
+    const holder = await sql.reserve();
+    await holder`begin`;
+    await holder`select 1 from visits where id = ${visitId} for update`;
+    const sent = Promise.all([send(), send()]);
+    const waiting = async () => (await sql<{ n: number }[]>`select count(*)::int as n from pg_stat_activity where datname = current_database() and wait_event_type = 'Lock'`)[0]!.n;
+    for (let i = 0; i < 100 && (await waiting()) < 2; i++) await new Promise((r) => setTimeout(r, 50));
+    await holder`commit`;
+    holder.release();
+    const [first, again] = await sent;
+    expect([first.status, again.status]).toEqual([201, 201]);
+    const [a, b] = [(await first.json()).lesion, (await again.json()).lesion];
+    expect(b.id).toBe(a.id);
+    expect(await lesionCount(visitId)).toBe(before + 1);
+    const audits = await db.select().from(auditEvents).where(eq(auditEvents.entityId, a.id));
+    expect(audits.filter((e) => e.action === "lesion.create")).toHaveLength(1);
   });
 
   it("answers 400 with field messages for bad input and writes nothing", async () => {

@@ -1,5 +1,4 @@
 import { createLesion, listLesionsForVisit } from "@/db/queries/lesions";
-import { recordAudit } from "@/db/queries/audit";
 import { scopeOf } from "@/lib/auth/guard";
 import { idParam, json, readJson, route } from "@/lib/http/route";
 import { createLesionSchema } from "@/lib/validation/lesions";
@@ -7,9 +6,8 @@ import { createLesionSchema } from "@/lib/validation/lesions";
 type P = { visitId: string };
 
 export const GET = route<P>({ roles: ["clinician", "reviewer", "research_nurse", "admin"] }, async ({ user, params, ip }) => {
-  const data = await listLesionsForVisit(scopeOf(user), idParam(params.visitId));
-  await recordAudit({ userId: user.id, patientId: data.visit.patientId, action: "visit.map.read", entityType: "visit", entityId: data.visit.id, ip });
-  return data;
+  // The read is audited by the statement that reads the visit.
+  return listLesionsForVisit(scopeOf(user), idParam(params.visitId), { userId: user.id, action: "visit.map.read", entityType: "visit", ip });
 });
 
 export const POST = route<P>({ roles: ["clinician"] }, async ({ req, user, params, ip }) => {
