@@ -14,56 +14,56 @@ export interface AuditInput {
   detail?: Record<string, unknown>;
 }
 
-// Built once: nearly every request writes one. The detail goes in as JSON text (a null stays SQL NULL).
+/** The read of a record, audited by `auditOfRead`: site, patient and entity come from the record's row. */
+export type ReadAudit = Omit<AuditInput, "siteId" | "patientId" | "entityId">;
+
+const ph = (name: string) => dsql.placeholder(name);
+
+/**
+ * One event's values, named as the placeholders of both audit statements (`insertAudit` and
+ * `auditOfRead`, which takes what it needs). The detail goes in as JSON text (a null stays SQL NULL).
+ */
+export function auditValues(e: AuditInput) {
+  return {
+    auditUserId: e.userId ?? null,
+    auditSiteId: e.siteId ?? null,
+    auditPatientId: e.patientId ?? null,
+    auditAction: e.action,
+    auditEntityType: e.entityType ?? null,
+    auditEntityId: e.entityId ?? null,
+    auditIp: e.ip ?? null,
+    auditDetail: e.detail == null ? null : JSON.stringify(e.detail),
+  };
+}
+
+// Built once: nearly every request writes one.
 const insertAudit = prepared((run) =>
   run.insert(auditEvents).values({
-    userId: dsql.placeholder("userId"),
-    siteId: dsql.placeholder("siteId"),
-    patientId: dsql.placeholder("patientId"),
-    action: dsql.placeholder("action"),
-    entityType: dsql.placeholder("entityType"),
-    entityId: dsql.placeholder("entityId"),
-    ip: dsql.placeholder("ip"),
-    detail: dsql`${dsql.placeholder("detail")}::jsonb`,
+    userId: ph("auditUserId"),
+    siteId: ph("auditSiteId"),
+    patientId: ph("auditPatientId"),
+    action: ph("auditAction"),
+    entityType: ph("auditEntityType"),
+    entityId: ph("auditEntityId"),
+    ip: ph("auditIp"),
+    detail: dsql`${ph("auditDetail")}::jsonb`,
   }),
 );
 
 /** Pass the transaction when the event belongs to a change, so both commit or neither does. */
 export async function recordAudit(e: AuditInput, run: Db | Tx = db): Promise<void> {
-  await insertAudit(run, {
-    userId: e.userId ?? null,
-    siteId: e.siteId ?? null,
-    patientId: e.patientId ?? null,
-    action: e.action,
-    entityType: e.entityType ?? null,
-    entityId: e.entityId ?? null,
-    ip: e.ip ?? null,
-    detail: e.detail == null ? null : JSON.stringify(e.detail),
-  });
+  await insertAudit(run, auditValues(e));
 }
-
-const ph = (name: string) => dsql.placeholder(name);
 
 /**
  * The audit of a read, written by the reading statement itself: a data-modifying CTE, used as
  * `run.with(auditOfRead(run, …)).select(…)`, that inserts one row for each row `source` yields
  * (`from … where …`: the record, filtered by the caller's scope) and nothing when the record is
  * not there or not in scope. The read and its audit are then one statement, committed together.
- * `row` gives the record's columns; the caller's values go in as `auditReadValues(audit)`.
+ * `row` gives the record's columns; the caller's values go in as `auditValues(audit)`.
  */
 export function auditOfRead(run: Db | Tx, row: { siteId: SQL; patientId: SQL; entityId: SQL }, source: SQL) {
   return run.$with("audit_of_read", {}).as(
     dsql`insert into ${auditEvents} (user_id, site_id, patient_id, action, entity_type, entity_id, ip, detail) select ${ph("auditUserId")}::text, ${row.siteId}, ${row.patientId}, ${ph("auditAction")}::text, ${ph("auditEntityType")}::text, ${row.entityId}, ${ph("auditIp")}::text, ${ph("auditDetail")}::jsonb ${source}`,
   );
-}
-
-/** The placeholder values of `auditOfRead` for this event (site, patient and entity come from the row). */
-export function auditReadValues(e: Omit<AuditInput, "siteId" | "patientId" | "entityId">) {
-  return {
-    auditUserId: e.userId ?? null,
-    auditAction: e.action,
-    auditEntityType: e.entityType ?? null,
-    auditIp: e.ip ?? null,
-    auditDetail: e.detail == null ? null : JSON.stringify(e.detail),
-  };
 }

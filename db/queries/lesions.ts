@@ -4,9 +4,9 @@ import { and, asc, eq, sql as dsql } from "drizzle-orm";
 import { db, prepared, type Tx } from "../client";
 import { biopsies, lesions, lesionTracks, treatments } from "../schema";
 import { inScopeParam, siteIdsParam, type SiteScope } from "./scope";
-import { loadVisit, loadVisitAudited, lockDraftVisit, lockDraftVisitForLesion } from "./visit-access";
+import { loadVisitAudited, lockDraftVisit, lockDraftVisitForLesion } from "./visit-access";
 import { refreshTrackStatuses } from "./tracking";
-import { recordAudit, type AuditInput } from "./audit";
+import { recordAudit, type ReadAudit } from "./audit";
 import { AppError } from "@/lib/errors";
 import { HISTOLOGY, type Histology } from "@/lib/domain/vocab";
 import { DEFAULT_ZONE_BOUNDS, zoneBoundsSchema, zoneForDistance, type ZoneBounds } from "@/lib/geometry/zones";
@@ -61,13 +61,13 @@ const lesionsOfVisit = prepared((run) =>
 const lesionById = prepared((run) => selectLesions(run).where(eq(lesions.id, dsql.placeholder("id"))));
 
 /**
- * A visit's map. With `audit`, the read is recorded (entity: the visit) by the statement that reads
+ * A visit's map. The read is recorded (`audit`, entity: the visit) by the statement that reads
  * the visit, when the visit is in scope.
  */
-export async function listLesionsForVisit(scope: SiteScope, visitId: string, audit?: Omit<AuditInput, "siteId" | "patientId" | "entityId">): Promise<VisitMapDto> {
+export async function listLesionsForVisit(scope: SiteScope, visitId: string, audit: ReadAudit): Promise<VisitMapDto> {
   // The lesions are read beside the visit, filtered by the same site scope; kept only if the visit is.
   const [visit, rows] = await Promise.all([
-    audit ? loadVisitAudited(db, scope, visitId, audit) : loadVisit(db, scope, visitId),
+    loadVisitAudited(db, scope, visitId, audit),
     lesionsOfVisit(db, { visitId, siteIds: siteIdsParam(scope) }),
   ]);
   return {

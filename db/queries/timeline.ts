@@ -4,7 +4,7 @@ import { db, prepared } from "../client";
 import { adjudications, biopsies, lesions, lesionTracks, patients, reviews, trackChecks, trackStatuses, treatments, users, visits } from "../schema";
 import { inScopeParam, siteIdsParam, type SiteScope } from "./scope";
 import { rowsOf } from "./json-rows";
-import { auditOfRead, auditReadValues, type AuditInput } from "./audit";
+import { auditOfRead, auditValues, type ReadAudit } from "./audit";
 import { AppError } from "@/lib/errors";
 import { HISTOLOGY, HISTOLOGY_AS_GRADE, type Grade, type Histology } from "@/lib/domain/vocab";
 import { unionLengthH } from "@/lib/geometry/arcs";
@@ -23,12 +23,10 @@ const patientInScope = and(eq(patients.id, dsql.placeholder("patientId")), inSco
 
 // The patient in the caller's scope and everything the timeline shows of them, in one statement
 // built once: each list is a JSON array (json-rows.ts), read only when the patient row is in scope.
-// The audited form also writes the read's audit row (auditOfRead), in the same statement.
-const timelineSelect = (run: Parameters<Parameters<typeof prepared>[0]>[0], audited: boolean) =>
-  (audited
-    ? run.with(auditOfRead(run, { siteId: dsql`${patients.siteId}`, patientId: dsql`${patients.id}`, entityId: dsql`${dsql.placeholder("auditEntityId")}::text` }, dsql`from ${patients} where ${patientInScope}`))
-    : run
-  )
+// The same statement writes the read's audit row (auditOfRead).
+const timelineOf = prepared((run) =>
+  run
+    .with(auditOfRead(run, { siteId: dsql`${patients.siteId}`, patientId: dsql`${patients.id}`, entityId: dsql`null` }, dsql`from ${patients} where ${patientInScope}`))
     .select({
       id: patients.id,
       siteId: patients.siteId,
@@ -71,19 +69,17 @@ const timelineSelect = (run: Parameters<Parameters<typeof prepared>[0]>[0], audi
       ),
     })
     .from(patients)
-    .where(patientInScope);
-const timelineOf = prepared((run) => timelineSelect(run, false));
-const timelineAudited = prepared((run) => timelineSelect(run, true));
+    .where(patientInScope),
+);
 
 /**
  * Everything the timeline and compare screens need for one patient, in one statement whatever the
- * number of visits and lesions (the patient in scope, and the lists only if it is). With `audit`,
- * the same statement records the read (completed with the patient's site and id) when the patient
+ * number of visits and lesions (the patient in scope, and the lists only if it is). The same
+ * statement records the read (`audit`, completed with the patient's site and id) when the patient
  * is in scope.
  */
-export async function loadTimeline(scope: SiteScope, patientId: string, audit?: Omit<AuditInput, "siteId" | "patientId">) {
-  const values = { patientId, siteIds: siteIdsParam(scope) };
-  const [patient] = await (audit ? timelineAudited(db, { ...values, ...auditReadValues(audit), auditEntityId: audit.entityId ?? null }) : timelineOf(db, values));
+export async function loadTimeline(scope: SiteScope, patientId: string, audit: ReadAudit) {
+  const [patient] = await timelineOf(db, { patientId, siteIds: siteIdsParam(scope), ...auditValues(audit) });
   if (!patient) throw new AppError("not_found");
 
   const visitRows = patient.visits.map(([id, visitDate, status, patientPosition, examiner, examinerId]) => ({ id, visitDate, status, patientPosition, examiner, examinerId }));

@@ -3,7 +3,7 @@ import { and, eq, sql as dsql } from "drizzle-orm";
 import { lesions, patients, sites, visits } from "../schema";
 import { prepared, type Db, type Tx } from "../client";
 import { inScopeParam, siteIdsParam, type SiteScope } from "./scope";
-import { auditOfRead, auditReadValues, type AuditInput } from "./audit";
+import { auditOfRead, auditValues, type ReadAudit } from "./audit";
 import { AppError } from "@/lib/errors";
 
 const visitColumns = {
@@ -47,8 +47,8 @@ export async function loadVisit(run: Db | Tx, scope: SiteScope, visitId: string)
  * loadVisit, and the read recorded in the audit log by the same statement (the visit's site,
  * patient and id completed from the row), only when the visit is in scope.
  */
-export async function loadVisitAudited(run: Db | Tx, scope: SiteScope, visitId: string, audit: Omit<AuditInput, "siteId" | "patientId" | "entityId">) {
-  const [v] = await visitHeaderAudited(run, { visitId, siteIds: siteIdsParam(scope), ...auditReadValues(audit) });
+export async function loadVisitAudited(run: Db | Tx, scope: SiteScope, visitId: string, audit: ReadAudit) {
+  const [v] = await visitHeaderAudited(run, { visitId, siteIds: siteIdsParam(scope), ...auditValues(audit) });
   if (!v) throw new AppError("not_found");
   return v;
 }

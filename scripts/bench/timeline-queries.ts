@@ -1,6 +1,7 @@
 // SQL statements the timeline costs for the 30 visits × 40 lesions patient: loadTimeline called
-// directly, every statement counted through db/client's onQuery. postgres.js's pg_catalog type
-// lookups are left out (once per new pool connection, not per request).
+// directly, with the audit of the read the route writes, every statement counted through
+// db/client's onQuery. postgres.js's pg_catalog type lookups are left out (once per new pool
+// connection, not per request).
 // Run: DATABASE_URL=… tsx --conditions=react-server scripts/bench/timeline-queries.ts <prepare.json>
 import { readFileSync } from "node:fs";
 import { onQuery, runScript } from "@/db/client";
@@ -9,12 +10,13 @@ import { loadTimeline } from "@/db/queries/timeline";
 async function main() {
   const prep = JSON.parse(readFileSync(process.argv[2]!, "utf8"));
   const scope = { userId: "u-clin-okafor", siteIds: [prep.siteId as string] };
-  await loadTimeline(scope, prep.timeline.patientId); // warm the pool
+  const audit = { userId: scope.userId, action: "patient.timeline.read", ip: "127.0.0.1" };
+  await loadTimeline(scope, prep.timeline.patientId, audit); // warm the pool
   let queries = 0;
   const stop = onQuery((q) => {
     if (!q.includes("pg_catalog")) queries++;
   });
-  const data = await loadTimeline(scope, prep.timeline.patientId);
+  const data = await loadTimeline(scope, prep.timeline.patientId, audit);
   stop();
   console.log(JSON.stringify({ queries, visits: data.visits.length, lesions: data.lesions.length }));
 }

@@ -84,7 +84,7 @@ export function useMapGestures({ svgRef, conv, enabled, onCreate, onChange }: Op
     (e: PointerEvent) => {
       const a = active.current;
       if (!a || e.pointerId !== a.pointerId) return;
-      if (!a.travelled && Math.hypot(e.clientX - a.downX, e.clientY - a.downY) < TAP_SLOP_PX && a.gesture.kind !== "create") return;
+      if (a.gesture.kind !== "create" && !a.travelled && Math.hypot(e.clientX - a.downX, e.clientY - a.downY) < TAP_SLOP_PX) return;
       a.travelled = true;
       const at = locate(e);
       if (!at) return;
