@@ -199,6 +199,11 @@ export async function updateLesion(scope: SiteScope, visitId: string, lesionId: 
     const end = fields.distanceEndCm ?? current.distanceEndCm;
     if (start > end) throw new AppError("invalid", undefined, { distanceEndCm: ["The distance range must run from the lower to the higher value."] });
     const zone = zoneFor(boundsOf(visit.zoneBounds), start, end);
+    // Track statuses are worked out from each lesion's grade and track, and from the patient's
+    // visits, biopsies, treatments and track checks, which a lesion update does not touch. Moving
+    // an extent or editing a description leaves them as they are: they are worked out again only
+    // when the grade or the track changes.
+    const statusesMayChange = (fields.grade !== undefined && fields.grade !== current.grade) || (trackId !== undefined && trackId !== current.trackId);
     // The update, then (seeing it) the status refresh's read, the audit and the lesion as saved:
     // sent together, in the order they are started here on the transaction's one connection (so
     // the update is started with execute(), not left for Promise.all to start after the others).
@@ -210,7 +215,7 @@ export async function updateLesion(scope: SiteScope, visitId: string, lesionId: 
         .where(and(eq(lesions.id, lesionId), eq(lesions.version, version)))
         .returning({ id: lesions.id })
         .execute(),
-      refreshTrackStatuses(tx, visit.patientId, visit.siteId),
+      statusesMayChange ? refreshTrackStatuses(tx, visit.patientId, visit.siteId) : null,
       recordAudit({ userId: scope.userId, siteId: visit.siteId, patientId: visit.patientId, action: "lesion.update", entityType: "lesion", entityId: lesionId, ip, detail: { ...input } }, tx),
       fetchOne(tx, lesionId),
     ]);

@@ -70,7 +70,7 @@ function lockForLesion(opts: { lockPatient: boolean; withLesion: boolean }) {
     const base = run
       .select({
         visit: { ...visitColumns, zoneBounds: sites.zoneBounds },
-        current: { id: lesions.id, version: lesions.version, distanceStartCm: lesions.distanceStartCm, distanceEndCm: lesions.distanceEndCm },
+        current: { id: lesions.id, version: lesions.version, distanceStartCm: lesions.distanceStartCm, distanceEndCm: lesions.distanceEndCm, grade: lesions.grade, trackId: lesions.trackId },
       })
       .from(visits)
       .innerJoin(sites, eq(sites.id, visits.siteId))

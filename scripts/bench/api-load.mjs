@@ -1,6 +1,9 @@
 // API under load: autocannon against `next start` on loopback, 50 connections. First the floor
 // (GET /api/ping, constant JSON), then the clinician's working mix, in the same run:
 // open a patient timeline, list a visit's lesions, create a lesion, update it, save the visit.
+// Between them, for context, the authenticated floor: GET /api/me/preferences, which does nothing
+// but the session check every signed-in request makes (one database round trip) and answers the
+// user's display setting from it. No route of the mix can be cheaper than that.
 // Every request in flight works on its own draft visit (prepared by prepare.ts), so the versions
 // it sends are the latest and a 409 would mean a real lost-update bug, not contention we staged;
 // 409s are still counted apart from other errors.
@@ -143,6 +146,9 @@ const mix = [
 const warm = { duration: 3, connections: 10 };
 await run({ ...warm, requests: [{ method: "GET", path: "/api/ping" }] });
 const floor = await run({ requests: [{ method: "GET", path: "/api/ping" }] });
+const sessionOnly = [{ method: "GET", path: "/api/me/preferences", headers: { cookie: prep.cookie } }];
+await run({ ...warm, requests: sessionOnly });
+const signedIn = await run({ requests: sessionOnly });
 takeSlots(0, 20);
 await run({ ...warm, requests: mix });
 takeSlots(20, prep.slots.length);
@@ -150,7 +156,17 @@ for (const k of Object.keys(statusCounts)) delete statusCounts[k];
 conflicts = 0;
 const real = await run({ requests: mix });
 const f = summary(floor);
+const a = summary(signedIn);
+a.errors = a.non2xx + a.socketErrors + a.timeouts;
 const r = summary(real, { conflicts409: conflicts, byStep: statusCounts });
 r.errors = r.non2xx - conflicts + r.socketErrors + r.timeouts;
 f.errors = f.non2xx + f.socketErrors + f.timeouts;
-console.log(JSON.stringify({ connections, durationS: duration, floor: f, mix: r, throughputRatio: +(r.reqPerSec / f.reqPerSec).toFixed(2), p95Ratio: +(r.p95Ms / f.p95Ms).toFixed(2) }));
+console.log(JSON.stringify({
+  connections,
+  durationS: duration,
+  floor: f,
+  sessionFloor: { ...a, throughputRatio: +(a.reqPerSec / f.reqPerSec).toFixed(2), p95Ratio: +(a.p95Ms / f.p95Ms).toFixed(2) },
+  mix: r,
+  throughputRatio: +(r.reqPerSec / f.reqPerSec).toFixed(2),
+  p95Ratio: +(r.p95Ms / f.p95Ms).toFixed(2),
+}));

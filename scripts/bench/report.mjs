@@ -33,6 +33,13 @@ if (api.data) {
   row("API mix: p95 latency", ms(m.p95Ms), ms(f.p95Ms), api.data.p95Ratio, "≤ 2", api.data.p95Ratio <= 2);
   row("API mix: p99 latency", ms(m.p99Ms), ms(f.p99Ms), r2(m.p99Ms, f.p99Ms), "", undefined);
   row("API mix: errors (409s apart)", `${m.errors} of ${m.requests} (409: ${m.conflicts409})`, `${f.errors} of ${f.requests}`, "", "0", m.errors === 0);
+  // For context: a signed-in request that does nothing but the session check, against the same floor.
+  const s = api.data.sessionFloor;
+  if (s) {
+    row("Session check only (GET /api/me/preferences): throughput", `${s.reqPerSec} req/s`, `${f.reqPerSec} req/s`, s.throughputRatio, "(reported)", undefined);
+    row("Session check only: p95 latency", ms(s.p95Ms), ms(f.p95Ms), s.p95Ratio, "(reported)", undefined);
+    row("API mix against the session-check route: throughput / p95", "", "", `${r2(m.reqPerSec, s.reqPerSec)} / ${r2(m.p95Ms, s.p95Ms)}`, "(reported)", undefined);
+  }
 } else missing("API under load", api.why);
 
 const map = load("map");
@@ -46,11 +53,12 @@ if (map.data) {
 
 const seq = load("sequential");
 if (seq.data) {
-  const { floor: f, create: c, timeline: t } = seq.data;
+  const { floor: f, create: c, move: mv, timeline: t } = seq.data;
   row("Lesion create round trip p50 / p95", `${c.p50Ms} / ${c.p95Ms} ms`, `${f.p50Ms} / ${f.p95Ms} ms`, r2(c.p50Ms, f.p50Ms), "", undefined);
+  row("Lesion extent edit round trip p50 / p95", `${mv.p50Ms} / ${mv.p95Ms} ms`, `${f.p50Ms} / ${f.p95Ms} ms`, r2(mv.p50Ms, f.p50Ms), "", undefined);
   row("Timeline 30×40 GET p50 / p95", `${t.p50Ms} / ${t.p95Ms} ms`, `${f.p50Ms} / ${f.p95Ms} ms`, r2(t.p50Ms, f.p50Ms), "", undefined);
-  const bad = Object.keys(c.statuses).some((s) => s !== "201") || Object.keys(t.statuses).some((s) => s !== "200");
-  if (bad) missing("Sequential statuses", `unexpected statuses create ${JSON.stringify(c.statuses)} timeline ${JSON.stringify(t.statuses)}`);
+  const bad = Object.keys(c.statuses).some((s) => s !== "201") || [mv, t].some((x) => Object.keys(x.statuses).some((s) => s !== "200"));
+  if (bad) missing("Sequential statuses", `unexpected statuses create ${JSON.stringify(c.statuses)} extent edit ${JSON.stringify(mv.statuses)} timeline ${JSON.stringify(t.statuses)}`);
 } else missing("Round trips (create, timeline)", seq.why);
 
 const tq = load("timeline-queries");

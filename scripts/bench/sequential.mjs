@@ -1,5 +1,6 @@
 // Sequential round trips on loopback, one request at a time (no queueing in the figures):
-// 50 lesion creates on the map visit's sibling slot, 50 timeline GETs of the 30 × 40 patient,
+// 50 lesion creates on the map visit's sibling slot, 50 extent edits of one lesion there (moved as
+// a drag on the map would: no change of grade or track), 50 timeline GETs of the 30 × 40 patient,
 // and 50 GETs of the constant-JSON floor for the same client and connection handling.
 // Run: node scripts/bench/sequential.mjs <base-url> <prepare.json>
 import { readFileSync } from "node:fs";
@@ -24,9 +25,10 @@ async function timed(n, fn) {
   return { n, p50Ms: at(50), p95Ms: at(95), statuses };
 }
 
-async function call(path, init) {
+async function call(path, init, onBody) {
   const res = await fetch(`${base}${path}`, { headers, ...init });
-  await res.arrayBuffer();
+  const text = await res.text();
+  onBody?.(res.status, text);
   return res.status;
 }
 
@@ -39,5 +41,17 @@ const create = await timed(N, (i) =>
     body: JSON.stringify({ clockStartH: ((i + 1) * 0.9) % 12, clockEndH: ((i + 1) * 0.9 + 0.5) % 12, distanceStartCm: 0.5, distanceEndCm: 1.5, grade: "hsil", vessels: [] }),
   }),
 );
+// The slot's own lesion, at the version the load test left it at; each answer gives the next.
+const map = await (await fetch(`${base}/api/visits/${slot.visitId}/lesions`, { headers })).json();
+let version = map.lesions.find((l) => l.id === slot.lesionId).version;
+const move = await timed(N, (i) =>
+  call(
+    `/api/visits/${slot.visitId}/lesions/${slot.lesionId}`,
+    { method: "PATCH", body: JSON.stringify({ version, clockStartH: (i + 2) % 12, clockEndH: (i + 3) % 12 }) },
+    (status, text) => {
+      if (status === 200) version = JSON.parse(text).lesion.version;
+    },
+  ),
+);
 const timeline = await timed(N, () => call(`/api/patients/${prep.timeline.patientId}/timeline`));
-console.log(JSON.stringify({ floor, create, timeline }));
+console.log(JSON.stringify({ floor, create, move, timeline }));

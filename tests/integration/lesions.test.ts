@@ -1,6 +1,6 @@
 import { beforeAll, describe, expect, it } from "vitest";
 import { count, eq } from "drizzle-orm";
-import { db, sql } from "@/db/client";
+import { db, onQuery, sql } from "@/db/client";
 import { auditEvents, lesions, lesionTracks, trackStatuses, visits } from "@/db/schema";
 import { GET, POST } from "@/app/api/visits/[visitId]/lesions/route";
 import { DELETE, PATCH } from "@/app/api/visits/[visitId]/lesions/[lesionId]/route";
@@ -63,6 +63,32 @@ describe("lesions route", () => {
     expect(stale.status).toBe(409);
     const [row] = await db.select().from(lesions).where(eq(lesions.id, lesion.id));
     expect(row!.grade).toBe("lsil");
+  });
+
+  it("works track statuses out again when a lesion's grade or track changes, and not when only its extent or note does", async () => {
+    // An earlier, signed exam found LSIL on track T; today's lesion starts on a track of its own.
+    const [t] = await db.insert(lesionTracks).values({ patientId, siteId: siteA, label: "T90" }).returning();
+    await db.insert(lesions).values({ visitId: signedVisitId, siteId: siteA, trackId: t!.id, label: "L90", clockStartH: 7, clockEndH: 8, distanceStartCm: 1, distanceEndCm: 2, zone: "transformation_zone", grade: "lsil" });
+    const { lesion } = await (await POST(req("POST", `/api/visits/${visitId}/lesions`, clinician, { ...body, clockStartH: 7, clockEndH: 8 }), ctx({ visitId }))).json();
+    const statusOnT = async () => (await db.select().from(trackStatuses).where(eq(trackStatuses.trackId, t!.id))).find((s) => s.visitId === visitId)?.status;
+    const patch = async (changes: Record<string, unknown>, version: number) => {
+      const statements: string[] = [];
+      const stop = onQuery((q) => statements.push(q));
+      const res = await PATCH(req("PATCH", "/x", clinician, { version, ...changes }), ctx({ visitId, lesionId: lesion.id }));
+      stop();
+      expect(res.status).toBe(200);
+      return statements.filter((q) => q.includes("track_statuses")).length;
+    };
+    // Same site, LSIL then HSIL: progressed; the same grade again: persistent (LAST grades; the
+    // status words as in tests/integration/tracking.test.ts).
+    expect(await patch({ trackId: t!.id, grade: "hsil" }, 1)).toBeGreaterThan(0);
+    expect(await statusOnT()).toBe("progressed");
+    expect(await patch({ grade: "lsil" }, 2)).toBeGreaterThan(0);
+    expect(await statusOnT()).toBe("persistent");
+    // Moved a little and described: nothing that decides a status, so no status statement at all.
+    expect(await patch({ clockStartH: 7.5, clockEndH: 8.5, note: "Flat, sharp border." }, 3)).toBe(0);
+    expect(await patch({ grade: "lsil", sizeMm: 5 }, 4)).toBe(0);
+    expect(await statusOnT()).toBe("persistent");
   });
 
   it("deletes with the current version only", async () => {

@@ -35,9 +35,10 @@ function describeFailure(err: unknown): string {
 
 let tempCounter = 0;
 
-export function useLesionStore(visitId: string) {
+/** `initial`: the map as the server read it for the page, shown at once; SWR then keeps it fresh. */
+export function useLesionStore(visitId: string, initial?: VisitMapDto) {
   const key = `/api/visits/${visitId}/lesions`;
-  const swr = useSWR<VisitMapDto>(key, fetcher, { revalidateOnFocus: true, keepPreviousData: true });
+  const swr = useSWR<VisitMapDto>(key, fetcher, { fallbackData: initial, revalidateOnFocus: true, keepPreviousData: true });
   const [overlay, setOverlay] = useState<Overlay>(EMPTY);
   const [notice, setNotice] = useState<Notice>(null);
   const ov = useRef(overlay);

@@ -29,6 +29,29 @@ function mount(fetchImpl: (url: string, init?: RequestInit) => Promise<Response>
 
 afterEach(() => vi.unstubAllGlobals());
 
+describe("VisitMapEditor first paint", () => {
+  it("draws the map the page read on the server in its first render, without waiting for a fetch", () => {
+    // The fetch never answers: whatever is on screen came from the page.
+    vi.stubGlobal("fetch", vi.fn(() => new Promise<Response>(() => {})));
+    const { unmount } = render(
+      <SWRConfig value={{ provider: () => new Map(), dedupingInterval: 0 }}>
+        <VisitMapEditor visitId="v1" initialConvention="lithotomy" initialMap={{ visit: VISIT, lesions: [L1] }} />
+      </SWRConfig>,
+    );
+    expect(screen.getByRole("button", { name: /^L1: LSIL/ })).toBeTruthy();
+    expect(screen.queryByText("Loading the map…")).toBeNull();
+    unmount();
+    // Without it, the map waits for its fetch.
+    render(
+      <SWRConfig value={{ provider: () => new Map(), dedupingInterval: 0 }}>
+        <VisitMapEditor visitId="v1" initialConvention="lithotomy" />
+      </SWRConfig>,
+    );
+    expect(screen.getByText("Loading the map…")).toBeTruthy();
+    expect(screen.queryByRole("button", { name: /^L1: LSIL/ })).toBeNull();
+  });
+});
+
 // Generous timeout: the shared test machine is busy and each step re-renders the whole screen.
 describe("VisitMapEditor saving", { timeout: 20_000 }, () => {
   it("a new lesion appears before the server answers; a failed save says so and can be retried", async () => {

@@ -17,7 +17,7 @@ import { LesionForm } from "./lesion-form";
 import { LesionTable } from "./lesion-table";
 import { MapEditor } from "./map-editor";
 import { useLesionStore, type LesionPatch, type SaveInfo } from "./use-lesion-store";
-import type { LesionDto } from "@/lib/validation/lesions";
+import type { LesionDto, VisitMapDto } from "@/lib/validation/lesions";
 import type { FollowUp } from "@/components/visit/follow-up/use-follow-up";
 import type { LookAgain } from "@/components/visit/follow-up/use-look-again";
 import { FollowUpPanel, GhostCard } from "@/components/visit/follow-up/follow-up-panel";
@@ -33,10 +33,15 @@ export interface VisitMapEditorProps {
   initialConvention: DisplayConvention;
   /** False for roles that may only read (reviewer, admin); the server refuses their writes anyway. */
   canEdit?: boolean;
+  /**
+   * The map as the page read it on the server: drawn in the page's first paint, so nothing below
+   * it moves when it arrives (without it the map is fetched after load).
+   */
+  initialMap?: VisitMapDto;
 }
 
-export function VisitMapEditor({ visitId, initialConvention, canEdit = true }: VisitMapEditorProps) {
-  const store = useLesionStore(visitId);
+export function VisitMapEditor({ visitId, initialConvention, canEdit = true, initialMap }: VisitMapEditorProps) {
+  const store = useLesionStore(visitId, initialMap);
   const [conv, setConv] = useState<DisplayConvention>(initialConvention);
   const [prefNotice, setPrefNotice] = useState<string | null>(null);
   const [selection] = useState(() => createSelectionStore());

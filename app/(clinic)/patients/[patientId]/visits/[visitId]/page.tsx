@@ -5,9 +5,7 @@ import { VisitMapEditor } from "@/components/visit/map-editor/visit-map-editor";
 import { LazyVisitGallery, LazyVisitRecordPanels } from "@/components/visit/lazy-panels";
 import { BiopsiesPanel } from "@/components/visit/biopsies-panel";
 import { getPatient } from "@/db/queries/patients";
-import { loadVisit } from "@/db/queries/visit-access";
-import { recordAudit } from "@/db/queries/audit";
-import { db } from "@/db/client";
+import { listLesionsForVisit } from "@/db/queries/lesions";
 import { scopeOf } from "@/lib/auth/guard";
 import { CLINICAL_ROLES, requirePageRole } from "@/lib/auth/page-guard";
 import { AppError } from "@/lib/errors";
@@ -23,9 +21,13 @@ export default async function VisitPage({ params }: { params: Promise<{ patientI
   if (!patientId.success || !visitId.success) notFound();
   const scope = scopeOf(user);
   const patient = await getPatient(scope, patientId.data);
-  const visit = await loadVisit(db, scope, visitId.data).catch((e) => (e instanceof AppError ? null : Promise.reject(e)));
-  if (!patient || !visit || visit.patientId !== patient.id) notFound();
-  await recordAudit({ userId: user.id, siteId: visit.siteId, patientId: patient.id, action: "visit.read", entityType: "visit", entityId: visit.id });
+  if (!patient) notFound();
+  // The visit with its map, drawn in the first paint; the read is audited by the reading statement.
+  const map = await listLesionsForVisit(scope, visitId.data, { userId: user.id, action: "visit.read", entityType: "visit" }).catch((e) =>
+    e instanceof AppError ? null : Promise.reject(e),
+  );
+  if (!map || map.visit.patientId !== patient.id) notFound();
+  const { visit } = map;
   const canEdit = user.role === "clinician" && visit.status === "draft";
   return (
     <AppShell user={user}>
@@ -42,7 +44,7 @@ export default async function VisitPage({ params }: { params: Promise<{ patientI
       </div>
       <section aria-labelledby="map-heading" className="mt-4">
         <h2 id="map-heading" className="sr-only">Canal map</h2>
-        <VisitMapEditor visitId={visit.id} initialConvention={user.displayConvention} canEdit={canEdit} />
+        <VisitMapEditor visitId={visit.id} initialConvention={user.displayConvention} canEdit={canEdit} initialMap={map} />
       </section>
       <div className="mt-8">
         <BiopsiesPanel visitId={visit.id} canEdit={canEdit} canEnterResults={user.role === "clinician"} />
