@@ -14,6 +14,18 @@ export function SuspectedCancerCaution({ labels }: { labels: readonly string[] }
   );
 }
 
+/** "3 months ago", "today", or, for a visit dated later than today, says so (never "… ago"). */
+function SinceToday({ fromIso, todayIso }: { fromIso: string; todayIso: string }) {
+  if (fromIso > todayIso) return <span className="text-lg font-bold">Dated after today</span>;
+  const since = timeSinceWords(fromIso, todayIso);
+  return (
+    <>
+      <span className="text-lg font-bold">{since}</span>
+      {since === "today" ? "" : " ago"}
+    </>
+  );
+}
+
 export function SummaryPanel({ summary, todayIso }: { summary: TimelineSummary; todayIso: string }) {
   const { countsByStatus, lastHsilOrWorse, treated } = summary;
   return (
@@ -34,8 +46,7 @@ export function SummaryPanel({ summary, todayIso }: { summary: TimelineSummary; 
         <h2 className="font-bold">Last HSIL or worse</h2>
         {lastHsilOrWorse ? (
           <p className="mt-1 text-sm">
-            <span className="text-lg font-bold">{timeSinceWords(lastHsilOrWorse.visitDate, todayIso)}</span>
-            {timeSinceWords(lastHsilOrWorse.visitDate, todayIso) === "today" ? "" : " ago"}
+            <SinceToday fromIso={lastHsilOrWorse.visitDate} todayIso={todayIso} />
             <span className="block text-ink-soft">at the visit of {lastHsilOrWorse.visitDate}{lastHsilOrWorse.trackLabels.length ? ` (${lastHsilOrWorse.trackLabels.join(", ")})` : ""}; histology decides the grade where there is a result.</span>
           </p>
         ) : (

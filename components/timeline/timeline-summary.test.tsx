@@ -1,5 +1,7 @@
 import { describe, expect, it } from "vitest";
+import { render, screen } from "@testing-library/react";
 import { summarizeTimeline, timeSinceWords } from "./timeline-summary";
+import { SummaryPanel } from "./summary-panel";
 import type { Timeline } from "./timeline-types";
 
 // A worked history, written by hand:
@@ -52,4 +54,17 @@ describe("timeSinceWords (calendar months counted by hand)", () => {
   it("2025-01-15 to 2026-03-20 is 1 year 2 months", () => expect(timeSinceWords("2025-01-15", "2026-03-20")).toBe("1 year 2 months"));
   it("a month not yet complete does not count: 2025-01-31 to 2025-02-27 is 27 days", () => expect(timeSinceWords("2025-01-31", "2025-02-27")).toBe("27 days"));
   it("exactly six months", () => expect(timeSinceWords("2025-03-01", "2025-09-01")).toBe("6 months"));
+});
+
+describe("SummaryPanel: last HSIL or worse", () => {
+  const summary = summarizeTimeline(timeline);
+  it("says how long ago (2026-01-10 to 2026-07-10: 6 calendar months, counted by hand)", () => {
+    render(<SummaryPanel summary={summary} todayIso="2026-07-10" />);
+    expect(screen.getByText("6 months").parentElement!.textContent).toMatch(/^6 months ago/);
+  });
+  it("says a visit dated after today is so, and not 'in the future ago'", () => {
+    const { container } = render(<SummaryPanel summary={summary} todayIso="2025-12-01" />);
+    expect(screen.getByText("Dated after today")).toBeTruthy();
+    expect(container.textContent).not.toMatch(/ago/);
+  });
 });

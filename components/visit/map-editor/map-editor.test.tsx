@@ -183,5 +183,8 @@ describe("MapEditor: gestures and keys", () => {
     expect(props.onChange).not.toHaveBeenCalled();
     expect(props.onRequestDelete).not.toHaveBeenCalled();
     expect(svg.ownerDocument.querySelector("[data-handle]")).toBeNull();
+    // Still selectable (a reader opens a lesion's details with Tab and Enter): nothing above the
+    // lesion says it is disabled, which ARIA would pass down to it (WAI-ARIA 1.2, aria-disabled).
+    expect(shape.closest("[aria-disabled='true']")).toBeNull();
   });
 });

@@ -127,7 +127,7 @@ export function MapEditor(props: MapEditorProps) {
           onLesionKeyDown={onLesionKeyDown}
           svgRef={svgRef}
           title={readOnly ? "Canal map (read only)" : "Canal map: tap to add a lesion"}
-          surfaceProps={{ ...svgHandlers, style: { touchAction: readOnly ? "auto" : "none" }, "aria-disabled": readOnly || undefined }}
+          surfaceProps={{ ...svgHandlers, style: { touchAction: readOnly ? "auto" : "none" } }}
           overlay={readOnly ? null : <SelectedHandles selection={selection} lesions={shown} conv={convention} onStart={startHandle} />}
         />
       </div>
