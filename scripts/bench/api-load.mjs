@@ -36,9 +36,14 @@ function pct(sorted, p) {
 function summary(res, extra = {}) {
   const sorted = res.times.sort((a, b) => a - b);
   const non2xx = res.non2xx ?? 0;
+  const meanMs = sorted.reduce((a, b) => a + b, 0) / (sorted.length || 1);
   return {
     requests: res.requests.total,
     reqPerSec: Math.round(res.requests.average),
+    // Requests in flight on average (throughput × mean latency, Little's law): about `connections`
+    // when every connection kept a request going; far fewer means some sat on an unanswered
+    // request, and the latencies describe only the rest.
+    busyConnections: Math.round((res.requests.average * meanMs) / 1000),
     p50Ms: pct(sorted, 50),
     p95Ms: pct(sorted, 95),
     p99Ms: pct(sorted, 99),

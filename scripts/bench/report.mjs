@@ -33,6 +33,11 @@ if (api.data) {
   row("API mix: p95 latency", ms(m.p95Ms), ms(f.p95Ms), api.data.p95Ratio, "≤ 2", api.data.p95Ratio <= 2);
   row("API mix: p99 latency", ms(m.p99Ms), ms(f.p99Ms), r2(m.p99Ms, f.p99Ms), "", undefined);
   row("API mix: errors (409s apart)", `${m.errors} of ${m.requests} (409: ${m.conflicts409})`, `${f.errors} of ${f.requests}`, "", "0", m.errors === 0);
+  for (const [name, pass] of [["floor", f], ["session check", api.data.sessionFloor], ["mix", m]]) {
+    if (pass?.busyConnections !== undefined && pass.busyConnections < 0.8 * api.data.connections) {
+      missing(`API ${name} pass`, `only ${pass.busyConnections} of ${api.data.connections} connections had a request answered on average: its figures are suspect`);
+    }
+  }
   // For context: a signed-in request that does nothing but the session check, against the same floor.
   const s = api.data.sessionFloor;
   if (s) {
