@@ -16,8 +16,8 @@ export function SuspectedCancerCaution({ labels }: { labels: readonly string[] }
 
 /** "3 months ago", "today", or, for a visit dated later than today, says so (never "… ago"). */
 function SinceToday({ fromIso, todayIso }: { fromIso: string; todayIso: string }) {
-  if (fromIso > todayIso) return <span className="text-lg font-bold">Dated after today</span>;
   const since = timeSinceWords(fromIso, todayIso);
+  if (since === null) return <span className="text-lg font-bold">Dated after today</span>;
   return (
     <>
       <span className="text-lg font-bold">{since}</span>

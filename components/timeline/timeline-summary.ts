@@ -64,11 +64,14 @@ export function summarizeTimeline(t: Timeline): TimelineSummary {
   return { countsByStatus, current, lastHsilOrWorse, treated, suspectedCancer };
 }
 
-/** Whole months and days between two ISO dates, in words ("1 year 2 months", "12 days"). */
-export function timeSinceWords(fromIso: string, toIso: string): string {
+/**
+ * Whole months and days between two ISO dates, in words ("1 year 2 months", "12 days", "today");
+ * null when `from` is later than `to`, for the caller to say so in its own sentence.
+ */
+export function timeSinceWords(fromIso: string, toIso: string): string | null {
   const from = new Date(`${fromIso}T00:00:00Z`);
   const to = new Date(`${toIso}T00:00:00Z`);
-  if (to < from) return "in the future";
+  if (to < from) return null;
   let months = (to.getUTCFullYear() - from.getUTCFullYear()) * 12 + (to.getUTCMonth() - from.getUTCMonth());
   if (to.getUTCDate() < from.getUTCDate()) months -= 1;
   if (months < 1) {

@@ -33,6 +33,7 @@ function pct(sorted, p) {
   return +sorted[Math.min(sorted.length - 1, Math.ceil((p / 100) * sorted.length) - 1)].toFixed(1);
 }
 
+/** One pass's figures; `conflicts409` (the mix) are counted apart from its errors. */
 function summary(res, extra = {}) {
   const sorted = res.times.sort((a, b) => a - b);
   const non2xx = res.non2xx ?? 0;
@@ -50,9 +51,13 @@ function summary(res, extra = {}) {
     non2xx,
     socketErrors: res.errors,
     timeouts: res.timeouts,
+    errors: non2xx - (extra.conflicts409 ?? 0) + res.errors + res.timeouts,
     ...extra,
   };
 }
+
+/** A pass against the floor: throughput and p95 ratios. */
+const against = (pass, floor) => ({ throughputRatio: +(pass.reqPerSec / floor.reqPerSec).toFixed(2), p95Ratio: +(pass.p95Ms / floor.p95Ms).toFixed(2) });
 
 const statusCounts = {};
 let conflicts = 0;
@@ -167,16 +172,5 @@ conflicts = 0;
 const real = await run({ requests: mix });
 const f = summary(floor);
 const a = summary(signedIn);
-a.errors = a.non2xx + a.socketErrors + a.timeouts;
 const r = summary(real, { conflicts409: conflicts, byStep: statusCounts });
-r.errors = r.non2xx - conflicts + r.socketErrors + r.timeouts;
-f.errors = f.non2xx + f.socketErrors + f.timeouts;
-console.log(JSON.stringify({
-  connections,
-  durationS: duration,
-  floor: f,
-  sessionFloor: { ...a, throughputRatio: +(a.reqPerSec / f.reqPerSec).toFixed(2), p95Ratio: +(a.p95Ms / f.p95Ms).toFixed(2) },
-  mix: r,
-  throughputRatio: +(r.reqPerSec / f.reqPerSec).toFixed(2),
-  p95Ratio: +(r.p95Ms / f.p95Ms).toFixed(2),
-}));
+console.log(JSON.stringify({ connections, durationS: duration, floor: f, sessionFloor: { ...a, ...against(a, f) }, mix: r, ...against(r, f) }));

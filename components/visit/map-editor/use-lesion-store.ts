@@ -35,10 +35,14 @@ function describeFailure(err: unknown): string {
 
 let tempCounter = 0;
 
-/** `initial`: the map as the server read it for the page, shown at once; SWR then keeps it fresh. */
+/**
+ * `initial`: the map as the server read it for the page, shown at once. It is as fresh as a fetch,
+ * so it is not fetched again on mount; it replaces whatever an earlier visit to the page left in
+ * SWR's cache, and SWR refreshes it from then on (focus, writes).
+ */
 export function useLesionStore(visitId: string, initial?: VisitMapDto) {
   const key = `/api/visits/${visitId}/lesions`;
-  const swr = useSWR<VisitMapDto>(key, fetcher, { fallbackData: initial, revalidateOnFocus: true, keepPreviousData: true });
+  const swr = useSWR<VisitMapDto>(key, fetcher, { fallbackData: initial, revalidateOnMount: !initial, revalidateOnFocus: true, keepPreviousData: true });
   const [overlay, setOverlay] = useState<Overlay>(EMPTY);
   const [notice, setNotice] = useState<Notice>(null);
   const ov = useRef(overlay);
@@ -62,6 +66,9 @@ export function useLesionStore(visitId: string, initial?: VisitMapDto) {
   }, []);
   const setStatus = useCallback((id: string, info: SaveInfo | undefined) => update((o) => ({ ...o, status: { ...o.status, [id]: info } })), [update]);
   const mutateServer = swr.mutate;
+  useEffect(() => {
+    if (initial) void mutateServer(initial, { revalidate: false });
+  }, [initial, mutateServer]);
   const setServer = useCallback(
     (fn: (d: VisitMapDto) => VisitMapDto) => {
       if (!server.current) return;
