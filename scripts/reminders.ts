@@ -8,7 +8,7 @@ import { inArray } from "drizzle-orm";
 import { db, sql } from "@/db/client";
 import { auditEvents, users } from "@/db/schema";
 import { listOverdue } from "@/db/queries/worklist";
-import { todayIso } from "@/db/queries/followup";
+import { todayIso } from "@/db/queries/due-dates";
 import { mailConfigFrom } from "@/lib/mail/config";
 import { enqueueMail } from "@/lib/mail/outbox";
 import { clinicianDigestMail, patientReminderMail } from "@/lib/mail/templates";

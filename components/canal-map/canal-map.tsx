@@ -1,11 +1,11 @@
 import { memo, useId, useMemo, type KeyboardEvent, type PointerEvent, type ReactNode, type Ref, type HTMLAttributes } from "react";
 import { CARDINAL_DISPLAY_HOURS, anatomicalLabelAt, displayHour, toDisplayHours, type DisplayConvention } from "@/lib/geometry";
 import { useAfterPaint } from "./after-paint";
-import { GHOST_MARK, ORIENTATION_NOTE } from "./encoding";
+import { GHOST_MARK, ORIENTATION_NOTE } from "@/lib/map/encoding";
 import { GhostShape, type GhostLesion } from "./ghost-shape";
 import { LesionBody, LesionMarks, SelectionRing, type LesionSaveState, type MapLesion } from "./lesion-shape";
 import { MapFace } from "./map-face";
-import { VIEW_BOX } from "./map-geometry";
+import { VIEW_BOX } from "@/lib/map/geometry";
 import { GradePatternDefs, safeId } from "./patterns";
 import { useSelectionFromProp, type SelectionStore } from "./selection";
 import { TreatedRing, type TreatedArc } from "./treated-ring";

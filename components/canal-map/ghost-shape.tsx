@@ -1,8 +1,8 @@
 import { memo, useMemo } from "react";
 import { describeSite, type DisplayConvention } from "@/lib/geometry";
 import type { Grade } from "@/lib/domain/vocab";
-import { GHOST_MARK, GRADE_ENCODING, SELECTION_RING } from "./encoding";
-import { centreOf, pointOfSite, sectorOf, sectorPath } from "./map-geometry";
+import { GHOST_MARK, GRADE_ENCODING, SELECTION_RING } from "@/lib/map/encoding";
+import { centreOf, pointOfSite, sectorOf, sectorPath } from "@/lib/map/geometry";
 
 /** A lesion from an earlier visit, shown for follow-up: where to look again. */
 export interface GhostLesion {

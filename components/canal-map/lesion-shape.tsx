@@ -1,8 +1,8 @@
 import { memo, useMemo, type KeyboardEvent, type PointerEvent } from "react";
 import { describeSite, type DisplayConvention } from "@/lib/geometry";
 import type { LesionDto } from "@/lib/validation/lesions";
-import { BIOPSY_TAG, GRADE_ENCODING, SELECTION_RING, TREATED_MARK, UNSAVED_MARK } from "./encoding";
-import { angleOf, centreOf, isPointLesion, pointOfSite, polar, radiusOfCm, sectorOf, sectorPath } from "./map-geometry";
+import { BIOPSY_TAG, GRADE_ENCODING, SELECTION_RING, TREATED_MARK, UNSAVED_MARK } from "@/lib/map/encoding";
+import { angleOf, centreOf, isPointLesion, pointOfSite, polar, radiusOfCm, sectorOf, sectorPath } from "@/lib/map/geometry";
 import { patternId } from "./patterns";
 import { useIsSelected, useSelectedLesion, type SelectionStore } from "./selection";
 

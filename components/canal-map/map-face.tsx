@@ -1,7 +1,7 @@
 import { memo } from "react";
 import { CARDINAL_DISPLAY_HOURS, anatomicalLabelAt, displayHour, fromDisplayHours, zoneBands, type DisplayConvention } from "@/lib/geometry";
-import { ZONE_ENCODING } from "./encoding";
-import { LABEL_RADIUS, NUMBER_RADIUS, OUTER_RADIUS, polar, radiusOfCm, sectorPath } from "./map-geometry";
+import { ZONE_ENCODING } from "@/lib/map/encoding";
+import { LABEL_RADIUS, NUMBER_RADIUS, OUTER_RADIUS, polar, radiusOfCm, sectorPath } from "@/lib/map/geometry";
 
 const FULL = 2 * Math.PI;
 const BANDS = zoneBands().map((b) => ({

@@ -1,6 +1,6 @@
 import { useId } from "react";
 import { GRADES } from "@/lib/domain/vocab";
-import { BIOPSY_TAG, GHOST_MARK, GRADE_ENCODING, ORIENTATION_NOTE, TREATED_MARK, TREATED_RING, UNSAVED_MARK, ZONE_ENCODING } from "./encoding";
+import { BIOPSY_TAG, GHOST_MARK, GRADE_ENCODING, ORIENTATION_NOTE, TREATED_MARK, TREATED_RING, UNSAVED_MARK, ZONE_ENCODING } from "@/lib/map/encoding";
 import { GradePattern, safeId } from "./patterns";
 
 const SWATCH = "M3 25 L3 9 Q20 -1 37 9 L37 25 Q20 17 3 25 Z";

@@ -1,5 +1,5 @@
 import { GRADES, type Grade } from "@/lib/domain/vocab";
-import { GRADE_ENCODING } from "./encoding";
+import { GRADE_ENCODING } from "@/lib/map/encoding";
 
 /** Pattern id for a grade under a prefix (one prefix per SVG, so ids never clash on a page). */
 export function patternId(prefix: string, grade: Grade): string {

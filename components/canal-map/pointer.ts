@@ -1,4 +1,4 @@
-import { VIEW, type Point } from "./map-geometry";
+import { VIEW, type Point } from "@/lib/map/geometry";
 
 /**
  * Screen (client) coordinates → viewBox coordinates. The screen CTM handles any CSS

@@ -1,7 +1,7 @@
 import { memo, useMemo } from "react";
 import { arcLengthH, arcToRadians, formatClock, toDisplayHours, unionArcs, type Arc, type DisplayConvention } from "@/lib/geometry";
-import { TREATED_RING } from "./encoding";
-import { polar, radiusOfCm, sectorPath } from "./map-geometry";
+import { TREATED_RING } from "@/lib/map/encoding";
+import { polar, radiusOfCm, sectorPath } from "@/lib/map/geometry";
 
 /** A treated arc as stored (lithotomy hours), as the treatments route returns it. */
 export type TreatedArc = { startH: number; endH: number };

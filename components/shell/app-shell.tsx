@@ -3,7 +3,8 @@ import type { ReactNode } from "react";
 import { Wordmark } from "@/components/ui/wordmark";
 import { signOutAction } from "@/app/(auth)/sign-out-action";
 import type { CurrentUser } from "@/lib/auth/guard";
-import { navLinksFor, ROLE_LABEL } from "./nav-links";
+import { navLinksFor } from "./nav-links";
+import { ROLE_LABEL } from "@/lib/domain/vocab";
 
 export function AppShell({ user, children }: { user: CurrentUser; children: ReactNode }) {
   return (

@@ -36,13 +36,6 @@ export function navLinksFor(role: Role): NavLink[] {
   }
 }
 
-export const ROLE_LABEL: Record<Role, string> = {
-  clinician: "Clinician",
-  reviewer: "Reviewer",
-  research_nurse: "Research nurse",
-  admin: "Administrator",
-};
-
 /** Where each role lands after sign-in. */
 export function homeFor(role: Role): string {
   return role === "research_nurse" ? "/studies" : "/patients";

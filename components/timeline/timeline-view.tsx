@@ -6,7 +6,7 @@ import useSWR from "swr";
 import { MapLegend } from "@/components/canal-map";
 import { fetcher, type ApiError } from "@/components/data/fetcher";
 import type { DisplayConvention } from "@/lib/geometry";
-import { GradeChart } from "./grade-chart";
+import { VisitGradeChart } from "./visit-grade-chart";
 import { StatusGrid } from "./status-grid";
 import { StatusLegend } from "./status-glyph";
 import { SummaryPanel, SuspectedCancerCaution } from "./summary-panel";
@@ -89,7 +89,7 @@ export function TimelineView({ patientId, convention, todayIso }: { patientId: s
         </div>
       </section>
 
-      <section className="break-inside-avoid"><GradeChart timeline={data} /></section>
+      <section className="break-inside-avoid"><VisitGradeChart timeline={data} /></section>
       <section className="break-inside-avoid"><MapLegend compact /></section>
     </div>
   );

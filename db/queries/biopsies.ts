@@ -5,7 +5,7 @@ import { biopsies, lesions, patients, users, visits } from "../schema";
 import { inScope, type SiteScope } from "./scope";
 import { loadVisit, lockDraftVisit } from "./visit-access";
 import { refreshTrackStatuses } from "./tracking";
-import { recordAudit } from "./audit";
+import { recordAudit } from "./audit-write";
 import { AppError } from "@/lib/errors";
 import type { CreateBiopsyInput, HistologyResultInput } from "@/lib/validation/biopsies";
 

@@ -6,7 +6,7 @@ import { biopsies, lesions, lesionTracks, treatments } from "../schema";
 import { inScopeParam, siteIdsParam, type SiteScope } from "./scope";
 import { loadVisitAudited, lockDraftVisit, lockDraftVisitForLesion } from "./visit-access";
 import { refreshTrackStatuses } from "./tracking";
-import { recordAudit, type ReadAudit } from "./audit";
+import { recordAudit, type ReadAudit } from "./audit-write";
 import { AppError } from "@/lib/errors";
 import { HISTOLOGY, type Histology } from "@/lib/domain/vocab";
 import { DEFAULT_ZONE_BOUNDS, zoneBoundsSchema, zoneForDistance, type ZoneBounds } from "@/lib/geometry/zones";

@@ -3,7 +3,7 @@ import { and, eq, isNull } from "drizzle-orm";
 import { db } from "../client";
 import { adjudications, lesionTracks, patients, reviews, users, userSites, visits } from "../schema";
 import { inScope, type SiteScope } from "./scope";
-import { recordAudit } from "./audit";
+import { recordAudit } from "./audit-write";
 import { AppError } from "@/lib/errors";
 import type { AdjudicationInput } from "@/lib/validation/tracking";
 import { notifyReviewRequested } from "@/lib/mail/notifications";

@@ -4,7 +4,7 @@ import { db, prepared } from "../client";
 import { adjudications, biopsies, lesions, lesionTracks, patients, reviews, trackChecks, trackStatuses, treatments, users, visits } from "../schema";
 import { inScopeParam, siteIdsParam, type SiteScope } from "./scope";
 import { rowsOf } from "./json-rows";
-import { auditOfRead, auditValues, type ReadAudit } from "./audit";
+import { auditOfRead, auditValues, type ReadAudit } from "./audit-write";
 import { AppError } from "@/lib/errors";
 import { HISTOLOGY, HISTOLOGY_AS_GRADE, type Grade, type Histology } from "@/lib/domain/vocab";
 import { unionLengthH } from "@/lib/geometry/arcs";

@@ -5,7 +5,7 @@ import { lesions, lesionTracks, trackChecks, visits } from "../schema";
 import type { SiteScope } from "./scope";
 import { loadVisit, lockDraftVisit } from "./visit-access";
 import { refreshTrackStatuses } from "./tracking";
-import { recordAudit } from "./audit";
+import { recordAudit } from "./audit-write";
 import { AppError } from "@/lib/errors";
 import { matchLesionsToTracks } from "@/lib/tracking";
 import type { TrackAction } from "@/lib/validation/tracking";

@@ -3,7 +3,7 @@ import { and, eq, sql as dsql } from "drizzle-orm";
 import { lesions, patients, sites, visits } from "../schema";
 import { prepared, type Db, type Tx } from "../client";
 import { inScopeParam, siteIdsParam, type SiteScope } from "./scope";
-import { auditOfRead, auditValues, type ReadAudit } from "./audit";
+import { auditOfRead, auditValues, type ReadAudit } from "./audit-write";
 import { AppError } from "@/lib/errors";
 
 const visitColumns = {

@@ -6,7 +6,7 @@ import { sites, users, visits } from "../schema";
 import { inScopeParam, siteIdsParam, type SiteScope } from "./scope";
 import { lockDraftVisit } from "./visit-access";
 import { refreshTrackStatuses } from "./tracking";
-import { recordAudit } from "./audit";
+import { recordAudit } from "./audit-write";
 import { AppError } from "@/lib/errors";
 import { DEFAULT_CAUTION_FRACTION } from "@/lib/dosing";
 import type { ExamDetailsInput } from "@/lib/validation/visit-record";

@@ -5,8 +5,8 @@ import { and, eq, inArray } from "drizzle-orm";
 import { db } from "../client";
 import { patients, users, userSites } from "../schema";
 import { inScope, type SiteScope } from "./scope";
-import { computeDue, todayIso, type PatientDue } from "./followup";
-import { dayNumber } from "@/lib/deidentify/calendar";
+import { computeDue, todayIso, type PatientDue } from "./due-dates";
+import { dayNumber } from "@/lib/dates/calendar";
 
 export const WORKLIST_PAGE_SIZE = 25;
 /** Patients due within this many days appear before they are overdue. */

@@ -8,7 +8,7 @@ export const sites = pgTable("sites", {
   name: text("name").notNull(),
   /** Zone boundaries in cm (lib/geometry/zones); null = the sourced defaults. */
   zoneBounds: jsonb("zone_bounds"),
-  /** Follow-up intervals in months by rule key (lib/followup); null = the defaults. */
+  /** Follow-up intervals in months by rule key (lib/due-dates); null = the defaults. */
   followupRules: jsonb("followup_rules"),
   /** Per-session treated-circumference caution threshold as a fraction; null = default. */
   extentCautionFraction: doublePrecision("extent_caution_fraction"),

@@ -2,7 +2,7 @@
 // fields are copied in by name, so a column added to the patient record later can never leak.
 import type { RiskGroup } from "@/lib/domain/vocab";
 import { HIV_STATUS, SEX_AT_BIRTH } from "@/lib/domain/vocab";
-import type { DateInput } from "./calendar";
+import type { DateInput } from "@/lib/dates/calendar";
 import { AGE_OVER_89, MAX_REPORTABLE_AGE, ageCategory, ageInYears, yearOnly, zip3, type DateMode } from "./safe-harbor";
 
 export type SexAtBirth = (typeof SEX_AT_BIRTH)[number];

@@ -1,3 +1,2 @@
-export * from "./calendar";
 export * from "./safe-harbor";
 export * from "./deidentify-patient";

@@ -1,6 +1,6 @@
 // HIPAA Safe Harbor rules (45 CFR 164.514(b)(2)) as small pure functions.
 // They are the specification the SQL exports must match, so they stay deliberately plain.
-import { daysBetween, fullYearsBetween, toCalendarDate, type DateInput } from "./calendar";
+import { daysBetween, fullYearsBetween, toCalendarDate, type DateInput } from "@/lib/dates/calendar";
 
 /**
  * 3-digit ZIP areas holding 20,000 people or fewer (2000 Census, HHS de-identification guidance):

@@ -103,6 +103,13 @@ export const GRADE_RANK: Record<Grade, number> = {
   suspected_cancer: 4,
 };
 
+export const ROLE_LABEL: Record<Role, string> = {
+  clinician: "Clinician",
+  reviewer: "Reviewer",
+  research_nurse: "Research nurse",
+  admin: "Administrator",
+};
+
 export const GRADE_LABEL: Record<Grade, string> = {
   benign: "Benign / normal",
   condyloma: "Condyloma",

@@ -1,6 +1,6 @@
 // The words of every mail Dentate sends. Mail crosses systems we do not control, so no mail
 // carries a diagnosis, a finding or a record number: only what the reader needs and a link.
-import { ROLE_LABEL } from "@/components/shell/nav-links";
+import { ROLE_LABEL } from "@/lib/domain/vocab";
 import type { Role } from "@/lib/domain/vocab";
 
 export interface MailContent {

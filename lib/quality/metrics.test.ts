@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { addMonths } from "@/lib/deidentify/calendar";
+import { addMonths } from "@/lib/dates/calendar";
 import { qualityMetrics, type Metric, type QualityVisit } from "./metrics";
 
 // Thresholds: IANS 2016 practice standards, Hillman RJ et al., J Low Genit Tract Dis 2016;20:283-291

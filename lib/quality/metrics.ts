@@ -2,7 +2,7 @@
 // practice standards (Hillman RJ et al., J Low Genit Tract Dis 2016;20:283-291; Hillman RJ et al., J Low Genit Tract Dis 2016).
 import type { Cytology } from "@/lib/domain/vocab";
 import { SEVERITIES } from "@/lib/domain/vocab";
-import { dayNumber, type DateInput } from "@/lib/deidentify/calendar";
+import { dayNumber, type DateInput } from "@/lib/dates/calendar";
 
 export type Severity = (typeof SEVERITIES)[number];
 

@@ -1,8 +1,8 @@
 import type PDFDocument from "pdfkit";
-import { GRADE_ENCODING, BIOPSY_TAG, TREATED_MARK, type FillPattern } from "@/components/canal-map/encoding";
+import { GRADE_ENCODING, BIOPSY_TAG, TREATED_MARK, type FillPattern } from "@/lib/map/encoding";
 import {
   OUTER_RADIUS, centreOf, isPointLesion, pointOfSite, polar, radiusOfCm, sectorOf, sectorPath,
-} from "@/components/canal-map/map-geometry";
+} from "@/lib/map/geometry";
 import { DEFAULT_ZONE_BOUNDS, anatomicalLabelAt, arcToRadians, zoneBands } from "@/lib/geometry";
 import type { Grade } from "@/lib/domain/vocab";
 import type { ReportBiopsy, ReportLesion, ReportTreatment } from "./types";

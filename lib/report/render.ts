@@ -1,6 +1,6 @@
 import PDFDocument from "pdfkit";
 import { GRADE_LABEL, GRADES, HISTOLOGY_AS_GRADE, type Grade } from "@/lib/domain/vocab";
-import { GRADE_ENCODING, BIOPSY_TAG, TREATED_MARK } from "@/components/canal-map/encoding";
+import { GRADE_ENCODING, BIOPSY_TAG, TREATED_MARK } from "@/lib/map/encoding";
 import { buildReportModel } from "./model";
 import { drawCanalMap, drawGradeSwatch } from "./pdf-map";
 import { INK, MUTED, bullets, contentWidth, heading, labelValues, paragraph, table } from "./pdf-layout";

@@ -1,6 +1,6 @@
 import { z } from "zod";
 import { GRADES } from "@/lib/domain/vocab";
-import { toCalendarDate } from "@/lib/deidentify/calendar";
+import { toCalendarDate } from "@/lib/dates/calendar";
 
 // Schemas for enrolment, withdrawal and export filters. Export filters end up as literals inside a
 // COPY statement (COPY takes no bind parameters), so every field here is a closed shape: uuid,

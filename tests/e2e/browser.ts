@@ -4,7 +4,7 @@ import { mkdtempSync, mkdirSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
 import { chromium, type BrowserContext, type Page } from "playwright-core";
-import { radiusOfCm, VIEW } from "@/components/canal-map/map-geometry";
+import { radiusOfCm, VIEW } from "@/lib/map/geometry";
 import { overlapH } from "@/lib/geometry";
 
 export const BASE_URL = process.env.DENTATE_BASE_URL ?? "http://127.0.0.1:3100";

@@ -1,7 +1,7 @@
 import Link from "next/link";
 import { z } from "zod";
 import { AppShell } from "@/components/shell/app-shell";
-import { listAuditActions, listAuditEvents } from "@/db/queries/audit-log";
+import { listAuditActions, listAuditEvents } from "@/db/queries/audit-trail";
 import { listStaff } from "@/db/queries/users";
 import { requirePageRole } from "@/lib/auth/page-guard";
 

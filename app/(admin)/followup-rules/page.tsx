@@ -1,7 +1,7 @@
 import { AppShell } from "@/components/shell/app-shell";
-import { listSiteRules } from "@/db/queries/followup";
+import { listSiteRules } from "@/db/queries/due-dates";
 import { requirePageRole } from "@/lib/auth/page-guard";
-import { DEFAULT_FOLLOWUP_MONTHS, FOLLOWUP_RULE_KEYS } from "@/lib/followup/rules";
+import { DEFAULT_FOLLOWUP_MONTHS, FOLLOWUP_RULE_KEYS } from "@/lib/due-dates/rules";
 import { RulesForm } from "./rules-form";
 
 export const metadata = { title: "Follow-up rules" };

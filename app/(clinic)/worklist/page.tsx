@@ -1,9 +1,9 @@
 import Link from "next/link";
 import { z } from "zod";
 import { AppShell } from "@/components/shell/app-shell";
-import { OverdueBadge } from "@/components/followup/overdue-flag";
-import { recordAudit } from "@/db/queries/audit";
-import { listSiteRules } from "@/db/queries/followup";
+import { OverdueBadge } from "@/components/due-dates/overdue-flag";
+import { recordAudit } from "@/db/queries/audit-write";
+import { listSiteRules } from "@/db/queries/due-dates";
 import { listClinicians, listWorklist, WORKLIST_SORTS, type WorklistSort } from "@/db/queries/worklist";
 import { scopeOf } from "@/lib/auth/guard";
 import { CLINICAL_ROLES, requirePageRole } from "@/lib/auth/page-guard";

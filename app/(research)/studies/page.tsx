@@ -1,6 +1,6 @@
 import Link from "next/link";
 import { AppShell } from "@/components/shell/app-shell";
-import { listStudies } from "@/db/queries/studies";
+import { listStudies } from "@/db/queries/research/studies";
 import { scopeOf } from "@/lib/auth/guard";
 import { requirePageRole } from "@/lib/auth/page-guard";
 

@@ -18,15 +18,15 @@ import { LesionTable } from "./lesion-table";
 import { MapEditor } from "./map-editor";
 import { useLesionStore, type LesionPatch, type SaveInfo } from "./use-lesion-store";
 import type { LesionDto, VisitMapDto } from "@/lib/validation/lesions";
-import type { FollowUp } from "@/components/visit/follow-up/use-follow-up";
-import type { LookAgain } from "@/components/visit/follow-up/use-look-again";
-import { FollowUpPanel, GhostCard } from "@/components/visit/follow-up/follow-up-panel";
-import { TrackTools } from "@/components/visit/follow-up/track-tools";
-import { TreatedSummary } from "@/components/visit/follow-up/treated-summary";
-import { useFollowUp } from "@/components/visit/follow-up/use-follow-up";
-import { useLookAgain } from "@/components/visit/follow-up/use-look-again";
-import { useTreatedArcs } from "@/components/visit/follow-up/use-treated-arcs";
-import { ghostStatusWords } from "@/components/visit/follow-up/look-again";
+import type { FollowUp } from "@/components/visit/refind/use-follow-up";
+import type { LookAgain } from "@/components/visit/refind/use-look-again";
+import { FollowUpPanel, GhostCard } from "@/components/visit/refind/follow-up-panel";
+import { TrackTools } from "@/components/visit/refind/track-tools";
+import { TreatedSummary } from "@/components/visit/refind/treated-summary";
+import { useFollowUp } from "@/components/visit/refind/use-follow-up";
+import { useLookAgain } from "@/components/visit/refind/use-look-again";
+import { useTreatedArcs } from "@/components/visit/refind/use-treated-arcs";
+import { ghostStatusWords } from "@/components/visit/refind/look-again";
 
 export interface VisitMapEditorProps {
   visitId: string;

@@ -1,7 +1,7 @@
 import "server-only";
 import { PassThrough, Transform, type Readable } from "node:stream";
 import { sql } from "../../client";
-import { recordAudit } from "../audit";
+import { recordAudit } from "../audit-write";
 import type { ExportDataset } from "@/lib/validation/research";
 import { EXPORT_DATASETS } from "@/lib/validation/research";
 import { exportSelect } from "./export-sql";

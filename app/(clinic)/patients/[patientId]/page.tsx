@@ -2,13 +2,13 @@ import Link from "next/link";
 import { notFound } from "next/navigation";
 import { AppShell } from "@/components/shell/app-shell";
 import { getPatient, listVisitsForPatient } from "@/db/queries/patients";
-import { recordAudit } from "@/db/queries/audit";
+import { recordAudit } from "@/db/queries/audit-write";
 import { scopeOf } from "@/lib/auth/guard";
 import { CLINICAL_ROLES, requirePageRole } from "@/lib/auth/page-guard";
 import { uuidParam } from "@/lib/http/route";
 import { NewVisitForm } from "@/components/patient/new-visit-form";
-import { FollowupBanner } from "@/components/followup/overdue-flag";
-import { ScreeningGuidance } from "@/components/followup/screening-guidance";
+import { FollowupBanner } from "@/components/due-dates/overdue-flag";
+import { ScreeningGuidance } from "@/components/due-dates/screening-guidance";
 import { OpenDisagreements } from "@/components/review/open-disagreements";
 import { POSITION_WORDS } from "@/lib/report/labels";
 

@@ -3,10 +3,10 @@ import { notFound } from "next/navigation";
 import { AppShell } from "@/components/shell/app-shell";
 import { EnrolForm } from "@/components/research/enrol-form";
 import { ExportPanel } from "@/components/research/export-panel";
-import { GradeChart } from "@/components/research/grade-chart";
+import { QuarterGradeChart } from "@/components/research/quarter-grade-chart";
 import { RecurrenceChart } from "@/components/research/recurrence-chart";
 import { WithdrawControl } from "@/components/research/withdraw-control";
-import { recordAudit } from "@/db/queries/audit";
+import { recordAudit } from "@/db/queries/audit-write";
 import { loadRegistryDashboard } from "@/db/queries/research/dashboard";
 import { listEnrolmentCandidates } from "@/db/queries/research/enrolment";
 import { getStudy, listEnrolments } from "@/db/queries/research/studies";
@@ -67,7 +67,7 @@ export default async function StudyPage({ params }: { params: Promise<{ studyId:
         <div className="mt-6 grid gap-6 lg:grid-cols-2">
           <div className="rounded-lg border border-rule bg-panel p-4">
             <h3 className="font-bold">Lesions by grade over time</h3>
-            <GradeChart rows={dash.gradeByQuarter} />
+            <QuarterGradeChart rows={dash.gradeByQuarter} />
           </div>
           <div className="rounded-lg border border-rule bg-panel p-4">
             <h3 className="font-bold">Staying free of HSIL after clearance</h3>

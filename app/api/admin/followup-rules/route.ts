@@ -1,7 +1,7 @@
 import { z } from "zod";
-import { listSiteRules, updateSiteRules } from "@/db/queries/followup";
+import { listSiteRules, updateSiteRules } from "@/db/queries/due-dates";
 import { requireSite } from "@/lib/auth/guard";
-import { siteRuleTableSchema } from "@/lib/followup/rules";
+import { siteRuleTableSchema } from "@/lib/due-dates/rules";
 import { readJson, route } from "@/lib/http/route";
 
 const putSchema = z.object({ siteId: z.string().uuid("Choose a site."), rules: siteRuleTableSchema });

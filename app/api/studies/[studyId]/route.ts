@@ -1,4 +1,4 @@
-import { recordAudit } from "@/db/queries/audit";
+import { recordAudit } from "@/db/queries/audit-write";
 import { listEnrolmentCandidates } from "@/db/queries/research/enrolment";
 import { getStudy, listEnrolments } from "@/db/queries/research/studies";
 import { scopeOf } from "@/lib/auth/guard";

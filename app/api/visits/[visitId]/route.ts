@@ -1,5 +1,5 @@
 import { getVisitRecord, updateExamDetails } from "@/db/queries/visit-record";
-import { recordAudit } from "@/db/queries/audit";
+import { recordAudit } from "@/db/queries/audit-write";
 import { scopeOf } from "@/lib/auth/guard";
 import { idParam, readJson, route } from "@/lib/http/route";
 import { examDetailsSchema, visitPermissions } from "@/lib/validation/visit-record";

@@ -1,5 +1,5 @@
 import { createVisit } from "@/db/queries/visits";
-import { recordAudit } from "@/db/queries/audit";
+import { recordAudit } from "@/db/queries/audit-write";
 import { scopeOf } from "@/lib/auth/guard";
 import { AppError } from "@/lib/errors";
 import { idParam, json, readJson, route } from "@/lib/http/route";

@@ -1,5 +1,5 @@
 import { addAddendum, listAddenda } from "@/db/queries/signing";
-import { recordAudit } from "@/db/queries/audit";
+import { recordAudit } from "@/db/queries/audit-write";
 import { scopeOf } from "@/lib/auth/guard";
 import { idParam, json, readJson, route } from "@/lib/http/route";
 import { addendumSchema } from "@/lib/validation/visit-record";

@@ -1,5 +1,5 @@
 import { addDose, listDoses } from "@/db/queries/anaesthetic";
-import { recordAudit } from "@/db/queries/audit";
+import { recordAudit } from "@/db/queries/audit-write";
 import { scopeOf } from "@/lib/auth/guard";
 import { idParam, json, readJson, route } from "@/lib/http/route";
 import { anaestheticSchema } from "@/lib/validation/treatments";

@@ -2,7 +2,7 @@ import { randomUUID } from "node:crypto";
 import { z } from "zod";
 import { insertAttachment, lesionBelongsToVisit, listAttachmentsForVisit } from "@/db/queries/attachments";
 import { loadVisit } from "@/db/queries/visit-access";
-import { recordAudit } from "@/db/queries/audit";
+import { recordAudit } from "@/db/queries/audit-write";
 import { db } from "@/db/client";
 import { scopeOf } from "@/lib/auth/guard";
 import { AppError } from "@/lib/errors";

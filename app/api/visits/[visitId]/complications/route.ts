@@ -1,5 +1,5 @@
 import { addComplication, listComplications } from "@/db/queries/complications";
-import { recordAudit } from "@/db/queries/audit";
+import { recordAudit } from "@/db/queries/audit-write";
 import { scopeOf } from "@/lib/auth/guard";
 import { idParam, json, readJson, route } from "@/lib/http/route";
 import { complicationSchema } from "@/lib/validation/visit-record";

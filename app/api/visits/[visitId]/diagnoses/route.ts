@@ -1,5 +1,5 @@
 import { confirmDiagnosis, getDiagnoses, unconfirmDiagnosis } from "@/db/queries/diagnoses";
-import { recordAudit } from "@/db/queries/audit";
+import { recordAudit } from "@/db/queries/audit-write";
 import { scopeOf } from "@/lib/auth/guard";
 import { idParam, json, readJson, readQuery, route } from "@/lib/http/route";
 import { confirmDiagnosisSchema, diagnosisQuery } from "@/lib/validation/visit-record";

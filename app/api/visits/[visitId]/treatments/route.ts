@@ -1,5 +1,5 @@
 import { addTreatment, listTreatments } from "@/db/queries/treatments";
-import { recordAudit } from "@/db/queries/audit";
+import { recordAudit } from "@/db/queries/audit-write";
 import { scopeOf } from "@/lib/auth/guard";
 import { idParam, json, readJson, route } from "@/lib/http/route";
 import { treatmentSchema } from "@/lib/validation/treatments";

@@ -1,4 +1,4 @@
-import { recordAudit } from "@/db/queries/audit";
+import { recordAudit } from "@/db/queries/audit-write";
 import { getEnrolment, withdrawEnrolment } from "@/db/queries/research/studies";
 import { scopeOf } from "@/lib/auth/guard";
 import { AppError } from "@/lib/errors";

@@ -1,5 +1,5 @@
 import { deleteDose } from "@/db/queries/anaesthetic";
-import { recordAudit } from "@/db/queries/audit";
+import { recordAudit } from "@/db/queries/audit-write";
 import { scopeOf } from "@/lib/auth/guard";
 import { idParam, route } from "@/lib/http/route";
 

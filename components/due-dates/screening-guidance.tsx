@@ -1,8 +1,8 @@
 // Screening guidance for intake: when anal cancer screening is suggested for this person under
-// the IANS 2024 consensus (lib/followup). Shown as guidance; local guidelines and the clinician decide.
+// the IANS 2024 consensus (lib/due-dates). Shown as guidance; local guidelines and the clinician decide.
 import { Caution } from "@/components/ui/caution";
 import type { RiskGroup } from "@/lib/domain/vocab";
-import { screeningSuggestion } from "@/lib/followup/eligibility";
+import { screeningSuggestion } from "@/lib/due-dates/eligibility";
 
 export interface ScreeningGuidanceProps {
   riskGroup: RiskGroup;

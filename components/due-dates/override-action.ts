@@ -3,7 +3,7 @@
 import { headers } from "next/headers";
 import { revalidatePath } from "next/cache";
 import { z } from "zod";
-import { setNextDueOverride } from "@/db/queries/followup";
+import { setNextDueOverride } from "@/db/queries/due-dates";
 import { getCurrentUser, requireRole, scopeOf } from "@/lib/auth/guard";
 import { clientIp } from "@/lib/auth/request-info";
 import { AppError } from "@/lib/errors";

@@ -2,7 +2,7 @@ import { describe, expect, it } from "vitest";
 import { and, eq, like } from "drizzle-orm";
 import { db } from "@/db/client";
 import { auditEvents, lesions, mailOutbox, reviews, treatments, users, visits } from "@/db/schema";
-import { getPatientDue, setNextDueOverride } from "@/db/queries/followup";
+import { getPatientDue, setNextDueOverride } from "@/db/queries/due-dates";
 import { listWorklist } from "@/db/queries/worklist";
 import { refreshTrackStatuses } from "@/db/queries/tracking";
 import { notifyReviewRequested } from "@/lib/mail/notifications";

@@ -1,6 +1,6 @@
 // Turns what the latest visit recorded into the summary the follow-up rules read.
 import type { Cytology, Grade, Histology } from "@/lib/domain/vocab";
-import { addMonths, dayNumber, type DateInput } from "@/lib/deidentify/calendar";
+import { addMonths, dayNumber, type DateInput } from "@/lib/dates/calendar";
 import type { FindingLesion, FindingsSummary } from "./rules";
 
 export interface TreatmentSeen {

@@ -1,33 +1,32 @@
 "use client";
 
+import { useId } from "react";
 import { Bar, BarChart, CartesianGrid, Legend, ResponsiveContainer, Tooltip, XAxis, YAxis } from "recharts";
+import { GradePattern, patternId, safeId } from "@/components/canal-map/patterns";
+import { GRADE_ENCODING } from "@/lib/map/encoding";
 import { GRADE_LABEL, GRADES, type Grade } from "@/lib/domain/vocab";
-
-const FILL: Record<Grade, string> = {
-  benign: "var(--color-grade-benign)",
-  condyloma: "var(--color-grade-condyloma)",
-  lsil: "var(--color-grade-lsil)",
-  hsil: "var(--color-grade-hsil)",
-  suspected_cancer: "var(--color-grade-cancer)",
-};
 
 export type QuarterRow = { quarter: string } & Record<Grade, number>;
 
 /** Lesions seen per quarter, stacked by impression grade; the table below carries the same figures for greyscale and screen readers. */
-export function GradeChart({ rows }: { rows: QuarterRow[] }) {
+// Fills, outlines and hues come from the map's encoding, so the chart reads in greyscale as the map does.
+export function QuarterGradeChart({ rows }: { rows: QuarterRow[] }) {
+  const prefix = safeId(useId());
   if (rows.length === 0) return <p className="text-sm text-ink-soft">No lesions recorded at signed visits yet.</p>;
   return (
     <figure>
       <div className="h-72 w-full">
         <ResponsiveContainer>
           <BarChart data={rows} margin={{ top: 8, right: 16, bottom: 8, left: 0 }}>
+            <defs>{GRADES.map((g) => <GradePattern key={g} id={patternId(prefix, g)} grade={g} />)}</defs>
             <CartesianGrid stroke="var(--color-rule)" vertical={false} />
             <XAxis dataKey="quarter" tick={{ fontSize: 12 }} />
             <YAxis allowDecimals={false} tick={{ fontSize: 12 }} />
             <Tooltip />
             <Legend />
             {GRADES.map((g) => (
-              <Bar key={g} dataKey={g} name={GRADE_LABEL[g]} stackId="grade" fill={FILL[g]} stroke="var(--color-panel)" isAnimationActive={false} />
+              <Bar key={g} dataKey={g} name={`${GRADE_ENCODING[g].label} (${GRADE_ENCODING[g].words})`} stackId="grade" fill={`url(#${patternId(prefix, g)})`}
+                stroke={GRADE_ENCODING[g].strokeHue} strokeWidth={Math.min(GRADE_ENCODING[g].outlineWidth, 2.5)} strokeDasharray={GRADE_ENCODING[g].outlineDash} isAnimationActive={false} />
             ))}
           </BarChart>
         </ResponsiveContainer>

@@ -2,7 +2,7 @@
 // guidance for scheduling, and the clinician's own date always wins.
 import { z } from "zod";
 import { GRADE_RANK, HISTOLOGY_AS_GRADE, type Cytology, type Grade, type Histology } from "@/lib/domain/vocab";
-import { addMonths, daysBetween, isoDate, type DateInput } from "@/lib/deidentify/calendar";
+import { addMonths, daysBetween, isoDate, type DateInput } from "@/lib/dates/calendar";
 
 export const FOLLOWUP_RULE_KEYS = [
   "suspected_cancer",

@@ -1,7 +1,7 @@
 // The follow-up flag. <OverdueBadge> is plain; <FollowupBanner> is a server component for the
 // patient page: it loads the due date, shows it loudly when overdue, and lets a clinician set
 // their own date with a reason.
-import { getPatientDue } from "@/db/queries/followup";
+import { getPatientDue } from "@/db/queries/due-dates";
 import type { CurrentUser } from "@/lib/auth/guard";
 import { scopeOf } from "@/lib/auth/guard";
 import { OverrideForm } from "./override-form";

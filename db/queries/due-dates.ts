@@ -1,5 +1,5 @@
 import "server-only";
-// Next visit due per patient, from the latest visit's findings (lib/followup decides), the
+// Next visit due per patient, from the latest visit's findings (lib/due-dates decides), the
 // site's rule table and the clinician's own date.
 import { and, desc, eq, inArray, isNotNull, type SQL } from "drizzle-orm";
 import { db } from "../client";
@@ -7,9 +7,9 @@ import { auditEvents, biopsies, lesions, patients, sites, trackStatuses, treatme
 import { inScope, type SiteScope } from "./scope";
 import { AppError } from "@/lib/errors";
 import { HISTOLOGY, type Histology } from "@/lib/domain/vocab";
-import { nextDue, overdueDays, siteRuleTableSchema, type NextDue, type SiteRuleTable } from "@/lib/followup/rules";
-import { summariseLatestFindings } from "@/lib/followup/latest-findings";
-import { isoDate } from "@/lib/deidentify/calendar";
+import { nextDue, overdueDays, siteRuleTableSchema, type NextDue, type SiteRuleTable } from "@/lib/due-dates/rules";
+import { summariseLatestFindings } from "@/lib/due-dates/latest-findings";
+import { isoDate } from "@/lib/dates/calendar";
 
 export interface PatientDue extends NextDue {
   patientId: string;

@@ -1,7 +1,7 @@
 // Anal cancer screening start, after the IANS 2024 consensus (Stier EA et al., Int J Cancer
 // 2024;154:1694-1702; Stier EA et al., Int J Cancer 2024). A suggestion for the clinician, never a decision.
 import type { RiskGroup } from "@/lib/domain/vocab";
-import { anniversary, dayNumber, isoDate, type DateInput } from "@/lib/deidentify/calendar";
+import { anniversary, dayNumber, isoDate, type DateInput } from "@/lib/dates/calendar";
 
 export interface ScreeningInput {
   riskGroup: RiskGroup;

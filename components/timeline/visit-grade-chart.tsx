@@ -25,7 +25,7 @@ export function chartRows(t: Timeline) {
  * the treated share of the circumference (a line on the right-hand axis, in %). A table with
  * the same numbers follows for screen readers and for print.
  */
-export function GradeChart({ timeline }: { timeline: Timeline }) {
+export function VisitGradeChart({ timeline }: { timeline: Timeline }) {
   const prefix = safeId(useId());
   const rows = chartRows(timeline);
   return (
