@@ -1,13 +1,9 @@
 import "server-only";
 import { and, asc, eq, isNull } from "drizzle-orm";
-import { db } from "../client";
+import { db, type Tx } from "../client";
 import { biopsies, lesions, patients, users, visits } from "../schema";
 import { inScope, type SiteScope } from "./scope";
-import { loadVisit, lockDraftVisit } from "./visit-access";
-import { refreshTrackStatuses } from "./tracking";
-import { recordAudit } from "./audit-write";
-import { AppError } from "@/lib/errors";
-import type { CreateBiopsyInput, HistologyResultInput } from "@/lib/validation/biopsies";
+import { loadVisit } from "./visit-access";
 
 const columns = {
   id: biopsies.id,
@@ -29,60 +25,40 @@ export async function listBiopsiesForVisit(scope: SiteScope, visitId: string) {
   return { visit: { id: visit.id, patientId: visit.patientId, status: visit.status }, biopsies: rows };
 }
 
-const LABELS = "ABCDEFGHIJKLMNOPQRSTUVWXYZ";
-
-/** Specimen labels run A, B, C… per visit, as printed on the requisition. */
-export async function createBiopsy(scope: SiteScope, visitId: string, input: CreateBiopsyInput, ip: string) {
-  return db.transaction(async (tx) => {
-    const visit = await lockDraftVisit(tx, scope, visitId);
-    let place: { lesionId: string | null; clockH: number; distanceCm: number };
-    if ("lesionId" in input) {
-      const [l] = await tx.select().from(lesions).where(and(eq(lesions.id, input.lesionId), eq(lesions.visitId, visit.id)));
-      if (!l) throw new AppError("invalid", undefined, { lesionId: ["That lesion is not on this visit."] });
-      place = { lesionId: l.id, clockH: l.clockStartH, distanceCm: (l.distanceStartCm + l.distanceEndCm) / 2 };
-    } else {
-      place = { lesionId: null, ...input };
-    }
-    const used = new Set((await tx.select({ l: biopsies.specimenLabel }).from(biopsies).where(eq(biopsies.visitId, visit.id))).map((r) => r.l));
-    const label = [...LABELS].find((c) => !used.has(c));
-    if (!label) throw new AppError("invalid", "A visit holds at most 26 specimens (A to Z).", { _: ["No specimen label left."] });
-    const [row] = await tx.insert(biopsies).values({ visitId: visit.id, siteId: visit.siteId, specimenLabel: label, ...place }).returning();
-    await refreshTrackStatuses(tx, visit.patientId, visit.siteId);
-    await recordAudit({ userId: scope.userId, siteId: visit.siteId, patientId: visit.patientId, action: "biopsy.create", entityType: "biopsy", entityId: row!.id, ip, detail: { label, ...place } }, tx);
-    return row!;
-  });
+export async function lesionPlaceOnVisit(tx: Tx, lesionId: string, visitId: string) {
+  const [l] = await tx
+    .select({ id: lesions.id, clockStartH: lesions.clockStartH, clockEndH: lesions.clockEndH, distanceStartCm: lesions.distanceStartCm, distanceEndCm: lesions.distanceEndCm })
+    .from(lesions)
+    .where(and(eq(lesions.id, lesionId), eq(lesions.visitId, visitId)));
+  return l ?? null;
 }
 
-export async function deleteBiopsy(scope: SiteScope, biopsyId: string, ip: string) {
-  await db.transaction(async (tx) => {
-    const [b] = await tx.select({ visitId: biopsies.visitId }).from(biopsies).where(and(eq(biopsies.id, biopsyId), inScope(biopsies.siteId, scope)));
-    if (!b) throw new AppError("not_found");
-    const visit = await lockDraftVisit(tx, scope, b.visitId);
-    await tx.delete(biopsies).where(eq(biopsies.id, biopsyId));
-    await refreshTrackStatuses(tx, visit.patientId, visit.siteId);
-    await recordAudit({ userId: scope.userId, siteId: visit.siteId, patientId: visit.patientId, action: "biopsy.delete", entityType: "biopsy", entityId: biopsyId, ip }, tx);
-  });
+export async function specimenLabelsOfVisit(tx: Tx, visitId: string): Promise<Set<string>> {
+  return new Set((await tx.select({ l: biopsies.specimenLabel }).from(biopsies).where(eq(biopsies.visitId, visitId))).map((r) => r.l));
 }
 
-/**
- * The laboratory result comes back after the visit, often after it is signed: entering it is a
- * result, not an edit of the exam, so it is allowed on signed visits, audited, and histology then
- * decides the lesion's grade for tracking.
- */
-export async function enterHistology(scope: SiteScope, biopsyId: string, input: HistologyResultInput, ip: string) {
-  return db.transaction(async (tx) => {
-    const [b] = await tx.select({ id: biopsies.id, visitId: biopsies.visitId, siteId: biopsies.siteId, before: biopsies.histology }).from(biopsies).where(and(eq(biopsies.id, biopsyId), inScope(biopsies.siteId, scope))).for("update");
-    if (!b) throw new AppError("not_found");
-    const [v] = await tx.select({ patientId: visits.patientId }).from(visits).where(eq(visits.id, b.visitId));
-    const [row] = await tx
-      .update(biopsies)
-      .set({ histology: input.histology, ainGrade: input.ainGrade ?? null, p16: input.p16 ?? null, resultEnteredAt: new Date(), resultEnteredBy: scope.userId })
-      .where(eq(biopsies.id, biopsyId))
-      .returning();
-    await refreshTrackStatuses(tx, v!.patientId, b.siteId);
-    await recordAudit({ userId: scope.userId, siteId: b.siteId, patientId: v!.patientId, action: b.before ? "biopsy.result.correct" : "biopsy.result.enter", entityType: "biopsy", entityId: biopsyId, ip, detail: { before: b.before, ...input } }, tx);
-    return row!;
-  });
+export async function insertBiopsy(tx: Tx, values: typeof biopsies.$inferInsert) {
+  const [row] = await tx.insert(biopsies).values(values).returning();
+  return row!;
+}
+
+export async function biopsyInScope(tx: Tx, scope: SiteScope, biopsyId: string, opts: { forUpdate?: boolean } = {}) {
+  const q = tx
+    .select({ id: biopsies.id, visitId: biopsies.visitId, siteId: biopsies.siteId, before: biopsies.histology, patientId: visits.patientId })
+    .from(biopsies)
+    .innerJoin(visits, eq(visits.id, biopsies.visitId))
+    .where(and(eq(biopsies.id, biopsyId), inScope(biopsies.siteId, scope)));
+  const [b] = await (opts.forUpdate ? q.for("update", { of: biopsies }) : q);
+  return b ?? null;
+}
+
+export async function deleteBiopsyRow(tx: Tx, biopsyId: string): Promise<void> {
+  await tx.delete(biopsies).where(eq(biopsies.id, biopsyId));
+}
+
+export async function updateBiopsyResult(tx: Tx, biopsyId: string, set: Partial<typeof biopsies.$inferInsert>) {
+  const [row] = await tx.update(biopsies).set(set).where(eq(biopsies.id, biopsyId)).returning();
+  return row!;
 }
 
 /** Biopsies still waiting for a result at the caller's sites, oldest first. */

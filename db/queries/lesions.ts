@@ -1,16 +1,12 @@
 import "server-only";
-import { randomUUID } from "node:crypto";
 import { and, asc, eq, sql as dsql } from "drizzle-orm";
 import { db, prepared, type Tx } from "../client";
 import { biopsies, lesions, lesionTracks, treatments } from "../schema";
 import { inScopeParam, siteIdsParam, type SiteScope } from "./scope";
-import { loadVisitAudited, lockDraftVisit, lockDraftVisitForLesion } from "./visit-access";
-import { refreshTrackStatuses } from "./tracking";
-import { recordAudit, type ReadAudit } from "./audit-write";
-import { AppError } from "@/lib/errors";
+import { loadVisitAudited } from "./visit-access";
+import type { ReadAudit } from "./audit-write";
 import { HISTOLOGY, type Histology } from "@/lib/domain/vocab";
-import { DEFAULT_ZONE_BOUNDS, zoneBoundsSchema, zoneForDistance, type ZoneBounds } from "@/lib/geometry/zones";
-import type { CreateLesionInput, LesionDto, UpdateLesionInput, VisitMapDto } from "@/lib/validation/lesions";
+import type { LesionDto, VisitMapDto } from "@/lib/validation/lesions";
 
 const lesionColumns = {
   id: lesions.id,
@@ -40,7 +36,7 @@ const decorationColumns = {
   treated: dsql<boolean>`exists(select 1 from ${treatments} where ${treatments.lesionId} = ${lesions.id})`,
 };
 
-type LesionRow = Omit<LesionDto, "histology" | "biopsyLabels" | "treated">;
+export type LesionRow = Omit<LesionDto, "histology" | "biopsyLabels" | "treated">;
 const { trackLabel: _trackLabel, ...lesionColumnsOfRow } = lesionColumns;
 type DecoratedRow = LesionRow & { biopsyLabels: string[]; histologies: string[]; treated: boolean };
 
@@ -76,18 +72,8 @@ export async function listLesionsForVisit(scope: SiteScope, visitId: string, aud
   };
 }
 
-function boundsOf(zoneBounds: unknown): ZoneBounds {
-  const parsed = zoneBoundsSchema.safeParse(zoneBounds);
-  return parsed.success ? parsed.data : DEFAULT_ZONE_BOUNDS;
-}
-
-function zoneFor(bounds: ZoneBounds, startCm: number, endCm: number) {
-  const z = zoneForDistance((startCm + endCm) / 2, bounds);
-  if (!z) throw new AppError("invalid", undefined, { distanceStartCm: ["This distance lies outside the mapped zones."] });
-  return z;
-}
-
-async function fetchOne(tx: Tx, id: string): Promise<LesionDto> {
+/** One lesion as the map shows it. */
+export async function fetchLesion(tx: Tx, id: string): Promise<LesionDto> {
   const rows = await lesionById(tx, { id });
   return toDto(rows[0] as DecoratedRow);
 }
@@ -95,7 +81,7 @@ async function fetchOne(tx: Tx, id: string): Promise<LesionDto> {
 // A new lesion's track and the lesion itself, each built once. Both ids are made here, so the two
 // inserts and everything that follows them go out together (one round trip in the transaction).
 const ph = (name: string) => dsql.placeholder(name);
-const insertTrack = prepared((run) =>
+export const insertTrack = prepared((run) =>
   run
     .insert(lesionTracks)
     .values({
@@ -106,7 +92,7 @@ const insertTrack = prepared((run) =>
     })
     .returning({ id: lesionTracks.id, label: lesionTracks.label }),
 );
-const insertLesion = prepared((run) =>
+export const insertLesion = prepared((run) =>
   run
     .insert(lesions)
     .values({
@@ -131,112 +117,38 @@ const insertLesion = prepared((run) =>
     })
     .returning(lesionColumnsOfRow),
 );
-const lesionByClientKey = prepared((run) =>
+export const lesionByClientKey = prepared((run) =>
   run.select({ id: lesions.id }).from(lesions).where(and(eq(lesions.visitId, ph("visitId")), eq(lesions.clientKey, ph("clientKey")))),
 );
 
-/** A new lesion starts its own track; linking it to an earlier track is a separate, audited step. */
-export async function createLesion(scope: SiteScope, visitId: string, input: CreateLesionInput, ip: string): Promise<LesionDto> {
-  return db.transaction(async (tx) => {
-    // Track labels are per patient: the patient is locked with the visit so two visits cannot take the same label.
-    // The same create sent again (its first answer was lost) is answered with the lesion it made.
-    // The client-key lookup goes out in the same round trip, right behind the lock on the
-    // transaction's one connection, as a statement of its own: PostgreSQL runs it after the lock
-    // is held, with a fresh snapshot (READ COMMITTED), so of two such requests the second sees the
-    // first's row. (Inside the locking statement it would read the snapshot from before the wait.)
-    // Its answer is used only once the lock has found the visit in the caller's scope.
-    const [{ visit }, made] = await Promise.all([
-      lockDraftVisitForLesion(tx, scope, visitId, { lockPatient: true }),
-      input.clientKey ? lesionByClientKey(tx, { visitId, clientKey: input.clientKey }).then((rows) => rows[0]) : undefined,
-    ]);
-    if (made) return fetchOne(tx, made.id);
-    const zone = zoneFor(boundsOf(visit.zoneBounds), input.distanceStartCm, input.distanceEndCm);
-    const trackId = randomUUID();
-    const lesionId = randomUUID();
-    // Sent together, in the order they are started here on the transaction's one connection: the
-    // track, the lesion on it, then (seeing both) the status refresh's read and the audit. A failed
-    // insert fails the rest and the transaction.
-    const [[track], [row]] = await Promise.all([
-      insertTrack(tx, { id: trackId, patientId: visit.patientId, siteId: visit.siteId }),
-      insertLesion(tx, {
-        id: lesionId,
-        visitId: visit.id,
-        siteId: visit.siteId,
-        trackId,
-        clockStartH: input.clockStartH,
-        clockEndH: input.clockEndH,
-        distanceStartCm: input.distanceStartCm,
-        distanceEndCm: input.distanceEndCm,
-        zone,
-        grade: input.grade,
-        morphology: input.morphology ?? null,
-        acetowhite: input.acetowhite ?? null,
-        lugol: input.lugol ?? null,
-        vessels: input.vessels ?? [],
-        sizeMm: input.sizeMm ?? null,
-        note: input.note ?? null,
-        clientKey: input.clientKey ?? null,
-      }),
-      refreshTrackStatuses(tx, visit.patientId, visit.siteId),
-      recordAudit({ userId: scope.userId, siteId: visit.siteId, patientId: visit.patientId, action: "lesion.create", entityType: "lesion", entityId: lesionId, ip, detail: { ...input } }, tx),
-    ]);
-    // A lesion created just now has no biopsy and no treatment yet.
-    return { ...(row as Omit<LesionRow, "trackLabel">), vessels: row!.vessels as LesionDto["vessels"], trackLabel: track!.label, histology: null, biopsyLabels: [], treated: false };
-  });
+
+/** The track, when it belongs to the patient. */
+export async function trackOfPatient(tx: Tx, trackId: string, patientId: string) {
+  const [track] = await tx.select({ id: lesionTracks.id }).from(lesionTracks).where(and(eq(lesionTracks.id, trackId), eq(lesionTracks.patientId, patientId)));
+  return track ?? null;
 }
 
-export async function updateLesion(scope: SiteScope, visitId: string, lesionId: string, input: UpdateLesionInput, ip: string): Promise<LesionDto> {
-  return db.transaction(async (tx) => {
-    const { visit, current } = await lockDraftVisitForLesion(tx, scope, visitId, { lesionId });
-    if (!current) throw new AppError("not_found");
-    if (current.version !== input.version) throw new AppError("conflict");
-    const { version, trackId, ...fields } = input;
-    if (trackId !== undefined && trackId !== null) {
-      const [track] = await tx.select({ id: lesionTracks.id }).from(lesionTracks).where(and(eq(lesionTracks.id, trackId), eq(lesionTracks.patientId, visit.patientId)));
-      if (!track) throw new AppError("invalid", undefined, { trackId: ["That track does not belong to this patient."] });
-    }
-    const start = fields.distanceStartCm ?? current.distanceStartCm;
-    const end = fields.distanceEndCm ?? current.distanceEndCm;
-    if (start > end) throw new AppError("invalid", undefined, { distanceEndCm: ["The distance range must run from the lower to the higher value."] });
-    const zone = zoneFor(boundsOf(visit.zoneBounds), start, end);
-    // Track statuses are worked out from each lesion's grade and track, and from the patient's
-    // visits, biopsies, treatments and track checks, which a lesion update does not touch. Moving
-    // an extent or editing a description leaves them as they are: they are worked out again only
-    // when the grade or the track changes.
-    const statusesMayChange = (fields.grade !== undefined && fields.grade !== current.grade) || (trackId !== undefined && trackId !== current.trackId);
-    // The update, then (seeing it) the status refresh's read, the audit and the lesion as saved:
-    // sent together, in the order they are started here on the transaction's one connection (so
-    // the update is started with execute(), not left for Promise.all to start after the others).
-    // Should the update match no row, the transaction is rolled back with the rest.
-    const [updated, , , lesion] = await Promise.all([
-      tx
-        .update(lesions)
-        .set({ ...fields, ...(trackId !== undefined ? { trackId } : {}), zone, version: current.version + 1, updatedAt: new Date() })
-        .where(and(eq(lesions.id, lesionId), eq(lesions.version, version)))
-        .returning({ id: lesions.id })
-        .execute(),
-      statusesMayChange ? refreshTrackStatuses(tx, visit.patientId, visit.siteId) : null,
-      recordAudit({ userId: scope.userId, siteId: visit.siteId, patientId: visit.patientId, action: "lesion.update", entityType: "lesion", entityId: lesionId, ip, detail: { ...input } }, tx),
-      fetchOne(tx, lesionId),
-    ]);
-    if (updated.length === 0) throw new AppError("conflict");
-    return lesion;
-  });
+/** Writes a lesion's new values if its version is still `version`; started at once (see the services' ordering note). */
+export function updateLesionRow(tx: Tx, lesionId: string, version: number, set: Partial<typeof lesions.$inferInsert>) {
+  return tx
+    .update(lesions)
+    .set({ ...set, version: version + 1, updatedAt: new Date() })
+    .where(and(eq(lesions.id, lesionId), eq(lesions.version, version)))
+    .returning({ id: lesions.id })
+    .execute();
 }
 
-export async function deleteLesion(scope: SiteScope, visitId: string, lesionId: string, version: number, ip: string): Promise<void> {
-  await db.transaction(async (tx) => {
-    const visit = await lockDraftVisit(tx, scope, visitId);
-    const [current] = await tx.select({ version: lesions.version, trackId: lesions.trackId }).from(lesions).where(and(eq(lesions.id, lesionId), eq(lesions.visitId, visit.id)));
-    if (!current) throw new AppError("not_found");
-    if (current.version !== version) throw new AppError("conflict");
-    await tx.delete(lesions).where(eq(lesions.id, lesionId));
-    // A track left with no lesion anywhere was only this lesion's: remove it too.
-    if (current.trackId) {
-      const [{ left }] = await tx.select({ left: dsql<number>`count(*)::int` }).from(lesions).where(eq(lesions.trackId, current.trackId));
-      if (left === 0) await tx.execute(dsql`delete from lesion_tracks where id = ${current.trackId} and not exists (select 1 from track_checks where track_id = ${current.trackId}) and not exists (select 1 from adjudications where track_id = ${current.trackId})`);
-    }
-    await refreshTrackStatuses(tx, visit.patientId, visit.siteId);
-    await recordAudit({ userId: scope.userId, siteId: visit.siteId, patientId: visit.patientId, action: "lesion.delete", entityType: "lesion", entityId: lesionId, ip }, tx);
-  });
+export async function lesionOnVisit(tx: Tx, lesionId: string, visitId: string) {
+  const [row] = await tx.select({ version: lesions.version, trackId: lesions.trackId }).from(lesions).where(and(eq(lesions.id, lesionId), eq(lesions.visitId, visitId)));
+  return row ?? null;
+}
+
+export async function deleteLesionRow(tx: Tx, lesionId: string): Promise<void> {
+  await tx.delete(lesions).where(eq(lesions.id, lesionId));
+}
+
+/** Removes a track no lesion, track check or adjudication refers to any more. */
+export async function deleteTrackIfUnused(tx: Tx, trackId: string): Promise<void> {
+  const [{ left }] = await tx.select({ left: dsql<number>`count(*)::int` }).from(lesions).where(eq(lesions.trackId, trackId));
+  if (left === 0) await tx.execute(dsql`delete from lesion_tracks where id = ${trackId} and not exists (select 1 from track_checks where track_id = ${trackId}) and not exists (select 1 from adjudications where track_id = ${trackId})`);
 }

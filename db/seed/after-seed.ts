@@ -1,7 +1,7 @@
 // Derived data computed after the demo rows exist: every track's status at every visit.
 import { db } from "../client";
 import { patients } from "../schema";
-import { refreshTrackStatuses } from "../queries/tracking";
+import { refreshTrackStatuses } from "@/lib/server/track-statuses";
 
 export async function afterSeed(): Promise<void> {
   const all = await db.select({ id: patients.id, siteId: patients.siteId }).from(patients);

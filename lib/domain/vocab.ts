@@ -72,6 +72,7 @@ export type TrackStatus = (typeof TRACK_STATUSES)[number];
 
 /** What the examiner recorded for a previous track at a follow-up visit. */
 export const TRACK_CHECK_OUTCOMES = ["not_found", "treated"] as const;
+export type TrackCheckOutcome = (typeof TRACK_CHECK_OUTCOMES)[number];
 
 export const SEX_AT_BIRTH = ["female", "male", "intersex", "unknown"] as const;
 export const HIV_STATUS = ["positive", "negative", "unknown"] as const;
@@ -93,6 +94,7 @@ export const COMPLICATION_KINDS = ["pain", "bleeding", "other"] as const;
 export const SEVERITIES = ["mild", "moderate", "severe"] as const;
 
 export const VISIT_STATUSES = ["draft", "signed"] as const;
+export type VisitStatus = (typeof VISIT_STATUSES)[number];
 
 /** Rank of a grade for progression and regression (higher is worse). Common practice, no source. */
 export const GRADE_RANK: Record<Grade, number> = {

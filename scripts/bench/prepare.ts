@@ -6,7 +6,7 @@
 import { and, eq } from "drizzle-orm";
 import { db, runScript } from "@/db/client";
 import { lesions, lesionTracks, patients, sites, visits } from "@/db/schema";
-import { refreshTrackStatuses } from "@/db/queries/tracking";
+import { refreshTrackStatuses } from "@/lib/server/track-statuses";
 import { createSession, SESSION_COOKIE } from "@/lib/auth/session";
 import { GRADES } from "@/lib/domain/vocab";
 

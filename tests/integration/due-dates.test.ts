@@ -4,7 +4,7 @@ import { db } from "@/db/client";
 import { auditEvents, lesions, mailOutbox, reviews, treatments, users, visits } from "@/db/schema";
 import { getPatientDue, setNextDueOverride } from "@/db/queries/due-dates";
 import { listWorklist } from "@/db/queries/worklist";
-import { refreshTrackStatuses } from "@/db/queries/tracking";
+import { refreshTrackStatuses } from "@/lib/server/track-statuses";
 import { notifyReviewRequested } from "@/lib/mail/notifications";
 import { queueReminders } from "@/scripts/reminders";
 import { PUT as rulesPut } from "@/app/api/admin/followup-rules/route";

@@ -8,7 +8,7 @@ import ExcelJS from "exceljs";
 import { and, desc, eq } from "drizzle-orm";
 import { db } from "@/db/client";
 import * as s from "@/db/schema";
-import { refreshTrackStatuses } from "@/db/queries/tracking";
+import { refreshTrackStatuses } from "@/lib/server/track-statuses";
 import { GET as getCsv } from "@/app/api/exports/[dataset]/route";
 import { GET as getWorkbook } from "@/app/api/exports/workbook/route";
 import { GET as subjectFhir } from "@/app/api/studies/[studyId]/subjects/[subjectId]/fhir/route";

@@ -2,7 +2,7 @@ import { beforeAll, describe, expect, it } from "vitest";
 import { eq } from "drizzle-orm";
 import { db, onQuery } from "@/db/client";
 import { lesions, lesionTracks, trackStatuses, treatments, visits } from "@/db/schema";
-import { refreshTrackStatuses } from "@/db/queries/tracking";
+import { refreshTrackStatuses } from "@/lib/server/track-statuses";
 import { POST as createLesion } from "@/app/api/visits/[visitId]/lesions/route";
 import { GET as followUp, POST as trackAction } from "@/app/api/visits/[visitId]/tracks/route";
 import { GET as timeline } from "@/app/api/patients/[patientId]/timeline/route";

@@ -1,4 +1,4 @@
-import { deleteBiopsy, enterHistology } from "@/db/queries/biopsies";
+import { deleteBiopsy, enterHistology } from "@/lib/server/biopsies";
 import { scopeOf } from "@/lib/auth/guard";
 import { idParam, readJson, route } from "@/lib/http/route";
 import { histologyResultSchema } from "@/lib/validation/biopsies";

@@ -1,5 +1,4 @@
-import { getVisitRecord, updateExamDetails } from "@/db/queries/visit-record";
-import { recordAudit } from "@/db/queries/audit-write";
+import { readVisit, updateExamDetails } from "@/lib/server/visit-record";
 import { scopeOf } from "@/lib/auth/guard";
 import { idParam, readJson, route } from "@/lib/http/route";
 import { examDetailsSchema, visitPermissions } from "@/lib/validation/visit-record";
@@ -7,8 +6,7 @@ import { examDetailsSchema, visitPermissions } from "@/lib/validation/visit-reco
 type P = { visitId: string };
 
 export const GET = route<P>({ roles: ["clinician", "reviewer", "research_nurse", "admin"] }, async ({ user, params, ip }) => {
-  const visit = await getVisitRecord(scopeOf(user), idParam(params.visitId));
-  await recordAudit({ userId: user.id, siteId: visit.siteId, patientId: visit.patientId, action: "visit.read", entityType: "visit", entityId: visit.id, ip });
+  const visit = await readVisit(scopeOf(user), idParam(params.visitId), ip);
   return { visit, permissions: visitPermissions(user, visit) };
 });
 

@@ -1,4 +1,5 @@
-import { createBiopsy, listBiopsiesForVisit } from "@/db/queries/biopsies";
+import { listBiopsiesForVisit } from "@/db/queries/biopsies";
+import { createBiopsy } from "@/lib/server/biopsies";
 import { scopeOf } from "@/lib/auth/guard";
 import { idParam, json, readJson, route } from "@/lib/http/route";
 import { createBiopsySchema } from "@/lib/validation/biopsies";

@@ -1,4 +1,5 @@
-import { createLesion, listLesionsForVisit } from "@/db/queries/lesions";
+import { listLesionsForVisit } from "@/db/queries/lesions";
+import { createLesion } from "@/lib/server/lesions";
 import { scopeOf } from "@/lib/auth/guard";
 import { idParam, json, readJson, route } from "@/lib/http/route";
 import { createLesionSchema } from "@/lib/validation/lesions";

@@ -1,4 +1,4 @@
-import { applyTrackAction, loadFollowUpContext } from "@/db/queries/track-links";
+import { applyTrackAction, loadFollowUpContext } from "@/lib/server/refind";
 import { scopeOf } from "@/lib/auth/guard";
 import { idParam, readJson, route } from "@/lib/http/route";
 import { trackActionSchema } from "@/lib/validation/tracking";

@@ -1,4 +1,4 @@
-import { deleteLesion, updateLesion } from "@/db/queries/lesions";
+import { deleteLesion, updateLesion } from "@/lib/server/lesions";
 import { scopeOf } from "@/lib/auth/guard";
 import { idParam, readJson, readQuery, route } from "@/lib/http/route";
 import { deleteLesionQuery, updateLesionSchema } from "@/lib/validation/lesions";

@@ -1,0 +1,121 @@
+import "server-only";
+import { randomUUID } from "node:crypto";
+import { db } from "@/db/client";
+import {
+  deleteLesionRow, deleteTrackIfUnused, fetchLesion, insertLesion, insertTrack, lesionByClientKey, lesionOnVisit, trackOfPatient, updateLesionRow, type LesionRow,
+} from "@/db/queries/lesions";
+import { lockDraftVisit, lockDraftVisitForLesion } from "@/db/queries/visit-access";
+import { recordAudit } from "@/db/queries/audit-write";
+import type { SiteScope } from "@/db/queries/scope";
+import { AppError } from "@/lib/errors";
+import { DEFAULT_ZONE_BOUNDS, zoneBoundsSchema, zoneForDistance, type ZoneBounds } from "@/lib/geometry/zones";
+import type { CreateLesionInput, LesionDto, UpdateLesionInput } from "@/lib/validation/lesions";
+import { refreshTrackStatuses } from "./track-statuses";
+
+function boundsOf(zoneBounds: unknown): ZoneBounds {
+  const parsed = zoneBoundsSchema.safeParse(zoneBounds);
+  return parsed.success ? parsed.data : DEFAULT_ZONE_BOUNDS;
+}
+
+function zoneFor(bounds: ZoneBounds, startCm: number, endCm: number) {
+  const z = zoneForDistance((startCm + endCm) / 2, bounds);
+  if (!z) throw new AppError("invalid", undefined, { distanceStartCm: ["This distance lies outside the mapped zones."] });
+  return z;
+}
+
+/** A new lesion starts its own track; linking it to an earlier track is a separate, audited step. */
+export async function createLesion(scope: SiteScope, visitId: string, input: CreateLesionInput, ip: string): Promise<LesionDto> {
+  return db.transaction(async (tx) => {
+    // Track labels are per patient: the patient is locked with the visit so two visits cannot take the same label.
+    // The same create sent again (its first answer was lost) is answered with the lesion it made.
+    // The client-key lookup goes out in the same round trip, right behind the lock on the
+    // transaction's one connection, as a statement of its own: PostgreSQL runs it after the lock
+    // is held, with a fresh snapshot (READ COMMITTED), so of two such requests the second sees the
+    // first's row. (Inside the locking statement it would read the snapshot from before the wait.)
+    // Its answer is used only once the lock has found the visit in the caller's scope.
+    const [{ visit }, made] = await Promise.all([
+      lockDraftVisitForLesion(tx, scope, visitId, { lockPatient: true }),
+      input.clientKey ? lesionByClientKey(tx, { visitId, clientKey: input.clientKey }).then((rows) => rows[0]) : undefined,
+    ]);
+    if (made) return fetchLesion(tx, made.id);
+    const zone = zoneFor(boundsOf(visit.zoneBounds), input.distanceStartCm, input.distanceEndCm);
+    const trackId = randomUUID();
+    const lesionId = randomUUID();
+    // Sent together, in the order they are started here on the transaction's one connection: the
+    // track, the lesion on it, then (seeing both) the status refresh's read and the audit. A failed
+    // insert fails the rest and the transaction.
+    const [[track], [row]] = await Promise.all([
+      insertTrack(tx, { id: trackId, patientId: visit.patientId, siteId: visit.siteId }),
+      insertLesion(tx, {
+        id: lesionId,
+        visitId: visit.id,
+        siteId: visit.siteId,
+        trackId,
+        clockStartH: input.clockStartH,
+        clockEndH: input.clockEndH,
+        distanceStartCm: input.distanceStartCm,
+        distanceEndCm: input.distanceEndCm,
+        zone,
+        grade: input.grade,
+        morphology: input.morphology ?? null,
+        acetowhite: input.acetowhite ?? null,
+        lugol: input.lugol ?? null,
+        vessels: input.vessels ?? [],
+        sizeMm: input.sizeMm ?? null,
+        note: input.note ?? null,
+        clientKey: input.clientKey ?? null,
+      }),
+      refreshTrackStatuses(tx, visit.patientId, visit.siteId),
+      recordAudit({ userId: scope.userId, siteId: visit.siteId, patientId: visit.patientId, action: "lesion.create", entityType: "lesion", entityId: lesionId, ip, detail: { ...input } }, tx),
+    ]);
+    // A lesion created just now has no biopsy and no treatment yet.
+    return { ...(row as Omit<LesionRow, "trackLabel">), vessels: row!.vessels as LesionDto["vessels"], trackLabel: track!.label, histology: null, biopsyLabels: [], treated: false };
+  });
+}
+
+export async function updateLesion(scope: SiteScope, visitId: string, lesionId: string, input: UpdateLesionInput, ip: string): Promise<LesionDto> {
+  return db.transaction(async (tx) => {
+    const { visit, current } = await lockDraftVisitForLesion(tx, scope, visitId, { lesionId });
+    if (!current) throw new AppError("not_found");
+    if (current.version !== input.version) throw new AppError("conflict");
+    const { version, trackId, ...fields } = input;
+    if (trackId !== undefined && trackId !== null) {
+      if (!(await trackOfPatient(tx, trackId, visit.patientId))) throw new AppError("invalid", undefined, { trackId: ["That track does not belong to this patient."] });
+    }
+    const start = fields.distanceStartCm ?? current.distanceStartCm;
+    const end = fields.distanceEndCm ?? current.distanceEndCm;
+    if (start > end) throw new AppError("invalid", undefined, { distanceEndCm: ["The distance range must run from the lower to the higher value."] });
+    const zone = zoneFor(boundsOf(visit.zoneBounds), start, end);
+    // Track statuses are worked out from each lesion's grade and track, and from the patient's
+    // visits, biopsies, treatments and track checks, which a lesion update does not touch. Moving
+    // an extent or editing a description leaves them as they are: they are worked out again only
+    // when the grade or the track changes.
+    const statusesMayChange = (fields.grade !== undefined && fields.grade !== current.grade) || (trackId !== undefined && trackId !== current.trackId);
+    // The update, then (seeing it) the status refresh's read, the audit and the lesion as saved:
+    // sent together, in the order they are started here on the transaction's one connection (so
+    // the update is started with execute(), not left for Promise.all to start after the others).
+    // Should the update match no row, the transaction is rolled back with the rest.
+    const [updated, , , lesion] = await Promise.all([
+      updateLesionRow(tx, lesionId, version, { ...fields, ...(trackId !== undefined ? { trackId } : {}), zone }),
+      statusesMayChange ? refreshTrackStatuses(tx, visit.patientId, visit.siteId) : null,
+      recordAudit({ userId: scope.userId, siteId: visit.siteId, patientId: visit.patientId, action: "lesion.update", entityType: "lesion", entityId: lesionId, ip, detail: { ...input } }, tx),
+      fetchLesion(tx, lesionId),
+    ]);
+    if (updated.length === 0) throw new AppError("conflict");
+    return lesion;
+  });
+}
+
+export async function deleteLesion(scope: SiteScope, visitId: string, lesionId: string, version: number, ip: string): Promise<void> {
+  await db.transaction(async (tx) => {
+    const visit = await lockDraftVisit(tx, scope, visitId);
+    const current = await lesionOnVisit(tx, lesionId, visit.id);
+    if (!current) throw new AppError("not_found");
+    if (current.version !== version) throw new AppError("conflict");
+    await deleteLesionRow(tx, lesionId);
+    // A track left with no lesion anywhere was only this lesion's: remove it too.
+    if (current.trackId) await deleteTrackIfUnused(tx, current.trackId);
+    await refreshTrackStatuses(tx, visit.patientId, visit.siteId);
+    await recordAudit({ userId: scope.userId, siteId: visit.siteId, patientId: visit.patientId, action: "lesion.delete", entityType: "lesion", entityId: lesionId, ip }, tx);
+  });
+}

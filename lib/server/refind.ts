@@ -1,0 +1,100 @@
+import "server-only";
+// Re-finding earlier lesions at a later visit: what to look for, suggested links, and the
+// clinician's decisions (link, split, merge, not found), each audited.
+import { db } from "@/db/client";
+import {
+  deleteTrackCheck, dropTrackIfEmpty, earlierSightings, insertNextTrack, lesionOfTrackOnVisit, lesionPlacesOfVisit, lesionTrackOnVisit, lockPatientRow,
+  moveTrack, setLesionTrack, sightingsOfTracks, trackChecksOfVisit, trackIsPatients, upsertTrackCheck,
+} from "@/db/queries/track-links";
+import { loadVisit, lockDraftVisit } from "@/db/queries/visit-access";
+import { recordAudit } from "@/db/queries/audit-write";
+import type { SiteScope } from "@/db/queries/scope";
+import { AppError } from "@/lib/errors";
+import { matchLesionsToTracks } from "@/lib/tracking";
+import type { TrackAction } from "@/lib/validation/tracking";
+import { refreshTrackStatuses } from "./track-statuses";
+
+/**
+ * For a follow-up visit: the last sighting of every earlier track (drawn as faint outlines),
+ * what was marked at this visit, and suggested links for lesions drawn fresh here.
+ */
+export async function loadFollowUpContext(scope: SiteScope, visitId: string) {
+  const visit = await loadVisit(db, scope, visitId);
+  const earlier = await earlierSightings(visit.patientId, visit.visitDate);
+  const ghosts = new Map<string, (typeof earlier)[number]>();
+  for (const l of earlier) if (l.trackId && !ghosts.has(l.trackId)) ghosts.set(l.trackId, l);
+  const here = await lesionPlacesOfVisit(visit.id);
+  const checks = await trackChecksOfVisit(visit.id);
+
+  const foundTracks = new Set(here.map((l) => l.trackId));
+  const checkedTracks = new Set(checks.map((c) => c.trackId));
+  // Lesions drawn fresh: their track has no sighting before this visit.
+  const fresh = here.filter((l) => !l.trackId || !ghosts.has(l.trackId));
+  const open = [...ghosts.values()].filter((g) => !foundTracks.has(g.trackId) && !checkedTracks.has(g.trackId!));
+  const suggestion = matchLesionsToTracks(
+    open.map((g) => ({ trackId: g.trackId!, label: g.trackLabel, startH: g.clockStartH, endH: g.clockEndH, distStartCm: g.distanceStartCm, distEndCm: g.distanceEndCm, zone: g.zone })),
+    fresh.map((l) => ({ lesionId: l.id, startH: l.clockStartH, endH: l.clockEndH, distStartCm: l.distanceStartCm, distEndCm: l.distanceEndCm, zone: l.zone })),
+  );
+  return {
+    visit: { id: visit.id, status: visit.status, visitDate: visit.visitDate },
+    ghosts: [...ghosts.values()].map((g) => ({ ...g, foundHere: foundTracks.has(g.trackId), checkHere: checks.find((c) => c.trackId === g.trackId)?.outcome ?? null })),
+    suggestions: suggestion.matches,
+    unmatchedLesionIds: suggestion.unmatchedLesionIds,
+  };
+}
+
+/** Confirm, relink, split or merge tracks, or mark an earlier track not found; every change audited. */
+export async function applyTrackAction(scope: SiteScope, visitId: string, action: TrackAction, ip: string) {
+  return db.transaction(async (tx) => {
+    const visit = await lockDraftVisit(tx, scope, visitId);
+    await lockPatientRow(tx, visit.patientId);
+    const trackOfPatient = async (trackId: string) => {
+      if (!(await trackIsPatients(tx, trackId, visit.patientId))) throw new AppError("invalid", undefined, { trackId: ["That track does not belong to this patient."] });
+    };
+    const lesionHere = async (lesionId: string) => {
+      const l = await lesionTrackOnVisit(tx, lesionId, visit.id);
+      if (!l) throw new AppError("invalid", undefined, { lesionId: ["That lesion is not on this visit."] });
+      return l;
+    };
+    switch (action.action) {
+      case "link": {
+        const l = await lesionHere(action.lesionId);
+        await trackOfPatient(action.trackId);
+        const clash = await lesionOfTrackOnVisit(tx, action.trackId, visit.id);
+        if (clash && clash.id !== l.id) throw new AppError("conflict", "Another lesion of this visit already continues that track. Split it first.");
+        await setLesionTrack(tx, l.id, action.trackId);
+        await deleteTrackCheck(tx, visit.id, action.trackId);
+        await dropTrackIfEmpty(tx, l.trackId);
+        break;
+      }
+      case "split": {
+        const l = await lesionHere(action.lesionId);
+        await setLesionTrack(tx, l.id, await insertNextTrack(tx, visit.patientId, visit.siteId));
+        break;
+      }
+      case "merge": {
+        if (action.trackId === action.intoTrackId) throw new AppError("invalid", undefined, { intoTrackId: ["A track cannot be merged into itself."] });
+        await trackOfPatient(action.trackId);
+        await trackOfPatient(action.intoTrackId);
+        const seen = new Map<string, Set<string>>();
+        for (const r of await sightingsOfTracks(tx, [action.trackId, action.intoTrackId])) seen.set(r.visitId, (seen.get(r.visitId) ?? new Set()).add(r.trackId!));
+        if ([...seen.values()].some((s) => s.size > 1)) throw new AppError("conflict", "Both tracks have a lesion at the same visit; they are different lesions.");
+        await moveTrack(tx, action.trackId, action.intoTrackId);
+        await dropTrackIfEmpty(tx, action.trackId);
+        break;
+      }
+      case "check": {
+        await trackOfPatient(action.trackId);
+        if (await lesionOfTrackOnVisit(tx, action.trackId, visit.id)) throw new AppError("conflict", "That track has a lesion on this visit; it was found.");
+        await upsertTrackCheck(tx, { visitId: visit.id, trackId: action.trackId, siteId: visit.siteId, outcome: action.outcome });
+        break;
+      }
+      case "uncheck":
+        await deleteTrackCheck(tx, visit.id, action.trackId);
+        break;
+    }
+    await refreshTrackStatuses(tx, visit.patientId, visit.siteId);
+    await recordAudit({ userId: scope.userId, siteId: visit.siteId, patientId: visit.patientId, action: `track.${action.action}`, entityType: "visit", entityId: visit.id, ip, detail: { ...action } }, tx);
+    return { ok: true };
+  });
+}

@@ -1,0 +1,82 @@
+import "server-only";
+import { db, type Db, type Tx } from "@/db/client";
+import { deleteTreatmentRow, insertTreatment, lesionIsOnVisit, siteCautionFraction, stampVisitTreatedFraction, treatedArcsOfVisit, treatmentsOfVisit } from "@/db/queries/treatments";
+import { loadVisit, lockDraftVisit } from "@/db/queries/visit-access";
+import { recordAudit } from "@/db/queries/audit-write";
+import type { SiteScope } from "@/db/queries/scope";
+import { AppError } from "@/lib/errors";
+import { assessExtent, DEFAULT_CAUTION_FRACTION } from "@/lib/dosing";
+import { gateExtent, type TreatmentInput } from "@/lib/validation/treatments";
+import { refreshTrackStatuses } from "./track-statuses";
+
+async function cautionFractionOf(run: Db | Tx, siteId: string): Promise<number> {
+  return (await siteCautionFraction(run, siteId)) ?? DEFAULT_CAUTION_FRACTION;
+}
+
+/**
+ * Every treatment row carries the visit's treated union at the last write, so a report
+ * reading any one row sees the session's figure; it is recomputed on each add and delete.
+ */
+async function restampUnion(tx: Tx, visitId: string, cautionFraction: number) {
+  const extent = assessExtent(await treatedArcsOfVisit(tx, visitId), cautionFraction);
+  await stampVisitTreatedFraction(tx, visitId, extent.fraction);
+  return extent;
+}
+
+/** A visit's treatments and the session's treated extent; the read audited. */
+export async function listTreatments(scope: SiteScope, visitId: string, ip: string) {
+  const v = await loadVisit(db, scope, visitId);
+  const [rows, cautionFraction] = await Promise.all([treatmentsOfVisit(db, v.id), cautionFractionOf(db, v.siteId)]);
+  await recordAudit({ userId: scope.userId, siteId: v.siteId, patientId: v.patientId, action: "visit.treatments.read", entityType: "visit", entityId: v.id, ip });
+  return { treatments: rows, extent: assessExtent(rows.flatMap((r) => r.arcs), cautionFraction), cautionFraction };
+}
+
+const EXTENT_REASON_FIELD = "extentOverrideReason";
+
+/** The server computes the treated union itself; a reason is required from the caution level up. */
+export async function addTreatment(scope: SiteScope, visitId: string, input: TreatmentInput, ip: string) {
+  return db.transaction(async (tx) => {
+    const v = await lockDraftVisit(tx, scope, visitId);
+    if (input.lesionId && !(await lesionIsOnVisit(tx, input.lesionId, v.id))) {
+      throw new AppError("invalid", undefined, { lesionId: ["Choose a lesion mapped at this visit."] });
+    }
+    const cautionFraction = await cautionFractionOf(tx, v.siteId);
+    const arcs = input.arcs.map((a) => ({ startH: a.startH, endH: a.endH }));
+    const gate = gateExtent(await treatedArcsOfVisit(tx, v.id), arcs, cautionFraction);
+    const reason = input.extentOverrideReason?.trim() || null;
+    if (gate.needsReason && !reason) {
+      throw new AppError("invalid", gate.assessment.message, {
+        [EXTENT_REASON_FIELD]: [`${gate.assessment.message} To save it, give the reason for treating this much in one session.`],
+      });
+    }
+    const id = await insertTreatment(tx, {
+      visitId: v.id,
+      siteId: v.siteId,
+      lesionId: input.lesionId ?? null,
+      modality: input.modality,
+      regimen: input.regimen || null,
+      arcs,
+      treatedFraction: gate.assessment.fraction,
+      extentOverrideReason: gate.needsReason ? reason : null,
+      note: input.note || null,
+    });
+    const extent = await restampUnion(tx, v.id, cautionFraction);
+    await refreshTrackStatuses(tx, v.patientId, v.siteId);
+    await recordAudit({
+      userId: scope.userId, siteId: v.siteId, patientId: v.patientId, action: "treatment.create", entityType: "treatment", entityId: id, ip,
+      detail: { modality: input.modality, arcs: input.arcs, visitTreatedFraction: extent.fraction, cautionFraction, extentOverrideReason: gate.needsReason ? input.extentOverrideReason : undefined },
+    }, tx);
+    return { id, extent, overridden: gate.needsReason, cautionFraction };
+  });
+}
+
+export async function deleteTreatment(scope: SiteScope, visitId: string, treatmentId: string, ip: string) {
+  return db.transaction(async (tx) => {
+    const v = await lockDraftVisit(tx, scope, visitId);
+    if (!(await deleteTreatmentRow(tx, treatmentId, v.id))) throw new AppError("not_found");
+    const extent = await restampUnion(tx, v.id, await cautionFractionOf(tx, v.siteId));
+    await refreshTrackStatuses(tx, v.patientId, v.siteId);
+    await recordAudit({ userId: scope.userId, siteId: v.siteId, patientId: v.patientId, action: "treatment.delete", entityType: "treatment", entityId: treatmentId, ip }, tx);
+    return { extent };
+  });
+}

@@ -1,0 +1,55 @@
+import "server-only";
+import { db } from "@/db/client";
+import { getVisitRecord, readVisitRecord, saveExam, type VisitRecord } from "@/db/queries/visit-record";
+import { lockDraftVisit } from "@/db/queries/visit-access";
+import { recordAudit } from "@/db/queries/audit-write";
+import type { SiteScope } from "@/db/queries/scope";
+import { AppError } from "@/lib/errors";
+import type { ExamDetailsInput } from "@/lib/validation/visit-record";
+import { refreshTrackStatuses } from "./track-statuses";
+
+/** The visit record, the read audited. */
+export async function readVisit(scope: SiteScope, visitId: string, ip: string): Promise<VisitRecord> {
+  const visit = await getVisitRecord(scope, visitId);
+  await recordAudit({ userId: scope.userId, siteId: visit.siteId, patientId: visit.patientId, action: "visit.read", entityType: "visit", entityId: visit.id, ip });
+  return visit;
+}
+
+/**
+ * Saves the exam details if nobody saved since the caller loaded them (optimistic version).
+ * A changed date re-orders the patient's visits, so track statuses are recomputed. The change is
+ * audited in the same transaction; returns the visit record as saved.
+ */
+export async function updateExamDetails(scope: SiteScope, visitId: string, input: ExamDetailsInput, ip: string): Promise<VisitRecord> {
+  return db.transaction(async (tx) => {
+    const v = await lockDraftVisit(tx, scope, visitId);
+    if (v.version !== input.version) throw new AppError("conflict");
+    const { version, ...fields } = input;
+    const saved = { version: version + 1 };
+    // Sent together, in the order they are started here on the transaction's one connection: the
+    // update, then (seeing it) the audit and the record as saved.
+    const [, , record] = await Promise.all([
+      saveExam(tx, {
+        id: v.id,
+        visitDate: fields.visitDate,
+        patientPosition: fields.patientPosition,
+        indication: fields.indication ?? null,
+        cytology: fields.cytology,
+        hpvResult: fields.hpvResult,
+        adequacy: fields.adequacy ?? null,
+        examStartedAt: fields.examStartedAt ? new Date(fields.examStartedAt).toISOString() : null,
+        examEndedAt: fields.examEndedAt ? new Date(fields.examEndedAt).toISOString() : null,
+        anaesthesia: fields.anaesthesia ?? null,
+        patientWeightKg: fields.patientWeightKg ?? null,
+        plan: fields.plan ?? null,
+        version: saved.version,
+        updatedAt: new Date().toISOString(),
+      }),
+      recordAudit({ userId: scope.userId, siteId: v.siteId, patientId: v.patientId, action: "visit.exam.update", entityType: "visit", entityId: v.id, ip, detail: { fields: Object.keys(fields), version: saved.version } }, tx),
+      readVisitRecord(tx, scope, v.id),
+    ]);
+    // A changed date re-orders the patient's visits.
+    if (fields.visitDate !== v.visitDate) await refreshTrackStatuses(tx, v.patientId, v.siteId);
+    return record;
+  });
+}

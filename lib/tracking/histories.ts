@@ -1,0 +1,49 @@
+// A patient's track histories from the rows the history statement reads: one observation per
+// track and visit. A signed visit is a complete exam: a track without a lesion there was looked
+// for and not found. On a draft only an explicit "not found" counts.
+import { HISTOLOGY, type Grade, type Histology, type TrackCheckOutcome, type VisitStatus } from "@/lib/domain/vocab";
+import type { TrackHistory } from "./patient-summary";
+
+export interface HistoryRows {
+  visits: { id: string; visitDate: string; status: VisitStatus }[];
+  tracks: { id: string; label: string }[];
+  lesions: { id: string; visitId: string; trackId: string; grade: Grade }[];
+  biopsies: { lesionId: string | null; histology: Histology | null }[];
+  treatments: { lesionId: string | null; visitId: string }[];
+  checks: { visitId: string; trackId: string; outcome: TrackCheckOutcome }[];
+}
+
+const HISTOLOGY_RANK = Object.fromEntries(HISTOLOGY.map((h, i) => [h, i])) as Record<Histology, number>;
+
+/** The worst histology among each lesion's biopsies (the worst decides). */
+export function worstHistologyByLesion(rows: { lesionId: string | null; histology: Histology | null }[]): Map<string, Histology> {
+  const out = new Map<string, Histology>();
+  for (const b of rows) {
+    if (!b.lesionId || !b.histology) continue;
+    const prev = out.get(b.lesionId);
+    if (!prev || HISTOLOGY_RANK[b.histology] > HISTOLOGY_RANK[prev]) out.set(b.lesionId, b.histology);
+  }
+  return out;
+}
+
+export function trackHistoriesOf(h: HistoryRows): TrackHistory[] {
+  if (h.visits.length === 0 || h.tracks.length === 0) return [];
+  const histologyByLesion = worstHistologyByLesion(h.biopsies);
+  const treatedLesions = new Set(h.treatments.map((t) => t.lesionId).filter(Boolean));
+  const lesionAt = new Map<string, HistoryRows["lesions"][number]>();
+  for (const l of h.lesions) lesionAt.set(`${l.trackId}|${l.visitId}`, l);
+  const checkAt = new Map(h.checks.map((c) => [`${c.trackId}|${c.visitId}`, c.outcome]));
+
+  return h.tracks.map((t) => ({
+    trackId: t.id,
+    label: t.label,
+    observations: h.visits.map((v) => {
+      const l = lesionAt.get(`${t.id}|${v.id}`);
+      const check = checkAt.get(`${t.id}|${v.id}`);
+      if (l) {
+        return { visitId: v.id, visitDate: v.visitDate, seen: true, lookedFor: true, impressionGrade: l.grade, histology: histologyByLesion.get(l.id) ?? null, treatedAtVisit: treatedLesions.has(l.id) };
+      }
+      return { visitId: v.id, visitDate: v.visitDate, seen: false, lookedFor: check !== undefined || v.status === "signed", treatedAtVisit: check === "treated" };
+    }),
+  }));
+}
