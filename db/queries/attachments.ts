@@ -1,10 +1,9 @@
 import "server-only";
 import { and, asc, eq } from "drizzle-orm";
-import { db } from "../client";
+import { db, type Tx } from "../client";
 import { attachments, lesions, visits } from "../schema";
 import { inScope, type SiteScope } from "./scope";
-import { loadVisit, lockDraftVisit } from "./visit-access";
-import { AppError } from "@/lib/errors";
+import { loadVisit } from "./visit-access";
 
 const listColumns = {
   id: attachments.id,
@@ -75,29 +74,26 @@ export interface NewAttachment {
   caption: string | null;
 }
 
-/**
- * The row, written after its objects are stored. The lesion is checked again inside the
- * transaction so a lesion deleted meanwhile cannot leave a dangling link.
- */
-export async function insertAttachment(scope: SiteScope, visitId: string, a: NewAttachment) {
-  return db.transaction(async (tx) => {
-    const [visit] = await tx
-      .select({ id: visits.id, siteId: visits.siteId, patientId: visits.patientId })
-      .from(visits)
-      .where(and(eq(visits.id, visitId), inScope(visits.siteId, scope)))
-      .for("share")
-      .limit(1);
-    if (!visit) throw new AppError("not_found");
-    if (a.lesionId) {
-      const [l] = await tx.select({ id: lesions.id }).from(lesions).where(and(eq(lesions.id, a.lesionId), eq(lesions.visitId, visitId))).limit(1);
-      if (!l) throw new AppError("invalid", undefined, { lesionId: ["This lesion is not part of this visit."] });
-    }
-    const [row] = await tx
-      .insert(attachments)
-      .values({ ...a, visitId, siteId: visit.siteId, uploadedBy: scope.userId })
-      .returning({ id: attachments.id, createdAt: attachments.createdAt });
-    return { ...row!, siteId: visit.siteId, patientId: visit.patientId };
-  });
+
+/** The visit an upload belongs to, share-locked so it cannot be signed or removed meanwhile. */
+export async function visitForUpload(tx: Tx, scope: SiteScope, visitId: string) {
+  const [visit] = await tx
+    .select({ id: visits.id, siteId: visits.siteId, patientId: visits.patientId })
+    .from(visits)
+    .where(and(eq(visits.id, visitId), inScope(visits.siteId, scope)))
+    .for("share")
+    .limit(1);
+  return visit ?? null;
+}
+
+export async function lesionIsOnVisit(tx: Tx, lesionId: string, visitId: string): Promise<boolean> {
+  const [l] = await tx.select({ id: lesions.id }).from(lesions).where(and(eq(lesions.id, lesionId), eq(lesions.visitId, visitId))).limit(1);
+  return Boolean(l);
+}
+
+export async function insertAttachmentRow(tx: Tx, values: typeof attachments.$inferInsert) {
+  const [row] = await tx.insert(attachments).values(values).returning({ id: attachments.id, createdAt: attachments.createdAt });
+  return row!;
 }
 
 /** One attachment the caller's sites may see, with what the download needs; or not_found. */
@@ -120,21 +116,19 @@ export async function findAttachment(scope: SiteScope, attachmentId: string) {
     .innerJoin(visits, eq(visits.id, attachments.visitId))
     .where(and(eq(attachments.id, attachmentId), inScope(attachments.siteId, scope)))
     .limit(1);
-  if (!row) throw new AppError("not_found");
-  return row;
+  return row ?? null;
 }
 
-/** Removes the row while the visit is a draft (423 once signed); returns the keys to delete. */
-export async function deleteAttachment(scope: SiteScope, attachmentId: string) {
-  return db.transaction(async (tx) => {
-    const [row] = await tx
-      .select({ id: attachments.id, visitId: attachments.visitId, siteId: attachments.siteId, objectKey: attachments.objectKey, thumbKey: attachments.thumbKey })
-      .from(attachments)
-      .where(and(eq(attachments.id, attachmentId), inScope(attachments.siteId, scope)))
-      .limit(1);
-    if (!row) throw new AppError("not_found");
-    const visit = await lockDraftVisit(tx, scope, row.visitId);
-    await tx.delete(attachments).where(eq(attachments.id, row.id));
-    return { ...row, patientId: visit.patientId };
-  });
+/** An attachment's row and object keys, when the caller's sites may see it. */
+export async function attachmentKeysInScope(tx: Tx, scope: SiteScope, attachmentId: string) {
+  const [row] = await tx
+    .select({ id: attachments.id, visitId: attachments.visitId, siteId: attachments.siteId, objectKey: attachments.objectKey, thumbKey: attachments.thumbKey })
+    .from(attachments)
+    .where(and(eq(attachments.id, attachmentId), inScope(attachments.siteId, scope)))
+    .limit(1);
+  return row ?? null;
+}
+
+export async function deleteAttachmentRow(tx: Tx, attachmentId: string): Promise<void> {
+  await tx.delete(attachments).where(eq(attachments.id, attachmentId));
 }
