@@ -3,7 +3,7 @@
 // Reads DATABASE_URL, SMTP_HOST, SMTP_PORT, SMTP_SECURE, SMTP_USER, SMTP_PASS, MAIL_FROM and
 // MAIL_WORKER_INTERVAL_MS (default 5000). Stops cleanly on SIGINT/SIGTERM after the current row.
 import { sql } from "@/db/client";
-import { deliverPending } from "@/lib/mail/outbox";
+import { deliverPending } from "@/lib/server/outbox";
 
 const intervalMs = Number(process.env.MAIL_WORKER_INTERVAL_MS ?? 5000);
 let stopping = false;

@@ -10,7 +10,7 @@ import { auditEvents, users } from "@/db/schema";
 import { listOverdue } from "@/db/queries/worklist";
 import { todayIso } from "@/db/queries/due-dates";
 import { mailConfigFrom } from "@/lib/mail/config";
-import { enqueueMail } from "@/lib/mail/outbox";
+import { enqueueMail } from "@/lib/server/outbox";
 import { clinicianDigestMail, patientReminderMail } from "@/lib/mail/templates";
 
 export async function queueReminders(today = todayIso()) {

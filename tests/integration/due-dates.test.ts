@@ -5,7 +5,7 @@ import { auditEvents, lesions, mailOutbox, reviews, treatments, users, visits } 
 import { getPatientDue, setNextDueOverride } from "@/db/queries/due-dates";
 import { listWorklist } from "@/db/queries/worklist";
 import { refreshTrackStatuses } from "@/lib/server/track-statuses";
-import { notifyReviewRequested } from "@/lib/mail/notifications";
+import { notifyReviewRequested } from "@/lib/server/notifications";
 import { queueReminders } from "@/scripts/reminders";
 import { PUT as rulesPut } from "@/app/api/admin/followup-rules/route";
 import { actor, makePatient, makeSite, makeUser, req } from "../fixtures/factory";

@@ -3,7 +3,7 @@ import { randomUUID } from "node:crypto";
 import { eq } from "drizzle-orm";
 import { db } from "@/db/client";
 import { mailOutbox } from "@/db/schema";
-import { deliverPending, enqueueMail } from "@/lib/mail/outbox";
+import { deliverPending, enqueueMail } from "@/lib/server/outbox";
 import { messageIdFor } from "@/lib/mail/config";
 import { MaildevFake } from "./maildev-fake";
 

@@ -2,7 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { Wordmark } from "@/components/ui/wordmark";
 import { ROLE_LABEL } from "@/lib/domain/vocab";
-import { peekInvitation } from "@/db/queries/accounts";
+import { peekInvitation } from "@/lib/server/accounts";
 import { looksLikeToken } from "@/lib/accounts/tokens";
 import { PASSWORD_MIN_CHARS } from "@/lib/accounts/password-rules";
 import { AcceptInviteForm } from "./accept-invite-form";

@@ -1,4 +1,5 @@
-import { inviteUser, listInvitations } from "@/db/queries/accounts";
+import { listInvitations } from "@/db/queries/accounts";
+import { inviteUser } from "@/lib/server/accounts";
 import { inviteSchema } from "@/lib/accounts/schemas";
 import { requireSite } from "@/lib/auth/guard";
 import { readJson, route } from "@/lib/http/route";

@@ -1,5 +1,5 @@
 // PUBLIC: no session. Sets the password of an invited account once.
-import { acceptInvitation } from "@/db/queries/accounts";
+import { acceptInvitation } from "@/lib/server/accounts";
 import { acceptInviteSchema } from "@/lib/accounts/schemas";
 import { publicRoute } from "@/lib/http/public-route";
 import { readJson } from "@/lib/http/route";

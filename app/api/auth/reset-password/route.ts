@@ -1,5 +1,5 @@
 // PUBLIC: no session. Completes a reset once and ends every session of the account.
-import { completePasswordReset } from "@/db/queries/accounts";
+import { completePasswordReset } from "@/lib/server/accounts";
 import { resetPasswordSchema } from "@/lib/accounts/schemas";
 import { invalidateUserSessions } from "@/lib/auth/session";
 import { publicRoute } from "@/lib/http/public-route";

@@ -1,4 +1,4 @@
-import { resolveAdjudication } from "@/db/queries/reviews";
+import { resolveAdjudication } from "@/lib/server/reviews";
 import { scopeOf } from "@/lib/auth/guard";
 import { idParam, route } from "@/lib/http/route";
 

@@ -1,4 +1,4 @@
-import { revokeInvitation } from "@/db/queries/accounts";
+import { revokeInvitation } from "@/lib/server/accounts";
 import { idParam, route } from "@/lib/http/route";
 
 export const DELETE = route<{ invitationId: string }>({ roles: ["admin"] }, async ({ user, params, ip }) => {

@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { updateUser } from "@/db/queries/accounts";
+import { updateUser } from "@/lib/server/accounts";
 import { updateUserSchema } from "@/lib/accounts/schemas";
 import { invalidateUserSessions } from "@/lib/auth/session";
 import { AppError } from "@/lib/errors";

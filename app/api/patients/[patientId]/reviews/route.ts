@@ -1,4 +1,5 @@
-import { listOpenDisagreements, requestReview } from "@/db/queries/reviews";
+import { listOpenDisagreements } from "@/db/queries/reviews";
+import { requestReview } from "@/lib/server/reviews";
 import { scopeOf } from "@/lib/auth/guard";
 import { idParam, json, readJson, route } from "@/lib/http/route";
 import { requestReviewSchema } from "@/lib/validation/tracking";

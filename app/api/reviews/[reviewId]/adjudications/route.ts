@@ -1,4 +1,4 @@
-import { adjudicate } from "@/db/queries/reviews";
+import { adjudicate } from "@/lib/server/reviews";
 import { scopeOf } from "@/lib/auth/guard";
 import { idParam, readJson, route } from "@/lib/http/route";
 import { adjudicationSchema } from "@/lib/validation/tracking";

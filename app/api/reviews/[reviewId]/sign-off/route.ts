@@ -1,4 +1,4 @@
-import { signOffReview } from "@/db/queries/reviews";
+import { signOffReview } from "@/lib/server/reviews";
 import { scopeOf } from "@/lib/auth/guard";
 import { idParam, route } from "@/lib/http/route";
 

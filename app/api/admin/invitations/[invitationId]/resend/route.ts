@@ -1,4 +1,4 @@
-import { resendInvitation } from "@/db/queries/accounts";
+import { resendInvitation } from "@/lib/server/accounts";
 import { idParam, route } from "@/lib/http/route";
 
 export const POST = route<{ invitationId: string }>({ roles: ["admin"] }, async ({ user, params, ip }) =>

@@ -1,11 +1,9 @@
 import "server-only";
-import { eq } from "drizzle-orm";
-import { alias } from "drizzle-orm/pg-core";
 import type { Tx } from "@/db/client";
-import { reviews, users } from "@/db/schema";
-import { mailConfigFrom } from "./config";
+import { reviewMailParties } from "@/db/queries/outbox";
+import { mailConfigFrom } from "@/lib/mail/config";
+import { reviewRequestedMail } from "@/lib/mail/templates";
 import { enqueueMail } from "./outbox";
-import { reviewRequestedMail } from "./templates";
 
 /**
  * Queues the "review requested" mail to the review's reviewer, in the caller's transaction.
@@ -13,21 +11,7 @@ import { reviewRequestedMail } from "./templates";
  * Returns false when the review has no reviewer, the reviewer is inactive, or it was queued before.
  */
 export async function notifyReviewRequested(tx: Tx, reviewId: string, opts: { path?: string } = {}): Promise<boolean> {
-  const reviewer = alias(users, "reviewer");
-  const requester = alias(users, "requester");
-  const [row] = await tx
-    .select({
-      patientId: reviews.patientId,
-      reviewerEmail: reviewer.email,
-      reviewerName: reviewer.displayName,
-      reviewerActive: reviewer.active,
-      requesterName: requester.displayName,
-    })
-    .from(reviews)
-    .innerJoin(reviewer, eq(reviewer.id, reviews.reviewerId))
-    .leftJoin(requester, eq(requester.id, reviews.requestedBy))
-    .where(eq(reviews.id, reviewId))
-    .limit(1);
+  const row = await reviewMailParties(tx, reviewId);
   if (!row || !row.reviewerActive) return false;
   const { appBaseUrl } = mailConfigFrom(process.env);
   const mail = reviewRequestedMail({

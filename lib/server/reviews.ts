@@ -1,0 +1,65 @@
+import "server-only";
+import { db } from "@/db/client";
+import {
+  activeReviewerOfSite, adjudicationInScope, insertReview, loadReviewFor, markAdjudicationResolved, patientSiteInScope, reviewForUpdate,
+  setReviewInProgress, setReviewSignedOff, trackIsPatients, upsertAdjudication, visitIsPatients,
+} from "@/db/queries/reviews";
+import { recordAudit } from "@/db/queries/audit-write";
+import type { SiteScope } from "@/db/queries/scope";
+import { AppError } from "@/lib/errors";
+import type { AdjudicationInput } from "@/lib/validation/tracking";
+import { notifyReviewRequested } from "./notifications";
+
+export async function requestReview(scope: SiteScope, patientId: string, input: { visitId: string; comparedVisitId?: string | null; reviewerId: string }, ip: string) {
+  return db.transaction(async (tx) => {
+    const p = await patientSiteInScope(tx, scope, patientId);
+    if (!p) throw new AppError("not_found");
+    for (const [field, id] of [["visitId", input.visitId], ["comparedVisitId", input.comparedVisitId]] as const) {
+      if (id && !(await visitIsPatients(tx, id, p.id))) throw new AppError("invalid", undefined, { [field]: ["That visit is not this patient's."] });
+    }
+    const reviewer = await activeReviewerOfSite(tx, input.reviewerId, p.siteId);
+    if (!reviewer) throw new AppError("invalid", undefined, { reviewerId: ["Choose an active reviewer of this site."] });
+    const r = await insertReview(tx, { patientId: p.id, siteId: p.siteId, visitId: input.visitId, comparedVisitId: input.comparedVisitId ?? null, reviewerId: reviewer.id, requestedBy: scope.userId });
+    // The reviewer hears of it by e-mail (a link only), unless they asked for it themselves.
+    if (reviewer.id !== scope.userId) await notifyReviewRequested(tx, r.id, { path: `/patients/${p.id}/compare` });
+    await recordAudit({ userId: scope.userId, siteId: p.siteId, patientId: p.id, action: "review.request", entityType: "review", entityId: r.id, ip, detail: { ...input } }, tx);
+    return r;
+  });
+}
+
+export async function adjudicate(scope: SiteScope, reviewId: string, input: AdjudicationInput, ip: string) {
+  return db.transaction(async (tx) => {
+    const r = await reviewForUpdate(tx, scope, reviewId);
+    if (!r) throw new AppError("not_found");
+    if (r.status === "signed_off") throw new AppError("locked", "This review is signed off; open a new review to change it.");
+    if (r.reviewerId && r.reviewerId !== scope.userId) throw new AppError("forbidden", "This review is assigned to another reviewer.");
+    if (!(await trackIsPatients(tx, input.trackId, r.patientId))) throw new AppError("invalid", undefined, { trackId: ["That track is not this patient's."] });
+    const values = { verdict: input.verdict, proposedStatus: input.verdict === "agree" ? null : (input.proposedStatus ?? null), comment: input.comment ?? null, resolvedAt: null, resolvedBy: null };
+    const a = await upsertAdjudication(tx, { reviewId: r.id, siteId: r.siteId, trackId: input.trackId }, values);
+    await setReviewInProgress(tx, r.id, r.reviewerId ?? scope.userId);
+    await recordAudit({ userId: scope.userId, siteId: r.siteId, patientId: r.patientId, action: "review.adjudicate", entityType: "adjudication", entityId: a.id, ip, detail: { ...input } }, tx);
+    return a;
+  });
+}
+
+export async function signOffReview(scope: SiteScope, reviewId: string, ip: string) {
+  const r = await loadReviewFor(scope, reviewId);
+  if (r.status === "signed_off") throw new AppError("conflict", "This review is already signed off.");
+  if (r.reviewerId && r.reviewerId !== scope.userId) throw new AppError("forbidden", "This review is assigned to another reviewer.");
+  await db.transaction(async (tx) => {
+    await setReviewSignedOff(tx, r.id, scope.userId);
+    await recordAudit({ userId: scope.userId, siteId: r.siteId, patientId: r.patientId, action: "review.sign_off", entityType: "review", entityId: r.id, ip }, tx);
+  });
+  return { ok: true };
+}
+
+/** The clinician acknowledges a disagreement after acting on it. */
+export async function resolveAdjudication(scope: SiteScope, adjudicationId: string, ip: string) {
+  await db.transaction(async (tx) => {
+    const a = await adjudicationInScope(tx, scope, adjudicationId);
+    if (!a) throw new AppError("not_found");
+    await markAdjudicationResolved(tx, a.id, scope.userId);
+    await recordAudit({ userId: scope.userId, siteId: a.siteId, action: "review.resolve", entityType: "adjudication", entityId: a.id, ip }, tx);
+  });
+  return { ok: true };
+}
