@@ -5,7 +5,7 @@ import { redirect } from "next/navigation";
 import { getCurrentUser } from "@/lib/auth/guard";
 import { blankSessionCookie, invalidateSession } from "@/lib/auth/session";
 import { clientIp, isHttps } from "@/lib/auth/request-info";
-import { recordAudit } from "@/db/queries/audit-write";
+import { recordAudit } from "@/lib/server/audit";
 
 export async function signOutAction(): Promise<void> {
   const user = await getCurrentUser();

@@ -1,10 +1,7 @@
-// The follow-up flag. <OverdueBadge> is plain; <FollowupBanner> is a server component for the
-// patient page: it loads the due date, shows it loudly when overdue, and lets a clinician set
-// their own date with a reason.
-import { getPatientDue } from "@/db/queries/due-dates";
-import type { CurrentUser } from "@/lib/auth/guard";
-import { scopeOf } from "@/lib/auth/guard";
-import { OverrideForm } from "./override-form";
+// The follow-up flag. <OverdueBadge> is plain; <FollowupBanner> shows the patient page's due
+// date, loudly when overdue, and lets a clinician set their own date with a reason.
+import type { PatientDue } from "@/lib/due-dates/patient-due";
+import { OverrideForm, type OverrideAction } from "./override-form";
 
 export function OverdueBadge({ overdueDays }: { overdueDays: number }) {
   if (overdueDays <= 0) return <span className="inline-flex items-center gap-1 rounded border border-rule-strong px-2 py-0.5 text-xs font-semibold text-ink-soft">◷ Due soon</span>;
@@ -15,9 +12,7 @@ export function OverdueBadge({ overdueDays }: { overdueDays: number }) {
   );
 }
 
-export async function FollowupBanner({ patientId, user }: { patientId: string; user: CurrentUser }) {
-  const due = await getPatientDue(scopeOf(user), patientId);
-  const canOverride = user.role === "clinician" || user.role === "admin";
+export function FollowupBanner({ patientId, due, overrideAction }: { patientId: string; due: PatientDue | null; overrideAction?: OverrideAction }) {
   if (!due) {
     return (
       <section aria-label="Follow-up" className="rounded-md border border-rule bg-panel px-4 py-3 text-sm text-ink-soft">
@@ -37,7 +32,7 @@ export async function FollowupBanner({ patientId, user }: { patientId: string; u
       <p className="mt-1 text-sm">
         {isOverride ? <>Clinician&apos;s date: {due.reason}</> : due.reason}. Last visit {due.lastVisitDate}. Guidance only: local protocol and the clinician decide.
       </p>
-      {canOverride ? <OverrideForm patientId={patientId} hasOverride={isOverride} /> : null}
+      {overrideAction ? <OverrideForm patientId={patientId} hasOverride={isOverride} overrideAction={overrideAction} /> : null}
     </section>
   );
 }

@@ -2,10 +2,12 @@
 
 import { useActionState } from "react";
 import { Button } from "@/components/ui/button";
-import { overrideDueAction, type OverrideState } from "./override-action";
+import type { OverrideState } from "@/lib/validation/due-dates";
 
-export function OverrideForm({ patientId, hasOverride }: { patientId: string; hasOverride: boolean }) {
-  const [state, action, pending] = useActionState<OverrideState, FormData>(overrideDueAction, {});
+export type OverrideAction = (prev: OverrideState, form: FormData) => Promise<OverrideState>;
+
+export function OverrideForm({ patientId, hasOverride, overrideAction }: { patientId: string; hasOverride: boolean; overrideAction: OverrideAction }) {
+  const [state, action, pending] = useActionState<OverrideState, FormData>(overrideAction, {});
   const f = state.fields ?? {};
   return (
     <details className="mt-2 text-ink">

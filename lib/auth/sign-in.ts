@@ -1,6 +1,6 @@
 import "server-only";
 import { findUserCredentials, hitRateLimit, releaseRateLimit, resetRateLimit } from "@/db/queries/users";
-import { recordAudit } from "@/db/queries/audit-write";
+import { recordAudit } from "@/lib/server/audit";
 import { AppError } from "@/lib/errors";
 import type { Role } from "@/lib/domain/vocab";
 import { dummyHash, verifyPassword } from "./password";

@@ -1,5 +1,5 @@
 import { AppShell } from "@/components/shell/app-shell";
-import { listSiteRules } from "@/db/queries/due-dates";
+import { listSiteRules } from "@/lib/server/due-dates";
 import { requirePageRole } from "@/lib/auth/page-guard";
 import { DEFAULT_FOLLOWUP_MONTHS, FOLLOWUP_RULE_KEYS } from "@/lib/due-dates/rules";
 import { RulesForm } from "./rules-form";

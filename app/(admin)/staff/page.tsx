@@ -1,7 +1,7 @@
 import { AppShell } from "@/components/shell/app-shell";
 import { ROLE_LABEL } from "@/lib/domain/vocab";
 import { listInvitations } from "@/db/queries/accounts";
-import { listSiteRules } from "@/db/queries/due-dates";
+import { listSiteRules } from "@/lib/server/due-dates";
 import { listStaff } from "@/db/queries/users";
 import { requirePageRole } from "@/lib/auth/page-guard";
 import { ROLES } from "@/lib/domain/vocab";

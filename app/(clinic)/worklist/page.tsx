@@ -2,9 +2,11 @@ import Link from "next/link";
 import { z } from "zod";
 import { AppShell } from "@/components/shell/app-shell";
 import { OverdueBadge } from "@/components/due-dates/overdue-flag";
-import { recordAudit } from "@/db/queries/audit-write";
-import { listSiteRules } from "@/db/queries/due-dates";
-import { listClinicians, listWorklist, WORKLIST_SORTS, type WorklistSort } from "@/db/queries/worklist";
+import { recordAudit } from "@/lib/server/audit";
+import { listSiteRules } from "@/lib/server/due-dates";
+import { listClinicians } from "@/db/queries/worklist";
+import { listWorklist } from "@/lib/server/worklist";
+import { WORKLIST_SORTS, type WorklistSort } from "@/lib/due-dates/worklist";
 import { scopeOf } from "@/lib/auth/guard";
 import { CLINICAL_ROLES, requirePageRole } from "@/lib/auth/page-guard";
 

@@ -1,7 +1,7 @@
 import Link from "next/link";
 import { AppShell } from "@/components/shell/app-shell";
 import { QualityTable } from "@/components/research/quality-table";
-import { recordAudit } from "@/db/queries/audit-write";
+import { recordAudit } from "@/lib/server/audit";
 import { loadQualityPanel } from "@/db/queries/research/quality";
 import { scopeOf } from "@/lib/auth/guard";
 import { requirePageRole } from "@/lib/auth/page-guard";

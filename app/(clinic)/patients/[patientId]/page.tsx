@@ -1,13 +1,13 @@
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { AppShell } from "@/components/shell/app-shell";
-import { getPatient, listVisitsForPatient } from "@/db/queries/patients";
-import { recordAudit } from "@/db/queries/audit-write";
+import { readPatientRecord } from "@/lib/server/patient-record";
 import { scopeOf } from "@/lib/auth/guard";
 import { CLINICAL_ROLES, requirePageRole } from "@/lib/auth/page-guard";
 import { uuidParam } from "@/lib/http/route";
 import { NewVisitForm } from "@/components/patient/new-visit-form";
 import { FollowupBanner } from "@/components/due-dates/overdue-flag";
+import { overrideDueAction } from "./override-due-action";
 import { ScreeningGuidance } from "@/components/due-dates/screening-guidance";
 import { OpenDisagreements } from "@/components/review/open-disagreements";
 import { POSITION_WORDS } from "@/lib/report/labels";
@@ -20,10 +20,9 @@ export default async function PatientPage({ params }: { params: Promise<{ patien
   const id = uuidParam.safeParse((await params).patientId);
   if (!id.success) notFound();
   const scope = scopeOf(user);
-  const patient = await getPatient(scope, id.data);
-  if (!patient) notFound();
-  const visitList = await listVisitsForPatient(scope, patient.id);
-  await recordAudit({ userId: user.id, siteId: patient.siteId, patientId: patient.id, action: "patient.read" });
+  const record = await readPatientRecord(scope, id.data);
+  if (!record) notFound();
+  const { patient, visits: visitList, due } = record;
   return (
     <AppShell user={user}>
       <p className="text-sm"><Link href="/patients" className="text-lagoon-700 underline">Patients</Link> /</p>
@@ -41,7 +40,7 @@ export default async function PatientPage({ params }: { params: Promise<{ patien
         <div><dt className="text-ink-soft">HIV status</dt><dd className="font-semibold">{patient.hivStatus}</dd></div>
       </dl>
       <div className="mt-4 space-y-3">
-        <FollowupBanner patientId={patient.id} user={user} />
+        <FollowupBanner patientId={patient.id} due={due} overrideAction={user.role === "clinician" || user.role === "admin" ? overrideDueAction : undefined} />
         <OpenDisagreements patientId={patient.id} canResolve={user.role === "clinician" || user.role === "admin"} />
         <details className="rounded-md border border-rule bg-panel px-4 py-2">
           <summary className="min-h-11 cursor-pointer py-2 font-semibold">Screening guidance (IANS 2024)</summary>

@@ -6,7 +6,7 @@ import { ExportPanel } from "@/components/research/export-panel";
 import { QuarterGradeChart } from "@/components/research/quarter-grade-chart";
 import { RecurrenceChart } from "@/components/research/recurrence-chart";
 import { WithdrawControl } from "@/components/research/withdraw-control";
-import { recordAudit } from "@/db/queries/audit-write";
+import { recordAudit } from "@/lib/server/audit";
 import { loadRegistryDashboard } from "@/db/queries/research/dashboard";
 import { listEnrolmentCandidates } from "@/db/queries/research/enrolment";
 import { getStudy, listEnrolments } from "@/db/queries/research/studies";

@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { listSiteRules, updateSiteRules } from "@/db/queries/due-dates";
+import { listSiteRules, updateSiteRules } from "@/lib/server/due-dates";
 import { requireSite } from "@/lib/auth/guard";
 import { siteRuleTableSchema } from "@/lib/due-dates/rules";
 import { readJson, route } from "@/lib/http/route";

@@ -1,5 +1,5 @@
 import { getPatient, listVisitsForPatient } from "@/db/queries/patients";
-import { recordAudit } from "@/db/queries/audit-write";
+import { recordAudit } from "@/lib/server/audit";
 import { scopeOf } from "@/lib/auth/guard";
 import { AppError } from "@/lib/errors";
 import { idParam, route } from "@/lib/http/route";

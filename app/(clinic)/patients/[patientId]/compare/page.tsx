@@ -4,7 +4,7 @@ import { CompareView } from "@/components/review/compare-view";
 import "@/components/timeline/timeline-print.css";
 import { getPatient } from "@/db/queries/patients";
 import { listReviewersForSite } from "@/db/queries/reviews";
-import { recordAudit } from "@/db/queries/audit-write";
+import { recordAudit } from "@/lib/server/audit";
 import { scopeOf } from "@/lib/auth/guard";
 import { CLINICAL_ROLES, requirePageRole } from "@/lib/auth/page-guard";
 import { uuidParam } from "@/lib/http/route";

@@ -1,4 +1,4 @@
-import { recordAudit } from "@/db/queries/audit-write";
+import { recordAudit } from "@/lib/server/audit";
 import { getPatient } from "@/db/queries/patients";
 import { loadPatientBundleInput } from "@/db/queries/research/fhir";
 import { scopeOf } from "@/lib/auth/guard";

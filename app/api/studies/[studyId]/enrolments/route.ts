@@ -1,4 +1,4 @@
-import { recordAudit } from "@/db/queries/audit-write";
+import { recordAudit } from "@/lib/server/audit";
 import { findCandidate, insertEnrolment, subjectIdTaken } from "@/db/queries/research/enrolment";
 import { getStudy } from "@/db/queries/research/studies";
 import { scopeOf } from "@/lib/auth/guard";

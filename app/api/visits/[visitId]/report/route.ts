@@ -1,6 +1,6 @@
 import { z } from "zod";
 import { loadVisitReport } from "@/db/queries/report";
-import { recordAudit } from "@/db/queries/audit-write";
+import { recordAudit } from "@/lib/server/audit";
 import { scopeOf } from "@/lib/auth/guard";
 import { idParam, readQuery, route } from "@/lib/http/route";
 import { renderVisitReport } from "@/lib/report";

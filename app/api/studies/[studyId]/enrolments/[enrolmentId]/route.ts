@@ -1,4 +1,4 @@
-import { recordAudit } from "@/db/queries/audit-write";
+import { recordAudit } from "@/lib/server/audit";
 import { getEnrolment, withdrawEnrolment } from "@/db/queries/research/studies";
 import { scopeOf } from "@/lib/auth/guard";
 import { AppError } from "@/lib/errors";
