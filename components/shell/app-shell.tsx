@@ -1,7 +1,7 @@
 import Link from "next/link";
 import type { ReactNode } from "react";
 import { Wordmark } from "@/components/ui/wordmark";
-import { signOutAction } from "@/app/(auth)/sign-out-action";
+import { signOutAction } from "@/lib/auth/sign-out-action";
 import type { CurrentUser } from "@/lib/auth/guard";
 import { navLinksFor } from "./nav-links";
 import { ROLE_LABEL } from "@/lib/domain/vocab";

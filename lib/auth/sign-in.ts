@@ -1,5 +1,6 @@
 import "server-only";
-import { findUserCredentials, hitRateLimit, releaseRateLimit, resetRateLimit } from "@/db/queries/users";
+import { findUserCredentials } from "@/db/queries/users";
+import { hitRateLimit, releaseRateLimit, resetRateLimit } from "@/lib/server/rate-limit";
 import { recordAudit } from "@/lib/server/audit";
 import { AppError } from "@/lib/errors";
 import type { Role } from "@/lib/domain/vocab";

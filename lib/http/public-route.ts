@@ -2,7 +2,7 @@ import "server-only";
 // The only routes that answer without a session (accept an invitation, ask for and complete a
 // password reset). They still check the Origin of mutations and are rate-limited per client
 // address; the access matrix lists them through the `dentateRoles = "public"` marker.
-import { hitRateLimit } from "@/db/queries/users";
+import { hitRateLimit } from "@/lib/server/rate-limit";
 import { clientIp, originAllowed } from "@/lib/auth/request-info";
 import { AppError, errorToBody } from "@/lib/errors";
 import { json } from "./route";

@@ -84,7 +84,7 @@ describe("sessions", () => {
     const { sessionId } = await signIn(email, "an invented long passphrase", "10.20.0.2");
     const cookie = `${SESSION_COOKIE}=${sessionId}`;
     expect((await listPatients(req("GET", "/api/patients", { userId: "x", role: "clinician", cookie }))).status).toBe(200);
-    await invalidateSession(sessionId); // what the sign-out action does (app/(auth)/sign-out-action.ts)
+    await invalidateSession(sessionId); // what the sign-out action does (lib/auth/sign-out-action.ts)
     expect(await db.select().from(sessions).where(eq(sessions.id, sessionId))).toHaveLength(0);
     expect((await listPatients(req("GET", "/api/patients", { userId: "x", role: "clinician", cookie }))).status).toBe(401);
   });

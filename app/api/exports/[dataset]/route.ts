@@ -1,5 +1,5 @@
 import { Readable } from "node:stream";
-import { streamCsvExport } from "@/db/queries/research/export-stream";
+import { streamCsvExport } from "@/lib/server/exports";
 import { AppError } from "@/lib/errors";
 import { route } from "@/lib/http/route";
 import { datasetParam } from "@/lib/validation/research";

@@ -1,5 +1,5 @@
 import { Readable } from "node:stream";
-import { streamWorkbookExport } from "@/db/queries/research/export-stream";
+import { streamWorkbookExport } from "@/lib/server/exports";
 import { route } from "@/lib/http/route";
 import { EXPORT_ROLES, attachmentHeaders, exportStamp, prepareExport } from "../prepare";
 

@@ -1,11 +1,10 @@
 import "server-only";
 import { PassThrough, Transform, type Readable } from "node:stream";
-import { sql } from "../../client";
-import { recordAudit } from "../audit-write";
+import { recordAudit } from "@/db/queries/audit-write";
 import type { ExportDataset } from "@/lib/validation/research";
 import { EXPORT_DATASETS } from "@/lib/validation/research";
-import { exportSelect } from "./export-sql";
-import type { ExportScope } from "./export-scope";
+import { exportCsvCopy, exportRowCursor } from "@/db/queries/research/export-sql";
+import type { ExportScope } from "@/db/queries/research/export-scope";
 
 export interface ExportAudit {
   userId: string;
@@ -70,8 +69,7 @@ const BLOCK_BYTES = 64 * 1024;
  * byte has gone (or the stream failed), with the number of records.
  */
 export async function streamCsvExport(dataset: ExportDataset, scope: ExportScope, audit: ExportAudit): Promise<Readable> {
-  const copy = `COPY (${exportSelect(dataset, scope)}) TO STDOUT WITH (FORMAT csv, HEADER, ENCODING 'UTF8')`;
-  const source = await sql.unsafe(copy).readable();
+  const source = await exportCsvCopy(dataset, scope);
   let audited = false;
   const counter = lineCounter((records, failed) => {
     if (audited) return;
@@ -98,7 +96,7 @@ export function streamWorkbookExport(scope: ExportScope, audit: ExportAudit): Re
     for (const dataset of EXPORT_DATASETS) {
       const sheet = wb.addWorksheet(SHEET_NAMES[dataset]);
       let n = 0;
-      const cursor = sql.unsafe(exportSelect(dataset, scope)).cursor(500);
+      const cursor = exportRowCursor(dataset, scope);
       for await (const batch of cursor) {
         if (n === 0 && batch.length) {
           const header = Object.keys(batch[0]!);
