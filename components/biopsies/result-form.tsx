@@ -4,6 +4,7 @@ import { useState } from "react";
 import { useRouter } from "next/navigation";
 import { ApiError, sendJson } from "@/components/data/fetcher";
 import { AIN_GRADES, HISTOLOGY, HISTOLOGY_LABEL, P16 } from "@/lib/domain/vocab";
+import { api } from "@/components/data/keys";
 
 const P16_LABEL: Record<(typeof P16)[number], string> = { block_positive: "Block positive", not_block: "Positive, not block-type", negative: "Negative", not_done: "Not done" };
 
@@ -21,7 +22,7 @@ export function ResultForm({ biopsyId, specimen, onSaved }: { biopsyId: string; 
     setBusy(true);
     setError(null);
     try {
-      await sendJson("PATCH", `/api/biopsies/${biopsyId}`, { histology, ainGrade: ain || null, p16 });
+      await sendJson("PATCH", api.biopsy(biopsyId), { histology, ainGrade: ain || null, p16 });
       if (onSaved) await onSaved();
       else router.refresh();
     } catch (err) {

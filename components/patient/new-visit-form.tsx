@@ -3,6 +3,7 @@
 import { useState } from "react";
 import { useRouter } from "next/navigation";
 import { ApiError, sendJson } from "@/components/data/fetcher";
+import { api } from "@/components/data/keys";
 
 const POSITIONS = [
   ["lithotomy", "Lithotomy"],
@@ -23,7 +24,7 @@ export function NewVisitForm({ patientId, today }: { patientId: string; today: s
     setBusy(true);
     setError(null);
     try {
-      const { visit } = await sendJson<{ visit: { id: string } }>("POST", `/api/patients/${patientId}/visits`, { visitDate: date, patientPosition: position });
+      const { visit } = await sendJson<{ visit: { id: string } }>("POST", api.patientVisits(patientId), { visitDate: date, patientPosition: position });
       router.push(`/patients/${patientId}/visits/${visit.id}`);
     } catch (err) {
       setError(err instanceof ApiError ? Object.values(err.fields ?? {})[0]?.[0] ?? err.message : "The visit could not be created.");

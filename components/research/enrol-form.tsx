@@ -3,6 +3,7 @@
 import { useState } from "react";
 import { useRouter } from "next/navigation";
 import { ApiError, sendJson } from "@/components/data/fetcher";
+import { api } from "@/components/data/keys";
 
 export interface Candidate {
   ref: string;
@@ -31,7 +32,7 @@ export function EnrolForm({ studyId, candidates, suggestedId, today }: { studyId
     setBusy(true);
     setError(null);
     try {
-      await sendJson("POST", `/api/studies/${studyId}/enrolments`, { candidateRef: candidate.ref, siteId: candidate.siteId, studySubjectId: subjectId, consentDate });
+      await sendJson("POST", api.studyEnrolments(studyId), { candidateRef: candidate.ref, siteId: candidate.siteId, studySubjectId: subjectId, consentDate });
       setPick("");
       router.refresh();
     } catch (err) {

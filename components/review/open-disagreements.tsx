@@ -8,6 +8,7 @@ import { fetcher, sendJson, type ApiError } from "@/components/data/fetcher";
 import { STATUS_LABEL } from "@/components/timeline/status-glyph";
 import type { TrackStatus } from "@/lib/domain/vocab";
 import { compareHref } from "./review-model";
+import { api } from "@/components/data/keys";
 
 interface Disagreement {
   id: string;
@@ -21,7 +22,7 @@ interface Disagreement {
   comparedVisitId: string | null;
 }
 
-export const disagreementsUrl = (patientId: string) => `/api/patients/${patientId}/reviews`;
+export const disagreementsUrl = (patientId: string) => api.patientReviews(patientId);
 
 /**
  * A reviewer's open disagreements with this patient's track statuses. The clinician reads
@@ -36,7 +37,7 @@ export function OpenDisagreements({ patientId, canResolve }: { patientId: string
     setBusy(id);
     setFailure(null);
     try {
-      await sendJson("POST", `/api/adjudications/${id}/resolve`);
+      await sendJson("POST", api.resolveAdjudication(id));
       await mutate();
     } catch (e) {
       setFailure(e instanceof Error ? e.message : "Not resolved.");

@@ -6,6 +6,7 @@ import { sendJson } from "@/components/data/fetcher";
 import type { Role } from "@/lib/domain/vocab";
 import type { TimelineReview } from "@/components/timeline/timeline-types";
 import { AdjudicationRow, type AdjudicationDraft, type AdjudicationTarget } from "./adjudication-row";
+import { api } from "@/components/data/keys";
 
 export interface Reviewer {
   id: string;
@@ -46,7 +47,7 @@ export function ReviewPanel(props: {
   const nameOf = (id: string | null) => reviewers.find((r) => r.id === id)?.displayName ?? (id === user.id ? "you" : "a reviewer");
 
   const startReview = async (reviewerId: string) =>
-    (await sendJson<{ review: { id: string } }>("POST", `/api/patients/${patientId}/reviews`, { visitId: laterId, comparedVisitId: earlierId, reviewerId })).review.id;
+    (await sendJson<{ review: { id: string } }>("POST", api.patientReviews(patientId), { visitId: laterId, comparedVisitId: earlierId, reviewerId })).review.id;
 
   const act = async (fn: () => Promise<string | void>) => {
     setBusy(true);

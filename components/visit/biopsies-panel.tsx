@@ -9,6 +9,7 @@ import { ResultForm } from "@/components/biopsies/result-form";
 import { GRADE_LABEL, HISTOLOGY_LABEL, type Histology } from "@/lib/domain/vocab";
 import { describeSite } from "@/lib/geometry/conventions";
 import type { VisitMapDto } from "@/lib/validation/lesions";
+import { api } from "@/components/data/keys";
 
 interface BiopsyRow {
   id: string;
@@ -23,8 +24,8 @@ interface BiopsyRow {
 }
 
 export function BiopsiesPanel({ visitId, canEdit, canEnterResults }: { visitId: string; canEdit: boolean; canEnterResults: boolean }) {
-  const key = `/api/visits/${visitId}/biopsies`;
-  const lesionsKey = `/api/visits/${visitId}/lesions`;
+  const key = api.visitPart(visitId, "biopsies");
+  const lesionsKey = api.visitPart(visitId, "lesions");
   const { mutate } = useSWRConfig();
   const { data } = useSWR<{ biopsies: BiopsyRow[] }>(key, fetcher);
   const { data: map } = useSWR<VisitMapDto>(lesionsKey, fetcher);

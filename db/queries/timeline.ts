@@ -6,8 +6,7 @@ import { inScopeParam, siteIdsParam, type SiteScope } from "./scope";
 import { rowsOf } from "./json-rows";
 import { auditOfRead, auditValues, type ReadAudit } from "./audit-write";
 import { AppError } from "@/lib/errors";
-import { HISTOLOGY, HISTOLOGY_AS_GRADE, type Grade, type Histology } from "@/lib/domain/vocab";
-import { unionLengthH } from "@/lib/geometry/arcs";
+import type { TimelineRows } from "@/lib/timeline/assemble";
 
 type Visit = typeof visits.$inferSelect;
 type Lesion = typeof lesions.$inferSelect;
@@ -78,7 +77,7 @@ const timelineOf = prepared((run) =>
  * statement records the read (`audit`, completed with the patient's site and id) when the patient
  * is in scope.
  */
-export async function loadTimeline(scope: SiteScope, patientId: string, audit: ReadAudit) {
+export async function readTimelineRows(scope: SiteScope, patientId: string, audit: ReadAudit): Promise<TimelineRows> {
   const [patient] = await timelineOf(db, { patientId, siteIds: siteIdsParam(scope), ...auditValues(audit) });
   if (!patient) throw new AppError("not_found");
 
@@ -96,39 +95,9 @@ export async function loadTimeline(scope: SiteScope, patientId: string, audit: R
     id, reviewId, trackId, verdict, proposedStatus, comment, resolvedAt: resolvedAt === null ? null : new Date(resolvedAt), createdAt: new Date(createdAt),
   }));
 
-  const histologyByLesion = new Map<string, Histology>();
-  const biopsyLabels = new Map<string, string[]>();
-  for (const b of biopsyRows) {
-    if (!b.lesionId) continue;
-    biopsyLabels.set(b.lesionId, [...(biopsyLabels.get(b.lesionId) ?? []), b.label]);
-    const prev = histologyByLesion.get(b.lesionId);
-    if (b.histology && (!prev || HISTOLOGY.indexOf(b.histology) > HISTOLOGY.indexOf(prev))) histologyByLesion.set(b.lesionId, b.histology);
-  }
-  const treatedLesions = new Set(treatmentRows.map((t) => t.lesionId).filter(Boolean));
-  const lesionDtos = lesionRows.map((l) => {
-    const histology = histologyByLesion.get(l.id) ?? null;
-    const effectiveGrade: Grade = histology ? HISTOLOGY_AS_GRADE[histology] : l.grade;
-    return { ...l, histology, effectiveGrade, biopsyLabels: biopsyLabels.get(l.id) ?? [], treated: treatedLesions.has(l.id) };
-  });
-
-  const perVisit = visitRows.map((v) => {
-    const mine = lesionDtos.filter((l) => l.visitId === v.id);
-    const counts: Record<string, number> = {};
-    for (const l of mine) counts[l.effectiveGrade] = (counts[l.effectiveGrade] ?? 0) + 1;
-    const arcs = treatmentRows.filter((t) => t.visitId === v.id).flatMap((t) => t.arcs);
-    return { visitId: v.id, visitDate: v.visitDate, countsByGrade: counts, lesionCount: mine.length, treatedFraction: arcs.length ? unionLengthH(arcs) / 12 : 0 };
-  });
-
   return {
-    patient: { id: patient.id, siteId: patient.siteId, name: `${patient.familyName}, ${patient.givenName}`, mrn: patient.mrn },
-    visits: visitRows,
-    tracks: trackRows,
-    lesions: lesionDtos,
-    statuses: statusRows,
-    checks: checkRows,
-    perVisit,
-    reviews: reviewRows.map((r) => ({ ...r, adjudications: adjudicationRows.filter((a) => a.reviewId === r.id) })),
+    patient: { id: patient.id, siteId: patient.siteId, familyName: patient.familyName, givenName: patient.givenName, mrn: patient.mrn },
+    visits: visitRows, tracks: trackRows, lesions: lesionRows, biopsies: biopsyRows, treatments: treatmentRows,
+    statuses: statusRows, checks: checkRows, reviews: reviewRows, adjudications: adjudicationRows,
   };
 }
-
-export type TimelineDto = Awaited<ReturnType<typeof loadTimeline>>;

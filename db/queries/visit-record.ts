@@ -6,6 +6,7 @@ import { sites, users, visits } from "../schema";
 import { inScopeParam, siteIdsParam, type SiteScope } from "./scope";
 import { AppError } from "@/lib/errors";
 import { DEFAULT_CAUTION_FRACTION } from "@/lib/dosing";
+import type { VisitRecord } from "@/lib/api/types";
 
 const examiner = alias(users, "examiner");
 const signer = alias(users, "signer");
@@ -50,12 +51,12 @@ const visitRecord = prepared((run) =>
     .limit(1),
 );
 
-export async function readVisitRecord(run: Db | Tx, scope: SiteScope, visitId: string) {
+export async function readVisitRecord(run: Db | Tx, scope: SiteScope, visitId: string): Promise<VisitRecord> {
   const [row] = await visitRecord(run, { visitId, siteIds: siteIdsParam(scope) });
   if (!row) throw new AppError("not_found");
   return { ...row, extentCautionFraction: row.extentCautionFraction ?? DEFAULT_CAUTION_FRACTION };
 }
-export type VisitRecord = Awaited<ReturnType<typeof readVisitRecord>>;
+export type { VisitRecord };
 
 // A value bound as is (dates go in as ISO text, as drizzle would send them).
 const p = (name: string) => dsql`${dsql.placeholder(name)}`;

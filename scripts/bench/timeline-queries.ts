@@ -5,7 +5,7 @@
 // Run: DATABASE_URL=… tsx --conditions=react-server scripts/bench/timeline-queries.ts <prepare.json>
 import { readFileSync } from "node:fs";
 import { onQuery, runScript } from "@/db/client";
-import { loadTimeline } from "@/db/queries/timeline";
+import { loadTimeline } from "@/lib/server/timeline";
 
 async function main() {
   const prep = JSON.parse(readFileSync(process.argv[2]!, "utf8"));

@@ -4,6 +4,7 @@ import { ApiError } from "@/components/data/fetcher";
 import { Button } from "@/components/ui/button";
 import { uploadWithProgress } from "./upload-xhr";
 import { formatBytes } from "./describe-attachment";
+import { api } from "@/components/data/keys";
 
 interface Props {
   visitId: string;
@@ -39,7 +40,7 @@ export function UploadControl({ visitId, lesions, lesionId, maxBytes, onUploaded
     setDone(null);
     setProgress(0);
     try {
-      await uploadWithProgress(`/api/visits/${visitId}/attachments`, form, setProgress);
+      await uploadWithProgress(api.visitPart(visitId, "attachments"), form, setProgress);
       setDone(`${file.name} added.`);
       setFile(null);
       setCaption("");

@@ -7,6 +7,7 @@ import type { DisplayConvention } from "@/lib/geometry";
 import { attachmentPlace, formatBytes } from "./describe-attachment";
 import { UploadControl } from "./upload-control";
 import type { AttachmentDto, GalleryDto } from "./types";
+import { api } from "@/components/data/keys";
 
 export interface VisitGalleryProps {
   visitId: string;
@@ -18,7 +19,7 @@ export interface VisitGalleryProps {
 }
 
 function Tile({ a, conv, canDelete, onDelete }: { a: AttachmentDto; conv: DisplayConvention; canDelete: boolean; onDelete: (id: string) => void }) {
-  const href = `/api/attachments/${a.id}`;
+  const href = api.attachment(a.id);
   const place = attachmentPlace(a, conv);
   return (
     <li className="grid content-start gap-2 rounded-lg border border-rule bg-panel p-2">
@@ -52,7 +53,7 @@ function Tile({ a, conv, canDelete, onDelete }: { a: AttachmentDto; conv: Displa
 
 /** Photographs and documents of a visit (or of one lesion), with upload and the PDF report link. */
 export function VisitGallery({ visitId, canUpload, lesionId, convention = "lithotomy" }: VisitGalleryProps) {
-  const key = `/api/visits/${visitId}/attachments`;
+  const key = api.visitPart(visitId, "attachments");
   const { data, error, isLoading, mutate } = useSWR<GalleryDto>(key, fetcher);
   const [actionError, setActionError] = useState<string | null>(null);
   const items = (data?.attachments ?? []).filter((a) => !lesionId || a.lesionId === lesionId);
@@ -62,7 +63,7 @@ export function VisitGallery({ visitId, canUpload, lesionId, convention = "litho
     if (!window.confirm("Remove this file from the visit?")) return;
     setActionError(null);
     try {
-      await sendJson("DELETE", `/api/attachments/${id}`);
+      await sendJson("DELETE", api.attachment(id));
       await mutate();
     } catch (err) {
       setActionError(err instanceof ApiError ? err.message : "The file could not be removed.");

@@ -7,6 +7,7 @@ import useSWR from "swr";
 import { ApiError, fetcher, sendJson } from "@/components/data/fetcher";
 import { newClientKey } from "@/lib/ids/client-key";
 import type { CreateLesionInput, LesionDto, UpdateLesionInput, VisitMapDto } from "@/lib/validation/lesions";
+import { api } from "@/components/data/keys";
 
 export type LesionPatch = Partial<CreateLesionInput>;
 export type SaveInfo = { state: "saving" | "failed"; message?: string; retry?: () => void };
@@ -41,7 +42,7 @@ let tempCounter = 0;
  * SWR's cache, and SWR refreshes it from then on (focus, writes).
  */
 export function useLesionStore(visitId: string, initial?: VisitMapDto) {
-  const key = `/api/visits/${visitId}/lesions`;
+  const key = api.visitPart(visitId, "lesions");
   const swr = useSWR<VisitMapDto>(key, fetcher, { fallbackData: initial, revalidateOnMount: !initial, revalidateOnFocus: true, keepPreviousData: true });
   const [overlay, setOverlay] = useState<Overlay>(EMPTY);
   const [notice, setNotice] = useState<Notice>(null);

@@ -27,6 +27,7 @@ import { useFollowUp } from "@/components/visit/refind/use-follow-up";
 import { useLookAgain } from "@/components/visit/refind/use-look-again";
 import { useTreatedArcs } from "@/components/visit/refind/use-treated-arcs";
 import { ghostStatusWords } from "@/components/visit/refind/look-again";
+import { api } from "@/components/data/keys";
 
 export interface VisitMapEditorProps {
   visitId: string;
@@ -145,7 +146,7 @@ export function VisitMapEditor({ visitId, initialConvention, canEdit = true, ini
     // request costs a frame a few milliseconds, and nothing on screen waits for it.
     await new Promise<void>((done) => afterNextFrame(done));
     try {
-      await sendJson("PATCH", "/api/me/preferences", { displayConvention: next });
+      await sendJson("PATCH", api.preferences, { displayConvention: next });
       setPrefNotice(null);
     } catch {
       setPrefNotice(`Showing ${CONVENTION_LABEL[next]} numbering here, but the choice could not be saved for next time (was ${CONVENTION_LABEL[before]}).`);

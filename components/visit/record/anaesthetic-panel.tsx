@@ -11,6 +11,7 @@ import { DoseBar } from "./dose-bar";
 import { Field, FormError, inputClass, Section } from "./field";
 import { AGENT_WORDS } from "@/lib/report/labels";
 import { round1 } from "./labels";
+import { api } from "@/components/data/keys";
 
 interface DoseRow { id: string; agent: AnaestheticAgent; concentrationPct: number; volumeMl: number; withEpinephrine: boolean; doseMg: number; overrideReason: string | null }
 interface DosesDto { entries: DoseRow[]; weightKg: number | null; assessment: DoseAssessment }
@@ -18,7 +19,7 @@ interface DosesDto { entries: DoseRow[]; weightKg: number | null; assessment: Do
 const STATEMENT = "Limits follow the product label and your local protocol; the treating clinician decides.";
 
 export function AnaestheticPanel({ visitId, canEdit }: { visitId: string; canEdit: boolean }) {
-  const key = `/api/visits/${visitId}/anaesthetic`;
+  const key = api.visitPart(visitId, "anaesthetic");
   const { data, error } = useSWR<DosesDto>(key, fetcher);
   const [agent, setAgent] = useState<AnaestheticAgent>("lidocaine");
   const [pct, setPct] = useState("1");

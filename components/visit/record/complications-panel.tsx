@@ -6,13 +6,14 @@ import { Button } from "@/components/ui/button";
 import { COMPLICATION_KINDS, SEVERITIES } from "@/lib/domain/vocab";
 import { Field, FormError, inputClass, Section } from "./field";
 import { COMPLICATION_WORDS, SEVERITY_WORDS } from "@/lib/report/labels";
+import { api } from "@/components/data/keys";
 
 type Kind = (typeof COMPLICATION_KINDS)[number];
 type Severity = (typeof SEVERITIES)[number];
 interface Row { id: string; kind: Kind; severity: Severity; timing: "during" | "after"; note: string | null }
 
 export function ComplicationsPanel({ visitId, canEdit }: { visitId: string; canEdit: boolean }) {
-  const key = `/api/visits/${visitId}/complications`;
+  const key = api.visitPart(visitId, "complications");
   const { data, error } = useSWR<{ complications: Row[] }>(key, fetcher);
   const [kind, setKind] = useState<Kind>("pain");
   const [severity, setSeverity] = useState<Severity>("mild");

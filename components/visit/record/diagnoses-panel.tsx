@@ -6,6 +6,7 @@ import { Button } from "@/components/ui/button";
 import { Caution } from "@/components/ui/caution";
 import { FormError, Section } from "./field";
 import { formatDateTime } from "./labels";
+import { api } from "@/components/data/keys";
 
 interface Dto {
   suggestions: { code: string; descriptor: string; why: string }[];
@@ -15,7 +16,7 @@ interface Dto {
 
 /** ICD-10-CM codes suggested from the findings; nothing is coded until the clinician confirms it. */
 export function DiagnosesPanel({ visitId, canEdit }: { visitId: string; canEdit: boolean }) {
-  const key = `/api/visits/${visitId}/diagnoses`;
+  const key = api.visitPart(visitId, "diagnoses");
   const { data, error } = useSWR<Dto>(key, fetcher);
   const [serverError, setServerError] = useState<string | null>(null);
 

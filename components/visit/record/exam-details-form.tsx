@@ -11,6 +11,7 @@ import { examDetailsSchema } from "@/lib/validation/visit-record";
 import { Field, FormError, inputClass, Section } from "./field";
 import { ADEQUACY_WORDS, CYTOLOGY_WORDS, HPV_WORDS, POSITION_WORDS } from "@/lib/report/labels";
 import { visitKey, type VisitRecordDto } from "./use-visit-record";
+import { api } from "@/components/data/keys";
 
 type In = z.input<typeof examDetailsSchema>;
 type Out = z.output<typeof examDetailsSchema>;
@@ -53,7 +54,7 @@ export function ExamDetailsForm({ visit, canEdit }: { visit: VisitRecordDto; can
     try {
       const res = await sendJson<{ visit: VisitRecordDto }>("PATCH", visitKey(visit.id), values);
       await mutate(visitKey(visit.id), (cur: object | undefined) => ({ ...cur, visit: res.visit }), { revalidate: true });
-      await Promise.all([mutate(`/api/visits/${visit.id}/anaesthetic`), mutate(`/api/visits/${visit.id}/diagnoses`)]);
+      await Promise.all([mutate(api.visitPart(visit.id, "anaesthetic")), mutate(api.visitPart(visit.id, "diagnoses"))]);
       setSaved(true);
     } catch (e) {
       if (e instanceof ApiError && e.fields) for (const [k, msgs] of Object.entries(e.fields)) setError(k as Path<In>, { message: msgs[0] });

@@ -7,11 +7,12 @@ import type { VisitPermissions } from "@/lib/validation/visit-record";
 import { Field, FormError, inputClass, Section } from "./field";
 import { formatDateTime } from "./labels";
 import { visitKey, type VisitRecordDto } from "./use-visit-record";
+import { api } from "@/components/data/keys";
 
 interface Addendum { id: string; body: string; authorName: string; createdAt: string }
 
 export function SigningPanel({ visit, permissions }: { visit: VisitRecordDto; permissions: VisitPermissions }) {
-  const addendaKey = `/api/visits/${visit.id}/addenda`;
+  const addendaKey = api.visitPart(visit.id, "addenda");
   const { data } = useSWR<{ addenda: Addendum[] }>(visit.status === "signed" ? addendaKey : null, fetcher);
   const [confirming, setConfirming] = useState(false);
   const [body, setBody] = useState("");
@@ -22,7 +23,7 @@ export function SigningPanel({ visit, permissions }: { visit: VisitRecordDto; pe
   async function sign() {
     setBusy(true); setServerError(null);
     try {
-      await sendJson("POST", `/api/visits/${visit.id}/sign`);
+      await sendJson("POST", api.visitPart(visit.id, "sign"));
       setConfirming(false);
       // Every panel turns read-only: refresh everything under this visit.
       await mutate((k) => typeof k === "string" && k.startsWith(visitKey(visit.id)));

@@ -11,6 +11,7 @@ import { gateExtent, isTopical } from "@/lib/validation/treatments";
 import { ArcInputs, describeArc, toStoredArcs, type ArcDraft } from "./arc-inputs";
 import { Field, FormError, inputClass, Section } from "./field";
 import { MODALITY_WORDS } from "@/lib/report/labels";
+import { api } from "@/components/data/keys";
 
 interface TreatmentRow { id: string; lesionId: string | null; lesionLabel: string | null; modality: Modality; regimen: string | null; arcs: { startH: number; endH: number }[]; extentOverrideReason: string | null; note: string | null }
 interface TreatmentsDto { treatments: TreatmentRow[]; extent: ExtentAssessment; cautionFraction: number }
@@ -25,9 +26,9 @@ export function ExtentWhy({ cautionFraction }: { cautionFraction: number }) {
 }
 
 export function TreatmentsPanel({ visitId, canEdit, conv }: { visitId: string; canEdit: boolean; conv: DisplayConvention }) {
-  const key = `/api/visits/${visitId}/treatments`;
+  const key = api.visitPart(visitId, "treatments");
   const { data, error } = useSWR<TreatmentsDto>(key, fetcher);
-  const { data: map } = useSWR<LesionsDto>(`/api/visits/${visitId}/lesions`, fetcher);
+  const { data: map } = useSWR<LesionsDto>(api.visitPart(visitId, "lesions"), fetcher);
   const [modality, setModality] = useState<Modality>("electrocautery");
   const [lesionId, setLesionId] = useState("");
   const [regimen, setRegimen] = useState("");
@@ -48,7 +49,7 @@ export function TreatmentsPanel({ visitId, canEdit, conv }: { visitId: string; c
     try {
       await sendJson("POST", key, { modality, lesionId: lesionId || null, regimen: regimen || null, arcs: arcs ?? [], extentOverrideReason: reason.trim() || null, note: note || null });
       setDrafts([{ start: "", end: "" }]); setReason(""); setNote(""); setRegimen(""); setLesionId("");
-      await Promise.all([mutate(key), mutate(`/api/visits/${visitId}/lesions`)]);
+      await Promise.all([mutate(key), mutate(api.visitPart(visitId, "lesions"))]);
     } catch (err) {
       if (err instanceof ApiError) { setFields(err.fields ?? {}); setServerError(err.fields ? null : err.message); }
       else setServerError("The treatment could not be saved.");

@@ -10,11 +10,12 @@ import { FormError } from "./field";
 import { SigningPanel } from "./signing-panel";
 import { TreatmentsPanel } from "./treatments-panel";
 import { useVisitRecord } from "./use-visit-record";
+import { api } from "@/components/data/keys";
 
 /** The visit record around the map: exam details, procedure, codes and signature. */
 export function VisitRecordPanels({ visitId }: { visitId: string }) {
   const { data, error, isLoading } = useVisitRecord(visitId);
-  const { data: prefs } = useSWR<{ displayConvention: DisplayConvention }>("/api/me/preferences", fetcher);
+  const { data: prefs } = useSWR<{ displayConvention: DisplayConvention }>(api.preferences, fetcher);
   if (error) return <FormError message={error.message} />;
   if (isLoading || !data) return <p className="text-ink-soft" role="status">Loading the visit record…</p>;
   const { visit, permissions } = data;

@@ -8,6 +8,7 @@ import { ApiError, fetcher, sendJson } from "@/components/data/fetcher";
 import type { Grade, Zone } from "@/lib/domain/vocab";
 import type { LesionDto } from "@/lib/validation/lesions";
 import type { TrackAction } from "@/lib/validation/tracking";
+import { api } from "@/components/data/keys";
 
 export type CheckOutcome = "not_found" | "treated";
 
@@ -36,8 +37,8 @@ export interface FollowUpDto {
 }
 export type ActionNote = { tone: "ok" | "danger"; text: string };
 
-export const tracksKey = (visitId: string) => `/api/visits/${visitId}/tracks`;
-export const lesionsKey = (visitId: string) => `/api/visits/${visitId}/lesions`;
+export const tracksKey = (visitId: string) => api.visitPart(visitId, "tracks");
+export const lesionsKey = (visitId: string) => api.visitPart(visitId, "lesions");
 
 export function failureText(err: unknown): string {
   if (err instanceof ApiError) {

@@ -5,6 +5,7 @@ import { useMemo } from "react";
 import useSWR from "swr";
 import { fetcher } from "@/components/data/fetcher";
 import type { TreatedArc } from "@/components/canal-map";
+import { api } from "@/components/data/keys";
 
 export interface TreatmentsView {
   treatments: { arcs: TreatedArc[] }[];
@@ -15,7 +16,7 @@ export interface TreatmentsView {
 const EMPTY: readonly TreatedArc[] = [];
 
 export function useTreatedArcs(visitId: string) {
-  const { data } = useSWR<TreatmentsView>(`/api/visits/${visitId}/treatments`, fetcher);
+  const { data } = useSWR<TreatmentsView>(api.visitPart(visitId, "treatments"), fetcher);
   const arcs = useMemo(() => (data?.treatments ? data.treatments.flatMap((t) => t.arcs) : EMPTY), [data]);
   return useMemo(
     () => ({ arcs, extent: data?.treatments?.length ? data.extent : null, cautionFraction: data?.cautionFraction ?? null }),

@@ -1,4 +1,4 @@
-import { loadTimeline } from "@/db/queries/timeline";
+import { loadTimeline } from "@/lib/server/timeline";
 import { scopeOf } from "@/lib/auth/guard";
 import { idParam, route } from "@/lib/http/route";
 
