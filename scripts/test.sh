@@ -61,6 +61,8 @@ node_modules/.bin/tsx db/migrate.ts
 node_modules/.bin/tsx --conditions=react-server db/seed/index.ts
 
 step "typecheck" node_modules/.bin/tsc --noEmit
+# The layering is a lint rule (tests/eslint.config.mjs): a forbidden import fails the run.
+step "lint (layering and code rules)" node_modules/.bin/eslint -c tests/eslint.config.mjs --max-warnings=0 .
 VITEST="node_modules/.bin/vitest run -c tests/vitest.config.ts"
 layer "unit and component tests" $VITEST --project unit --project component --reporter=default --reporter=json --outputFile.json="$OUT/unit.json"
 layer "integration tests" $VITEST --project integration --reporter=default --reporter=json --outputFile.json="$OUT/int.json"

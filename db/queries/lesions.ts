@@ -37,7 +37,8 @@ const decorationColumns = {
 };
 
 export type LesionRow = Omit<LesionDto, "histology" | "biopsyLabels" | "treated">;
-const { trackLabel: _trackLabel, ...lesionColumnsOfRow } = lesionColumns;
+// The lesion row's own columns (the track label comes from the joined track).
+const lesionColumnsOfRow = Object.fromEntries(Object.entries(lesionColumns).filter(([k]) => k !== "trackLabel")) as Omit<typeof lesionColumns, "trackLabel">;
 type DecoratedRow = LesionRow & { biopsyLabels: string[]; histologies: string[]; treated: boolean };
 
 function toDto({ histologies, ...r }: DecoratedRow): LesionDto {

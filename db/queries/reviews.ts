@@ -4,8 +4,6 @@ import { db, type Tx } from "../client";
 import { adjudications, lesionTracks, patients, reviews, users, userSites, visits } from "../schema";
 import { inScope, type SiteScope } from "./scope";
 import { AppError } from "@/lib/errors";
-import type { AdjudicationInput } from "@/lib/validation/tracking";
-import { notifyReviewRequested } from "@/lib/server/notifications";
 
 export async function loadReviewFor(scope: SiteScope, reviewId: string) {
   const [r] = await db.select().from(reviews).where(and(eq(reviews.id, reviewId), inScope(reviews.siteId, scope)));

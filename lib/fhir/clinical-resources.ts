@@ -4,7 +4,7 @@ import { lastFromAin } from "@/lib/codes/last";
 import { trackLocation } from "./body-structure";
 import { GRADE_SYSTEM, HISTOLOGY_SYSTEM, MODALITY_SYSTEM, TARGET_BODY_STRUCTURE_EXTENSION } from "./terminology";
 import type { BundleBiopsy, BundleLesion, BundleTrack, BundleTreatment, CodeableConcept, FhirResource, Reference } from "./types";
-import { MODALITY_WORDS } from "@/lib/report/labels";
+import { MODALITY_WORDS } from "@/lib/domain/labels";
 
 /** Shared by every builder: how to reference another resource and how to write a date. */
 export interface MappingContext {

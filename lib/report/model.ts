@@ -3,7 +3,7 @@ import { assessDoses, assessExtent, mgFromPercentAndMl } from "@/lib/dosing";
 import { describeSite, formatClock } from "@/lib/geometry";
 import { ainLabel } from "@/lib/codes/last";
 import { decideGrade } from "@/lib/tracking/effective-grade";
-import * as W from "./labels";
+import * as W from "@/lib/domain/labels";
 import type { VisitReportData } from "./types";
 
 // The report's content as printed words and table rows, decided once here so the PDF

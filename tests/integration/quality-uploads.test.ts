@@ -29,7 +29,10 @@ const enc = (s: string) => new TextEncoder().encode(s);
 const cat = (...parts: Uint8Array[]) => {
   const out = new Uint8Array(parts.reduce((n, p) => n + p.byteLength, 0));
   let at = 0;
-  for (const p of parts) (out.set(p, at), (at += p.byteLength));
+  for (const p of parts) {
+    out.set(p, at);
+    at += p.byteLength;
+  }
   return out;
 };
 

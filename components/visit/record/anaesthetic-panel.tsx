@@ -9,7 +9,7 @@ import { mgFromPercentAndMl, type DoseAssessment } from "@/lib/dosing";
 import { anaestheticSchema, gateDose } from "@/lib/validation/treatments";
 import { DoseBar } from "./dose-bar";
 import { Field, FormError, inputClass, Section } from "./field";
-import { AGENT_WORDS } from "@/lib/report/labels";
+import { AGENT_WORDS } from "@/lib/domain/labels";
 import { round1 } from "./labels";
 import { api } from "@/components/data/keys";
 

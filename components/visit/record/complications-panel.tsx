@@ -5,7 +5,7 @@ import { ApiError, fetcher, sendJson } from "@/components/data/fetcher";
 import { Button } from "@/components/ui/button";
 import { COMPLICATION_KINDS, SEVERITIES } from "@/lib/domain/vocab";
 import { Field, FormError, inputClass, Section } from "./field";
-import { COMPLICATION_WORDS, SEVERITY_WORDS } from "@/lib/report/labels";
+import { COMPLICATION_WORDS, SEVERITY_WORDS } from "@/lib/domain/labels";
 import { api } from "@/components/data/keys";
 
 type Kind = (typeof COMPLICATION_KINDS)[number];

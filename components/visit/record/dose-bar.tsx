@@ -1,5 +1,5 @@
 import type { AgentDoseAssessment } from "@/lib/dosing";
-import { AGENT_WORDS } from "@/lib/report/labels";
+import { AGENT_WORDS } from "@/lib/domain/labels";
 import { round1 } from "./labels";
 
 const LEVEL_WORD = { ok: "Within the maximum", near: "Close to the maximum", over: "Over the maximum" } as const;

@@ -9,7 +9,7 @@ import { Button } from "@/components/ui/button";
 import { ADEQUACY, CYTOLOGY, HPV_RESULTS, POSITIONS } from "@/lib/domain/vocab";
 import { examDetailsSchema } from "@/lib/validation/visit-record";
 import { Field, FormError, inputClass, Section } from "./field";
-import { ADEQUACY_WORDS, CYTOLOGY_WORDS, HPV_WORDS, POSITION_WORDS } from "@/lib/report/labels";
+import { ADEQUACY_WORDS, CYTOLOGY_WORDS, HPV_WORDS, POSITION_WORDS } from "@/lib/domain/labels";
 import { visitKey, type VisitRecordDto } from "./use-visit-record";
 import { api } from "@/components/data/keys";
 

@@ -1,5 +1,5 @@
 // Formatting helpers for the record's panels. The words for stored codes live in
-// lib/report/labels.ts (one set for the screens, the PDF and FHIR).
+// lib/domain/labels.ts (one set for the screens, the PDF and FHIR).
 
 export function formatDateTime(iso: string | null | undefined): string {
   if (!iso) return "";

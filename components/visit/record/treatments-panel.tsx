@@ -10,7 +10,7 @@ import type { DisplayConvention } from "@/lib/geometry";
 import { gateExtent, isTopical } from "@/lib/validation/treatments";
 import { ArcInputs, describeArc, toStoredArcs, type ArcDraft } from "./arc-inputs";
 import { Field, FormError, inputClass, Section } from "./field";
-import { MODALITY_WORDS } from "@/lib/report/labels";
+import { MODALITY_WORDS } from "@/lib/domain/labels";
 import { api } from "@/components/data/keys";
 
 interface TreatmentRow { id: string; lesionId: string | null; lesionLabel: string | null; modality: Modality; regimen: string | null; arcs: { startH: number; endH: number }[]; extentOverrideReason: string | null; note: string | null }

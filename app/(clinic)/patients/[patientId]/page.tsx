@@ -10,7 +10,7 @@ import { FollowupBanner } from "@/components/due-dates/overdue-flag";
 import { overrideDueAction } from "./override-due-action";
 import { ScreeningGuidance } from "@/components/due-dates/screening-guidance";
 import { OpenDisagreements } from "@/components/review/open-disagreements";
-import { POSITION_WORDS } from "@/lib/report/labels";
+import { POSITION_WORDS } from "@/lib/domain/labels";
 
 export const metadata = { title: "Patient" };
 

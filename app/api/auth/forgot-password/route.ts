@@ -1,7 +1,7 @@
 // PUBLIC: no session. The answer is the same whether or not the address has an account: same
 // status, same body, and at least the same time (minDurationMs covers the extra work).
 import { requestPasswordReset } from "@/lib/server/accounts";
-import { hitRateLimit } from "@/db/queries/users";
+import { hitRateLimit } from "@/lib/server/rate-limit";
 import { forgotPasswordSchema } from "@/lib/accounts/schemas";
 import { publicRoute } from "@/lib/http/public-route";
 import { readJson } from "@/lib/http/route";

@@ -1,4 +1,4 @@
-import { setDisplayConvention } from "@/db/queries/users";
+import { saveDisplayConvention } from "@/lib/server/preferences";
 import { readJson, route } from "@/lib/http/route";
 import { preferencesSchema } from "@/lib/validation/visits";
 
@@ -6,6 +6,6 @@ export const GET = route({ roles: "any" }, async ({ user }) => ({ displayConvent
 
 export const PATCH = route({ roles: "any" }, async ({ req, user }) => {
   const input = await readJson(req, preferencesSchema);
-  await setDisplayConvention(user.id, input.displayConvention);
+  await saveDisplayConvention(user.id, input.displayConvention);
   return { displayConvention: input.displayConvention };
 });
