@@ -5,7 +5,7 @@
 import { beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db/client";
 import * as s from "@/db/schema";
-import { loadQualityPanel, type SiteQuality } from "@/db/queries/research/quality";
+import { loadQualityPanel, type SiteQuality } from "@/lib/server/research";
 import { makePatient, makeSite, makeUser } from "../fixtures/factory";
 
 type Cyto = (typeof s.visits.$inferInsert)["cytology"];

@@ -2,7 +2,7 @@ import Link from "next/link";
 import { AppShell } from "@/components/shell/app-shell";
 import { QualityTable } from "@/components/research/quality-table";
 import { recordAudit } from "@/lib/server/audit";
-import { loadQualityPanel } from "@/db/queries/research/quality";
+import { loadQualityPanel } from "@/lib/server/research";
 import { scopeOf } from "@/lib/auth/guard";
 import { requirePageRole } from "@/lib/auth/page-guard";
 import { qualityQuerySchema } from "@/lib/validation/research";

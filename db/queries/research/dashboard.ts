@@ -1,7 +1,6 @@
 import "server-only";
 import { sql } from "../../client";
-import { GRADES, type Grade } from "@/lib/domain/vocab";
-import { kaplanMeier, numbersAtRisk, medianSurvival, type SurvivalStep } from "@/lib/stats";
+import type { Grade } from "@/lib/domain/vocab";
 import { exportFilterSchema } from "@/lib/validation/research";
 import { baseCtes, type ExportScope } from "./export-scope";
 import { outcomesSelect } from "./export-sql";
@@ -9,25 +8,12 @@ import { outcomesSelect } from "./export-sql";
 // The registry dashboard reads the same CTEs and outcome definitions as the exports, so a figure
 // on screen and a figure in a statistician's file can never disagree.
 
-export interface RegistryDashboard {
-  patients: number;
-  visits: number;
-  lesions: number;
-  gradeByQuarter: ({ quarter: string } & Record<Grade, number>)[];
-  clearance: {
-    lesionsTreatedFollowed: number;
-    lesionsCleared: number;
-    patientsTreatedFollowed: number;
-    patientsCleared: number;
-  };
-  recurrence: { steps: SurvivalStep[]; ticks: number[]; atRisk: number[]; medianDays: number | null; patients: number; events: number };
-}
-
 function scopeFor(studyId: string, siteIds: string[]): ExportScope {
   return { filter: exportFilterSchema.parse({ studyId }), siteIds };
 }
 
-export async function loadRegistryDashboard(studyId: string, siteIds: string[]): Promise<RegistryDashboard> {
+/** The figures the study dashboard is made of, read with the exports' own CTEs and outcome definitions. */
+export async function readDashboardRows(studyId: string, siteIds: string[]) {
   const scope = scopeFor(studyId, siteIds);
   const ctes = baseCtes(scope);
   const [totals] = await sql.unsafe<{ patients: number; visits: number; lesions: number }[]>(`WITH ${ctes}
@@ -58,37 +44,5 @@ export async function loadRegistryDashboard(studyId: string, siteIds: string[]):
       FROM vis GROUP BY vis.patient_id)
     SELECT count(*)::int AS followed FROM pt WHERE first_treatment < last_visit`);
 
-  const quarters = new Map<string, { quarter: string } & Record<Grade, number>>();
-  for (const r of gradeRows) {
-    const row = quarters.get(r.quarter) ?? ({ quarter: r.quarter, ...Object.fromEntries(GRADES.map((g) => [g, 0])) } as { quarter: string } & Record<Grade, number>);
-    row[r.grade] = r.n;
-    quarters.set(r.quarter, row);
-  }
-  const items = outcomes
-    .filter((o) => o.recurrence !== null && o.days_clearance_to_recurrence_or_censor !== null)
-    .map((o) => ({ time: Number(o.days_clearance_to_recurrence_or_censor), event: Number(o.recurrence) === 1 }));
-  const steps = kaplanMeier(items);
-  const maxTime = items.reduce((m, i) => Math.max(m, i.time), 0);
-  const tickStep = maxTime > 720 ? 180 : 90;
-  const ticks = Array.from({ length: Math.floor(maxTime / tickStep) + 1 }, (_, i) => i * tickStep);
-  return {
-    patients: totals!.patients,
-    visits: totals!.visits,
-    lesions: totals!.lesions,
-    gradeByQuarter: [...quarters.values()],
-    clearance: {
-      lesionsTreatedFollowed: lesionClear!.followed,
-      lesionsCleared: lesionClear!.cleared,
-      patientsTreatedFollowed: patientFollow!.followed,
-      patientsCleared: outcomes.filter((o) => o.days_treatment_to_clearance !== null).length,
-    },
-    recurrence: {
-      steps,
-      ticks,
-      atRisk: numbersAtRisk(steps, ticks),
-      medianDays: medianSurvival(steps),
-      patients: items.length,
-      events: items.filter((i) => i.event).length,
-    },
-  };
+  return { totals: totals!, gradeRows, lesionClear: lesionClear!, outcomes, patientFollow: patientFollow! };
 }

@@ -1,6 +1,6 @@
 import "server-only";
 import { sql } from "../../client";
-import { qualityMetrics, type Metric, type QualityVisit, type Severity } from "@/lib/quality";
+import type { QualityVisit, Severity } from "@/lib/quality";
 import type { Cytology } from "@/lib/domain/vocab";
 import type { SiteScope } from "../scope";
 
@@ -17,18 +17,6 @@ interface VisitRow {
   bleeding: Severity | null;
   histology_hsil: boolean;
   cytology_confirmed: boolean | null;
-}
-
-export interface QualityGroup {
-  label: string;
-  metrics: Metric[];
-}
-
-export interface SiteQuality {
-  siteId: string;
-  siteCode: string;
-  site: Metric[];
-  examiners: QualityGroup[];
 }
 
 /**
@@ -69,24 +57,3 @@ export async function loadQualityVisits(scope: SiteScope, year: number): Promise
   }));
 }
 
-/** IANS 2016 metrics (lib/quality) per site and per examiner at that site, for one calendar year. */
-export async function loadQualityPanel(scope: SiteScope, year: number): Promise<SiteQuality[]> {
-  const visits = await loadQualityVisits(scope, year);
-  const from = `${year}-01-01`;
-  const to = `${year + 1}-01-01`;
-  const bySite = new Map<string, typeof visits>();
-  for (const v of visits) {
-    const list = bySite.get(v.siteId);
-    if (list) list.push(v);
-    else bySite.set(v.siteId, [v]);
-  }
-  return [...bySite.entries()].map(([siteId, list]) => {
-    const examiners = new Map(list.map((v) => [v.examinerId, v.examinerName]));
-    return {
-      siteId,
-      siteCode: list[0]!.siteCode,
-      site: qualityMetrics({ visits: list, from, to }),
-      examiners: [...examiners.entries()].map(([id, name]) => ({ label: name, metrics: qualityMetrics({ visits: list, from, to, examinerId: id }) })),
-    };
-  });
-}

@@ -7,7 +7,7 @@ import { QuarterGradeChart } from "@/components/research/quarter-grade-chart";
 import { RecurrenceChart } from "@/components/research/recurrence-chart";
 import { WithdrawControl } from "@/components/research/withdraw-control";
 import { recordAudit } from "@/lib/server/audit";
-import { loadRegistryDashboard } from "@/db/queries/research/dashboard";
+import { loadRegistryDashboard } from "@/lib/server/research";
 import { listEnrolmentCandidates } from "@/db/queries/research/enrolment";
 import { getStudy, listEnrolments } from "@/db/queries/research/studies";
 import { scopeOf } from "@/lib/auth/guard";

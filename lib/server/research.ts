@@ -1,0 +1,94 @@
+import "server-only";
+// Research figures: the clinic-quality panel (IANS 2016 metrics, lib/quality) and the study
+// dashboard (lib/stats), worked out from what their statements read.
+import { readDashboardRows } from "@/db/queries/research/dashboard";
+import { loadQualityVisits } from "@/db/queries/research/quality";
+import type { SiteScope } from "@/db/queries/scope";
+import { GRADES, type Grade } from "@/lib/domain/vocab";
+import { qualityMetrics, type Metric } from "@/lib/quality";
+import { kaplanMeier, medianSurvival, numbersAtRisk, type SurvivalStep } from "@/lib/stats";
+
+export interface QualityGroup {
+  label: string;
+  metrics: Metric[];
+}
+
+export interface SiteQuality {
+  siteId: string;
+  siteCode: string;
+  site: Metric[];
+  examiners: QualityGroup[];
+}
+
+/** IANS 2016 metrics (lib/quality) per site and per examiner at that site, for one calendar year. */
+export async function loadQualityPanel(scope: SiteScope, year: number): Promise<SiteQuality[]> {
+  const visits = await loadQualityVisits(scope, year);
+  const from = `${year}-01-01`;
+  const to = `${year + 1}-01-01`;
+  const bySite = new Map<string, typeof visits>();
+  for (const v of visits) {
+    const list = bySite.get(v.siteId);
+    if (list) list.push(v);
+    else bySite.set(v.siteId, [v]);
+  }
+  return [...bySite.entries()].map(([siteId, list]) => {
+    const examiners = new Map(list.map((v) => [v.examinerId, v.examinerName]));
+    return {
+      siteId,
+      siteCode: list[0]!.siteCode,
+      site: qualityMetrics({ visits: list, from, to }),
+      examiners: [...examiners.entries()].map(([id, name]) => ({ label: name, metrics: qualityMetrics({ visits: list, from, to, examinerId: id }) })),
+    };
+  });
+}
+
+export interface RegistryDashboard {
+  patients: number;
+  visits: number;
+  lesions: number;
+  gradeByQuarter: ({ quarter: string } & Record<Grade, number>)[];
+  clearance: {
+    lesionsTreatedFollowed: number;
+    lesionsCleared: number;
+    patientsTreatedFollowed: number;
+    patientsCleared: number;
+  };
+  recurrence: { steps: SurvivalStep[]; ticks: number[]; atRisk: number[]; medianDays: number | null; patients: number; events: number };
+}
+
+export async function loadRegistryDashboard(studyId: string, siteIds: string[]): Promise<RegistryDashboard> {
+  const { totals, gradeRows, lesionClear, outcomes, patientFollow } = await readDashboardRows(studyId, siteIds);
+  const quarters = new Map<string, { quarter: string } & Record<Grade, number>>();
+  for (const r of gradeRows) {
+    const row = quarters.get(r.quarter) ?? ({ quarter: r.quarter, ...Object.fromEntries(GRADES.map((g) => [g, 0])) } as { quarter: string } & Record<Grade, number>);
+    row[r.grade] = r.n;
+    quarters.set(r.quarter, row);
+  }
+  const items = outcomes
+    .filter((o) => o.recurrence !== null && o.days_clearance_to_recurrence_or_censor !== null)
+    .map((o) => ({ time: Number(o.days_clearance_to_recurrence_or_censor), event: Number(o.recurrence) === 1 }));
+  const steps = kaplanMeier(items);
+  const maxTime = items.reduce((m, i) => Math.max(m, i.time), 0);
+  const tickStep = maxTime > 720 ? 180 : 90;
+  const ticks = Array.from({ length: Math.floor(maxTime / tickStep) + 1 }, (_, i) => i * tickStep);
+  return {
+    patients: totals.patients,
+    visits: totals.visits,
+    lesions: totals.lesions,
+    gradeByQuarter: [...quarters.values()],
+    clearance: {
+      lesionsTreatedFollowed: lesionClear.followed,
+      lesionsCleared: lesionClear.cleared,
+      patientsTreatedFollowed: patientFollow.followed,
+      patientsCleared: outcomes.filter((o) => o.days_treatment_to_clearance !== null).length,
+    },
+    recurrence: {
+      steps,
+      ticks,
+      atRisk: numbersAtRisk(steps, ticks),
+      medianDays: medianSurvival(steps),
+      patients: items.length,
+      events: items.filter((i) => i.event).length,
+    },
+  };
+}
