@@ -33,6 +33,7 @@ psql_super "$PG_PORT" -d postgres -c "create database $DB owner dentate_bench"
 use_cluster_database "$PG_PORT" dentate_bench "$DB"
 export DENTATE_DIST_DIR="${DENTATE_BENCH_DIST_DIR:-.next-bench}"
 export PSQL="$PGBIN/psql"
+export DENTATE_DEMO=1  # the bench database holds the demo scenario
 export APP_BASE_URL="$BASE"
 
 APP_PID=""

@@ -24,7 +24,13 @@ if [ -z "${S3_ENDPOINT:-}" ]; then start_s3_fake "$S3_PORT" "$ROOT/.data/s3"; fi
 # E-mail: a local SMTP server with a web inbox on loopback (a real deployment sets SMTP_*).
 if [ -z "${SMTP_HOST:-}" ]; then start_mail_fake "$SMTP_FAKE_PORT" "$MAIL_WEB_PORT" "$ROOT/.data/mail"; fi
 node_modules/.bin/tsx db/migrate.ts
-node_modules/.bin/tsx --conditions=react-server db/seed/index.ts
+# The demo scenario is seeded unless DENTATE_DEMO=0 (a real install starts empty: README).
+export DENTATE_DEMO="${DENTATE_DEMO:-1}"
+if [ "$DENTATE_DEMO" = 1 ]; then
+  node_modules/.bin/tsx --conditions=react-server db/seed/index.ts
+fi
+# A production server refuses a database with demo accounts unless this is a demo install.
+node_modules/.bin/tsx --conditions=react-server scripts/preflight.ts || die "not starting (see above)"
 
 log "building the app"
 node_modules/.bin/next build >/tmp/dentate-build-$PROJECT_HASH.log 2>&1 || { tail -40 /tmp/dentate-build-$PROJECT_HASH.log; die "next build failed"; }
@@ -56,9 +62,10 @@ WORKER_PID=$!
 REMINDER_PID=$!
 wait_http "http://127.0.0.1:$APP_PORT/sign-in" 60
 
+if [ "$DENTATE_DEMO" = 1 ]; then
 cat <<INFO
 
-  Dentate is running at http://127.0.0.1:$APP_PORT
+  Dentate is running at http://127.0.0.1:$APP_PORT (demonstration install)
   PostgreSQL listens on 127.0.0.1:$PG_PORT only.
   Fake inbox (all outgoing mail): ${MAILDEV_WEB_URL:-SMTP set by you}
 
@@ -72,4 +79,18 @@ cat <<INFO
 
   Press Ctrl-C to stop the app and the database.
 INFO
+else
+cat <<INFO
+
+  Dentate is running at http://127.0.0.1:$APP_PORT (no demo data, no accounts yet)
+  PostgreSQL listens on 127.0.0.1:$PG_PORT only.
+  Fake inbox (all outgoing mail): ${MAILDEV_WEB_URL:-SMTP set by you}
+
+  Invite the first administrator from another terminal:
+    DATABASE_URL=$DATABASE_URL APP_BASE_URL=$APP_BASE_URL \\
+      npm run admin:create -- --email you@clinic.example --site "Your clinic"
+
+  Press Ctrl-C to stop the app and the database.
+INFO
+fi
 wait "$APP_PID"

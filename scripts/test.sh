@@ -31,6 +31,8 @@ use_cluster_database "$PG_PORT" dentate_test "$DB"
 export DENTATE_TEST_PG_PORT="$PG_PORT" DENTATE_TEST_PG_SOCKET="$PGSOCK_DIR" DENTATE_TEST_PG_DATA="$PGDATA_DIR" PGBIN
 export DENTATE_BASE_URL="http://127.0.0.1:$APP_PORT"
 export DENTATE_DIST_DIR=".next-test"
+# The test database holds the demo scenario: a demonstration install as far as the server is concerned.
+export DENTATE_DEMO=1
 
 APP_PID=""
 WORKER_PID=""

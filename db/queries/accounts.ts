@@ -1,6 +1,6 @@
 import "server-only";
 // Statements of invitations, password resets and account changes (lib/server/accounts.ts decides).
-import { and, desc, eq, gt, inArray, isNull } from "drizzle-orm";
+import { and, desc, eq, gt, inArray, isNull, sql as dsql } from "drizzle-orm";
 import { db, type Tx } from "../client";
 import { invitations, passwordResets, sites, users, userSites } from "../schema";
 import type { Role } from "@/lib/domain/vocab";
@@ -107,4 +107,34 @@ export async function userAtSites(tx: Tx, userId: string, siteIds: string[]) {
 
 export async function setUserRoleAndActive(tx: Tx, userId: string, set: { role: Role; active: boolean }): Promise<void> {
   await tx.update(users).set(set).where(eq(users.id, userId));
+}
+
+/** Serialises first-administrator set-up (two commands at once cannot both pass the check). */
+export async function lockFirstAdminSetup(tx: Tx): Promise<void> {
+  await tx.execute(dsql`select pg_advisory_xact_lock(hashtext('dentate:first-admin'))`);
+}
+
+export async function activeAdministratorExists(tx: Tx): Promise<boolean> {
+  const [row] = await tx.select({ id: users.id }).from(users).where(and(eq(users.role, "admin"), eq(users.active, true))).limit(1);
+  return Boolean(row);
+}
+
+export async function siteByCode(tx: Tx, code: string) {
+  const [site] = await tx.select({ id: sites.id, name: sites.name }).from(sites).where(eq(sites.code, code)).limit(1);
+  return site ?? null;
+}
+
+export async function insertSite(tx: Tx, values: { code: string; name: string }): Promise<string> {
+  const [site] = await tx.insert(sites).values(values).returning({ id: sites.id });
+  return site!.id;
+}
+
+/** Open administrator invitations that no one sent (the set-up command's); returns how many. */
+export async function revokeOpenSetupInvitations(tx: Tx, now: Date): Promise<number> {
+  const rows = await tx
+    .update(invitations)
+    .set({ revokedAt: now })
+    .where(and(eq(invitations.role, "admin"), isNull(invitations.invitedBy), isNull(invitations.usedAt), isNull(invitations.revokedAt)))
+    .returning({ id: invitations.id });
+  return rows.length;
 }

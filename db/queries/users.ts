@@ -1,5 +1,5 @@
 import "server-only";
-import { and, eq, inArray, sql as dsql } from "drizzle-orm";
+import { and, count, eq, inArray, sql as dsql } from "drizzle-orm";
 import { db } from "../client";
 import { rateLimits, sessions, users, userSites } from "../schema";
 import type { DisplayConvention } from "@/lib/geometry";
@@ -93,4 +93,10 @@ export async function releaseRateLimit(key: string): Promise<void> {
 /** Start the window afresh (a successful sign-in clears the account's failed attempts). */
 export async function resetRateLimit(key: string): Promise<void> {
   await db.delete(rateLimits).where(eq(rateLimits.key, key));
+}
+
+/** How many of the given accounts exist. */
+export async function countAccountsByEmail(emails: readonly string[]): Promise<number> {
+  const [{ n }] = await db.select({ n: count() }).from(users).where(inArray(users.email, [...emails]));
+  return n;
 }

@@ -5,7 +5,7 @@ import type { Grade, Histology, Modality, RiskGroup } from "@/lib/domain/vocab";
 import { zoneForDistance } from "@/lib/geometry/zones";
 import { normalizeHours } from "@/lib/geometry/clock";
 
-export const DEMO_PASSWORD = "Demo-pass-2026";
+export { DEMO_PASSWORD } from "@/lib/domain/demo-accounts";
 
 export const DEMO_SITES = [
   { code: "HBR", name: "Harbour Street Anoscopy Clinic" },

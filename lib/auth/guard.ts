@@ -6,6 +6,7 @@ import { AppError } from "@/lib/errors";
 import type { Role } from "@/lib/domain/vocab";
 import { readCookie } from "./request-info";
 import { SESSION_COOKIE, validateSession, type SessionUser } from "./session";
+import { assertServable } from "./servable";
 
 export interface CurrentUser extends SessionUser {
   sessionId: string;
@@ -13,6 +14,7 @@ export interface CurrentUser extends SessionUser {
 
 async function resolve(token: string | null | undefined): Promise<CurrentUser | null> {
   if (!token) return null;
+  await assertServable();
   const valid = await validateSession(token);
   if (!valid) return null;
   return { ...valid.user, sessionId: valid.sessionId };

@@ -6,6 +6,7 @@ import { AppError } from "@/lib/errors";
 import type { Role } from "@/lib/domain/vocab";
 import { dummyHash, verifyPassword } from "./password";
 import { createSession } from "./session";
+import { assertServable } from "./servable";
 
 // Per account and per address, fixed 15-minute windows (common practice, no source).
 export const SIGN_IN_LIMITS = { perAccount: 10, perAddress: 50, windowSeconds: 15 * 60 } as const;
@@ -16,6 +17,7 @@ export const SIGN_IN_LIMITS = { perAccount: 10, perAddress: 50, windowSeconds: 1
  * password.
  */
 export async function signIn(email: string, password: string, ip: string): Promise<{ sessionId: string; userId: string; role: Role }> {
+  await assertServable();
   // Counted before the password is checked, atomically, so a burst cannot slip past the limit;
   // a successful sign-in then gives its attempt back (only failures accumulate).
   const accountKey = `sign-in:account:${email}`;

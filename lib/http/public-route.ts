@@ -4,6 +4,7 @@ import "server-only";
 // address; the access matrix lists them through the `dentateRoles = "public"` marker.
 import { hitRateLimit } from "@/lib/server/rate-limit";
 import { clientIp, originAllowed } from "@/lib/auth/request-info";
+import { assertServable } from "@/lib/auth/servable";
 import { AppError, errorToBody } from "@/lib/errors";
 import { json } from "./route";
 
@@ -32,6 +33,7 @@ export function publicRoute(opts: PublicRouteOptions, handler: (args: PublicRout
       if (MUTATING.has(req.method) && !originAllowed(req.headers)) {
         throw new AppError("forbidden", "This request did not come from a Dentate page.");
       }
+      await assertServable();
       const ip = clientIp(req.headers);
       const hits = await hitRateLimit(`${opts.limiter}:ip:${ip}`, opts.windowSeconds);
       if (hits > opts.perAddress) throw new AppError("rate_limited");

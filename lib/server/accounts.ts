@@ -24,20 +24,31 @@ export async function inviteUser(a: { email: string; siteId: string; role: Role;
     if (await userIdByEmail(tx, a.email)) throw new AppError("conflict", "An account with this address already exists.", { email: ["An account with this address already exists."] });
     const name = await siteName(tx, a.siteId);
     if (!name) throw new AppError("not_found");
-    const { token, tokenHash } = issueToken();
-    const expiresAt = expiryFrom(a.now ?? new Date(), INVITATION_TTL_MS);
-    const id = await insertInvitation(tx, { email: a.email, siteId: a.siteId, role: a.role, tokenHash, expiresAt, invitedBy: a.invitedBy });
-    await queueInvitationMail(tx, { id, email: a.email, role: a.role, siteName: name, invitedBy: a.invitedBy, token, tokenHash, expiresAt });
+    const { id, expiresAt } = await issueInvitation(tx, { email: a.email, siteId: a.siteId, siteName: name, role: a.role, invitedBy: a.invitedBy, now: a.now });
     await recordAudit({ userId: a.invitedBy, siteId: a.siteId, action: "invitation.created", entityType: "invitation", entityId: id, ip: a.ip, detail: { email: a.email, role: a.role } }, tx);
     return { id, expiresAt };
   });
 }
 
-async function queueInvitationMail(tx: Tx, i: { id: string; email: string; role: Role; siteName: string; invitedBy: string; token: string; tokenHash: string; expiresAt: Date }) {
+/**
+ * A new invitation and its mail, queued in the caller's transaction. The one-time link is
+ * returned as well, for the first administrator's command to print (nobody else sees it).
+ */
+export async function issueInvitation(tx: Tx, a: { email: string; siteId: string; siteName: string; role: Role; invitedBy: string | null; now?: Date }) {
+  const { token, tokenHash } = issueToken();
+  const expiresAt = expiryFrom(a.now ?? new Date(), INVITATION_TTL_MS);
+  const id = await insertInvitation(tx, { email: a.email, siteId: a.siteId, role: a.role, tokenHash, expiresAt, invitedBy: a.invitedBy });
+  const link = await queueInvitationMail(tx, { id, email: a.email, role: a.role, siteName: a.siteName, invitedBy: a.invitedBy, token, tokenHash, expiresAt });
+  return { id, expiresAt, link };
+}
+
+async function queueInvitationMail(tx: Tx, i: { id: string; email: string; role: Role; siteName: string; invitedBy: string | null; token: string; tokenHash: string; expiresAt: Date }): Promise<string> {
   const link = `${mailConfigFrom(process.env).appBaseUrl}/accept-invite/${i.token}`;
-  const mail = invitationMail({ link, siteName: i.siteName, role: i.role, invitedByName: (await displayNameOf(tx, i.invitedBy)) ?? "An administrator", expiresAt: i.expiresAt });
+  const invitedByName = (i.invitedBy ? await displayNameOf(tx, i.invitedBy) : null) ?? "An administrator";
+  const mail = invitationMail({ link, siteName: i.siteName, role: i.role, invitedByName, expiresAt: i.expiresAt });
   // One mail per token: a re-send issues a new token and so a new key.
   await enqueueMail(tx, { idempotencyKey: `invitation:${i.id}:${i.tokenHash.slice(0, 16)}`, to: i.email, ...mail });
+  return link;
 }
 
 async function openInvitationForAdmin(tx: Tx, id: string, siteIds: string[]) {

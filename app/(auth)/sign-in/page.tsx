@@ -3,11 +3,24 @@ import Link from "next/link";
 import { redirect } from "next/navigation";
 import { Wordmark } from "@/components/ui/wordmark";
 import { getCurrentUser } from "@/lib/auth/guard";
+import { servableRefusal } from "@/lib/auth/servable";
 import { SignInForm } from "./sign-in-form";
 
 export const metadata: Metadata = { title: "Sign in" };
 
 export default async function SignInPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
+  const refusal = await servableRefusal();
+  if (refusal) {
+    return (
+      <main className="mx-auto flex min-h-screen max-w-xl flex-col justify-center px-6">
+        <div role="alert" className="rounded-xl border-2 border-danger-rule bg-danger-bg p-8 text-danger-ink">
+          <h1 className="mb-2"><Wordmark /></h1>
+          <p className="font-bold">This server is not serving.</p>
+          <p className="mt-2">{refusal}</p>
+        </div>
+      </main>
+    );
+  }
   if (await getCurrentUser()) redirect("/");
   const sp = await searchParams;
   const notice = sp.welcome ? "Your password is set. Sign in to start." : sp.reset ? "Your password was changed. Sign in with the new one." : null;
