@@ -26,6 +26,7 @@ export function navLinksFor(role: Role): NavLink[] {
         { href: "/worklist", label: "Worklist" },
         { href: "/biopsies", label: "Biopsies" },
         { href: "/staff", label: "Staff" },
+        { href: "/sites", label: "Sites" },
         { href: "/followup-rules", label: "Follow-up rules" },
         { href: "/audit", label: "Audit" },
         { href: "/studies", label: "Studies" },

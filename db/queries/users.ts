@@ -78,10 +78,12 @@ export async function hitRateLimit(key: string, windowSeconds: number): Promise<
 export async function listStaff(siteIds: string[]) {
   if (siteIds.length === 0) return [];
   return db
-    .selectDistinct({ id: users.id, email: users.email, displayName: users.displayName, role: users.role, active: users.active })
+    .select({
+      id: users.id, email: users.email, displayName: users.displayName, role: users.role, active: users.active,
+      siteIds: dsql<string[]>`(select coalesce(array_agg(us.site_id::text order by us.site_id), '{}') from user_sites us where us.user_id = ${users.id})`,
+    })
     .from(users)
-    .innerJoin(userSites, eq(userSites.userId, users.id))
-    .where(inArray(userSites.siteId, siteIds))
+    .where(dsql`exists (select 1 from user_sites us where us.user_id = ${users.id} and us.site_id in ${siteIds})`)
     .orderBy(users.displayName);
 }
 

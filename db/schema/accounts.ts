@@ -6,6 +6,11 @@ export const sites = pgTable("sites", {
   id: uuid("id").primaryKey().defaultRandom(),
   code: text("code").notNull().unique(),
   name: text("name").notNull(),
+  /** IANA time zone of the clinic (dates of visits and due dates are the clinic's days). */
+  timeZone: text("time_zone").notNull().default("UTC"),
+  /** The clinic's 5-digit ZIP or other postal code, when given. */
+  postalCode: text("postal_code"),
+  version: integer("version").notNull().default(1),
   /** Zone boundaries in cm (lib/geometry/zones); null = the sourced defaults. */
   zoneBounds: jsonb("zone_bounds"),
   /** Follow-up intervals in months by rule key (lib/due-dates); null = the defaults. */

@@ -5,7 +5,7 @@ import { listSiteRules } from "@/lib/server/due-dates";
 import { listStaff } from "@/db/queries/users";
 import { requirePageRole } from "@/lib/auth/page-guard";
 import { ROLES } from "@/lib/domain/vocab";
-import { InvitationRow, InviteForm, StaffRowActions } from "./staff-actions";
+import { InvitationRow, InviteForm, StaffRowActions, StaffSites } from "./staff-actions";
 
 export const metadata = { title: "Staff" };
 
@@ -20,13 +20,14 @@ export default async function StaffPage() {
   const [rows, invitations, sites] = await Promise.all([listStaff(user.siteIds), listInvitations(user.siteIds), listSiteRules(user.siteIds)]);
   const now = new Date();
   const roles = ROLES.map((r) => ({ value: r, label: ROLE_LABEL[r] }));
+  const siteOptions = sites.map((s) => ({ value: s.id, label: s.code }));
   return (
     <AppShell user={user}>
       <h1 className="text-2xl font-bold">Staff</h1>
       <p className="mt-1 text-sm text-ink-soft">Everyone with an account at your sites. Deactivating an account signs it out everywhere at once.</p>
       <table className="mt-4 w-full border-collapse rounded-lg bg-panel text-left">
         <thead className="border-b border-rule bg-lagoon-50 text-sm">
-          <tr><th className="px-3 py-2">Name</th><th className="px-3 py-2">E-mail</th><th className="px-3 py-2">Role</th><th className="px-3 py-2">Account</th></tr>
+          <tr><th className="px-3 py-2">Name</th><th className="px-3 py-2">E-mail</th><th className="px-3 py-2">Role</th><th className="px-3 py-2">Account</th><th className="px-3 py-2">Sites</th></tr>
         </thead>
         <tbody>
           {rows.map((s) => (
@@ -34,6 +35,7 @@ export default async function StaffPage() {
               <td className="px-3 py-2 font-semibold">{s.displayName}</td>
               <td className="px-3 py-2">{s.email}</td>
               <StaffRowActions userId={s.id} name={s.displayName} role={s.role} active={s.active} self={s.id === user.id} roles={roles} />
+              <td className="px-3 py-2"><StaffSites userId={s.id} name={s.displayName} current={s.siteIds} sites={siteOptions} /></td>
             </tr>
           ))}
         </tbody>

@@ -112,3 +112,28 @@ export function InvitationRow(p: { id: string; email: string; siteName: string; 
     </tr>
   );
 }
+
+/** The sites a colleague works at, among yours (sites you do not administer are kept as they are). */
+export function StaffSites({ userId, name, current, sites }: { userId: string; name: string; current: string[]; sites: Option[] }) {
+  const { pending, error, run } = useAction();
+  const [chosen, setChosen] = useState(() => new Set(current.filter((s) => sites.some((o) => o.value === s))));
+  const toggle = (id: string) => {
+    const next = new Set(chosen);
+    if (next.has(id)) next.delete(id);
+    else next.add(id);
+    setChosen(next);
+  };
+  return (
+    <fieldset className="flex flex-wrap items-center gap-3">
+      <legend className="sr-only">Sites of {name}</legend>
+      {sites.map((s) => (
+        <label key={s.value} className="inline-flex min-h-11 items-center gap-2">
+          <input type="checkbox" className="h-5 w-5" checked={chosen.has(s.value)} disabled={pending} onChange={() => toggle(s.value)} />
+          {s.label}
+        </label>
+      ))}
+      <Button variant="secondary" disabled={pending} aria-label={`Save the sites of ${name}`} onClick={() => run("PUT", `/api/admin/users/${encodeURIComponent(userId)}/sites`, { siteIds: [...chosen] })}>Save sites</Button>
+      {error ? <p role="alert" className="w-full text-sm text-danger-ink">{error}</p> : null}
+    </fieldset>
+  );
+}
