@@ -1,4 +1,5 @@
-import { bigserial, date, index, integer, jsonb, pgTable, primaryKey, text, timestamp, unique, uuid } from "drizzle-orm/pg-core";
+import { sql } from "drizzle-orm";
+import { bigserial, date, index, integer, jsonb, pgTable, primaryKey, text, timestamp, unique, uniqueIndex, uuid } from "drizzle-orm/pg-core";
 import { sites } from "./accounts";
 import { patients } from "./clinical";
 import { outboxStatusEnum } from "./enums";
@@ -8,6 +9,8 @@ export const studies = pgTable("studies", {
   code: text("code").notNull().unique(),
   title: text("title").notNull(),
   startDate: date("start_date").notNull(),
+  /** The consent form in use now; a consent records the version the patient signed. */
+  consentFormVersion: text("consent_form_version").notNull().default("1"),
   createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
 });
 
@@ -34,6 +37,27 @@ export const enrolments = pgTable(
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [unique("enrolments_study_patient").on(t.studyId, t.patientId), unique("enrolments_study_subject").on(t.studyId, t.studySubjectId)],
+);
+
+/** A patient's research consent to one study, and its withdrawal; enrolment requires a current one. */
+export const researchConsents = pgTable(
+  "research_consents",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    patientId: uuid("patient_id").notNull().references(() => patients.id),
+    studyId: uuid("study_id").notNull().references(() => studies.id),
+    siteId: uuid("site_id").notNull().references(() => sites.id),
+    consentedOn: date("consented_on").notNull(),
+    formVersion: text("form_version").notNull(),
+    recordedBy: text("recorded_by").notNull(),
+    withdrawnOn: date("withdrawn_on"),
+    withdrawnBy: text("withdrawn_by"),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [
+    uniqueIndex("research_consents_current").on(t.patientId, t.studyId).where(sql`${t.withdrawnOn} is null`),
+    index("research_consents_study_idx").on(t.studyId),
+  ],
 );
 
 /** Append-only: the app never updates or deletes these rows (a trigger refuses it). */

@@ -92,6 +92,10 @@ async function main() {
         if (withdraws) withdrawnDone = true;
         const next = new Date(`${p.visits[0]!.date}T00:00:00Z`);
         next.setUTCDate(next.getUTCDate() + 1);
+        await tx.insert(s.researchConsents).values({
+          patientId: patient!.id, studyId: study!.id, siteId: sid, consentedOn: p.visits[0]!.date, formVersion: "1", recordedBy: p.visits[0]!.examiner,
+          withdrawnOn: withdraws ? next.toISOString().slice(0, 10) : null, withdrawnBy: withdraws ? p.visits[0]!.examiner : null,
+        });
         await tx.insert(s.enrolments).values({
           studyId: study!.id, patientId: patient!.id, siteId: sid, studySubjectId: `ABL-${String(subject).padStart(3, "0")}`,
           consentDate: p.visits[0]!.date, withdrawnOn: withdraws ? next.toISOString().slice(0, 10) : null,

@@ -7,7 +7,7 @@ import { patientReference } from "@/db/queries/research/enrolment";
 import { GET as getStudy } from "@/app/api/studies/[studyId]/route";
 import { POST as enrol } from "@/app/api/studies/[studyId]/enrolments/route";
 import { PATCH as withdraw } from "@/app/api/studies/[studyId]/enrolments/[enrolmentId]/route";
-import { actor, ctx, makePatient, makeSite, req, type Actor } from "../fixtures/factory";
+import { actor, consentTo, ctx, makePatient, makeSite, req, type Actor } from "../fixtures/factory";
 
 let siteA: string, studyId: string, consenting: { id: string; mrn: string; familyName: string }, refusing: string;
 let nurse: Actor, clinician: Actor, nurseB: Actor;
@@ -22,6 +22,7 @@ beforeAll(async () => {
   await db.insert(s.studySites).values({ studyId, siteId: siteA });
   const p = await makePatient(siteA, { consentResearch: true, familyName: "Thornquist" });
   consenting = { id: p.id, mrn: p.mrn, familyName: p.familyName };
+  await consentTo(p.id, studyId, siteA);
   refusing = (await makePatient(siteA, { consentResearch: false })).id;
 });
 

@@ -6,7 +6,7 @@ import { db } from "@/db/client";
 import * as s from "@/db/schema";
 import { ROLES, type Role } from "@/lib/domain/vocab";
 import { patientReference } from "@/db/queries/research/enrolment";
-import { actor, makePatient, makeSite, makeUser, type Actor } from "../fixtures/factory";
+import { actor, consentTo, makePatient, makeSite, makeUser, type Actor } from "../fixtures/factory";
 
 export interface World {
   siteA: string;
@@ -32,6 +32,7 @@ export interface World {
     enrolmentId: string;
     subjectId: string;
     candidatePatientId: string;
+    consentId: string;
     invitationId: string;
     targetUserId: string;
   };
@@ -90,6 +91,9 @@ export async function makeRecords(siteA: string, a: Record<Role, Actor>): Promis
     .values({ studyId: study!.id, patientId: enrolled.id, siteId: siteA, studySubjectId: subjectId, consentDate: "2024-05-01" })
     .returning();
   const candidate = await makePatient(siteA, { consentResearch: true });
+  const patientConsent = await consentTo(patient.id, study!.id, siteA);
+  await consentTo(enrolled.id, study!.id, siteA);
+  await consentTo(candidate.id, study!.id, siteA);
   const [invitation] = await db
     .insert(s.invitations)
     .values({
@@ -102,7 +106,7 @@ export async function makeRecords(siteA: string, a: Record<Role, Actor>): Promis
     patientId: patient.id, draftVisitId: draft!.id, signedVisitId: signed!.id, trackId: track!.id, lesionId: lesion!.id,
     signedLesionId: signedLesion!.id, biopsyId: biopsy!.id, treatmentId: treatment!.id, doseId: dose!.id, complicationId: complication!.id,
     attachmentId, reviewId: review!.id, adjudicationId: adjudication!.id, studyId: study!.id, enrolmentId: enrolment!.id, subjectId,
-    candidatePatientId: candidate.id, invitationId: invitation!.id, targetUserId,
+    candidatePatientId: candidate.id, consentId: patientConsent.id, invitationId: invitation!.id, targetUserId,
   };
 }
 

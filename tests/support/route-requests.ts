@@ -50,6 +50,10 @@ export const SPECS: Record<string, RequestSpec> = {
   "PUT /api/reviews/[reviewId]/adjudications": { body: (w) => ({ trackId: w.ids.trackId, verdict: "agree" }) },
   "POST /api/reviews/[reviewId]/sign-off": { body: "none" },
   "PATCH /api/studies/[studyId]/enrolments/[enrolmentId]": { body: () => ({ withdrawnOn: "2025-01-02" }) },
+  "POST /api/studies": { noSiteRecord: "a new study at the caller's own site", body: (w) => ({ code: `ST-${randomUUID().slice(0, 6).toUpperCase()}`, title: "Invented matrix study", siteIds: [w.siteA], startDate: "2025-01-06", consentFormVersion: "1" }) },
+  "PATCH /api/studies/[studyId]": { body: () => ({ title: "Invented matrix study, renamed" }) },
+  "POST /api/patients/[patientId]/consents": { body: (w) => ({ studyId: w.ids.studyId, consentedOn: "2025-01-02" }), skipRightRole: "the fixture patient may hold a current consent already; recording is covered by studies-consent.test.ts" },
+  "PATCH /api/patients/[patientId]/consents/[consentId]": { params: (w) => ({ consentId: w.ids.consentId }), body: () => ({ withdrawnOn: "2025-06-02" }) },
   "POST /api/studies/[studyId]/enrolments": {
     body: (w) => ({ candidateRef: patientReference(w.ids.candidatePatientId), siteId: w.siteA, studySubjectId: `QN-${randomUUID().slice(0, 6)}`, consentDate: "2025-01-02" }),
   },

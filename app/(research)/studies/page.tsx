@@ -1,6 +1,8 @@
 import Link from "next/link";
 import { AppShell } from "@/components/shell/app-shell";
 import { listStudies } from "@/db/queries/research/studies";
+import { listSitesByIds } from "@/db/queries/sites";
+import { StudyForm } from "@/components/research/study-form";
 import { scopeOf } from "@/lib/auth/guard";
 import { requirePageRole } from "@/lib/auth/page-guard";
 
@@ -8,7 +10,7 @@ export const metadata = { title: "Studies" };
 
 export default async function StudiesPage() {
   const user = await requirePageRole(["research_nurse", "admin"]);
-  const rows = await listStudies(scopeOf(user));
+  const [rows, sites] = await Promise.all([listStudies(scopeOf(user)), listSitesByIds(user.siteIds)]);
   return (
     <AppShell user={user}>
       <h1 className="text-2xl font-bold">Studies</h1>
@@ -30,6 +32,9 @@ export default async function StudiesPage() {
           {rows.length === 0 ? <tr><td colSpan={5} className="px-3 py-6 text-center text-ink-soft">No studies at your sites.</td></tr> : null}
         </tbody>
       </table>
+      <h2 className="mt-10 text-xl font-bold">Set up a study</h2>
+      <p className="mt-1 text-sm text-ink-soft">Clinicians then record each patient&apos;s consent on the patient page; only patients with a current consent can be enrolled.</p>
+      <div className="mt-3 rounded-lg border border-rule bg-panel p-4"><StudyForm sites={sites} /></div>
     </AppShell>
   );
 }

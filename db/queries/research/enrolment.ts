@@ -25,7 +25,7 @@ export interface EnrolmentCandidate {
   visits: number;
 }
 
-/** Patients at the study's sites (within scope) who consented to research and are not yet enrolled. */
+/** Patients at the study's sites (within scope) with a current consent to this study, not yet enrolled. */
 export async function listEnrolmentCandidates(scope: SiteScope, studyId: string): Promise<EnrolmentCandidate[]> {
   if (scope.siteIds.length === 0) return [];
   const rows = await db.execute<{ ref: string; site_id: string; site_code: string; first_year: number | null; visits: number }>(dsql`
@@ -35,7 +35,7 @@ export async function listEnrolmentCandidates(scope: SiteScope, studyId: string)
     FROM patients p
     JOIN study_sites ss ON ss.site_id = p.site_id AND ss.study_id = ${studyId}
     JOIN sites s ON s.id = p.site_id
-    WHERE p.consent_research AND p.site_id IN ${scope.siteIds}
+    WHERE EXISTS (SELECT 1 FROM research_consents rc WHERE rc.patient_id = p.id AND rc.study_id = ${studyId} AND rc.withdrawn_on IS NULL) AND p.site_id IN ${scope.siteIds}
       AND NOT EXISTS (SELECT 1 FROM enrolments e WHERE e.study_id = ${studyId} AND e.patient_id = p.id)
     ORDER BY s.code, ref`);
   return rows.map((r) => ({ ref: r.ref, siteId: r.site_id, siteCode: r.site_code, firstVisitYear: r.first_year, visits: r.visits }));
@@ -47,7 +47,7 @@ export async function findCandidate(scope: SiteScope, studyId: string, siteId: s
   const rows = await db.execute<{ id: string }>(dsql`
     SELECT p.id FROM patients p
     JOIN study_sites ss ON ss.site_id = p.site_id AND ss.study_id = ${studyId}
-    WHERE p.site_id = ${siteId} AND p.consent_research AND ${REF_SQL} = ${ref}
+    WHERE p.site_id = ${siteId} AND EXISTS (SELECT 1 FROM research_consents rc WHERE rc.patient_id = p.id AND rc.study_id = ${studyId} AND rc.withdrawn_on IS NULL) AND ${REF_SQL} = ${ref}
       AND NOT EXISTS (SELECT 1 FROM enrolments e WHERE e.study_id = ${studyId} AND e.patient_id = p.id)`);
   return rows[0]?.id ?? null;
 }

@@ -28,13 +28,14 @@ export interface StudyDetail {
   code: string;
   title: string;
   startDate: string;
+  consentFormVersion: string;
   sites: { id: string; code: string; name: string }[];
 }
 
 /** A study as the caller may see it: only its sites within the caller's scope; none → null (404). */
 export async function getStudy(scope: SiteScope, studyId: string): Promise<StudyDetail | null> {
   const [study] = await db
-    .select({ id: studies.id, code: studies.code, title: studies.title, startDate: studies.startDate })
+    .select({ id: studies.id, code: studies.code, title: studies.title, startDate: studies.startDate, consentFormVersion: studies.consentFormVersion })
     .from(studies)
     .where(eq(studies.id, studyId));
   if (!study) return null;

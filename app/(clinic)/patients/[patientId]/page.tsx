@@ -7,6 +7,7 @@ import { CLINICAL_ROLES, requirePageRole } from "@/lib/auth/page-guard";
 import { uuidParam } from "@/lib/http/route";
 import { NewVisitForm } from "@/components/patient/new-visit-form";
 import { FollowupBanner } from "@/components/due-dates/overdue-flag";
+import { ConsentsPanel } from "@/components/patient/consents-panel";
 import { overrideDueAction } from "./override-due-action";
 import { ScreeningGuidance } from "@/components/due-dates/screening-guidance";
 import { OpenDisagreements } from "@/components/review/open-disagreements";
@@ -22,7 +23,7 @@ export default async function PatientPage({ params }: { params: Promise<{ patien
   const scope = scopeOf(user);
   const record = await readPatientRecord(scope, id.data);
   if (!record) notFound();
-  const { patient, visits: visitList, due } = record;
+  const { patient, visits: visitList, due, consents, studies } = record;
   return (
     <AppShell user={user}>
       <p className="text-sm"><Link href="/patients" className="text-lagoon-700 underline">Patients</Link> /</p>
@@ -42,6 +43,12 @@ export default async function PatientPage({ params }: { params: Promise<{ patien
       <div className="mt-4 space-y-3">
         <FollowupBanner patientId={patient.id} due={due} overrideAction={user.role === "clinician" || user.role === "admin" ? overrideDueAction : undefined} />
         <OpenDisagreements patientId={patient.id} canResolve={user.role === "clinician" || user.role === "admin"} />
+        <details className="rounded-md border border-rule bg-panel px-4 py-2" open={consents.some((c) => !c.withdrawnOn) || undefined}>
+          <summary className="min-h-11 cursor-pointer py-2 font-semibold">Research consent</summary>
+          <div className="pb-3">
+            <ConsentsPanel patientId={patient.id} consents={consents} studies={studies} canRecord={user.role === "clinician" || user.role === "admin"} today={new Date().toISOString().slice(0, 10)} />
+          </div>
+        </details>
         <details className="rounded-md border border-rule bg-panel px-4 py-2">
           <summary className="min-h-11 cursor-pointer py-2 font-semibold">Screening guidance (IANS 2024)</summary>
           <ScreeningGuidance riskGroup={patient.riskGroup} dateOfBirth={patient.dateOfBirth} riskDate={patient.riskDate} />

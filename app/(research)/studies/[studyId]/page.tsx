@@ -10,6 +10,8 @@ import { recordAudit } from "@/lib/server/audit";
 import { loadRegistryDashboard } from "@/lib/server/research";
 import { listEnrolmentCandidates } from "@/db/queries/research/enrolment";
 import { getStudy, listEnrolments } from "@/db/queries/research/studies";
+import { listSitesByIds } from "@/db/queries/sites";
+import { StudyForm } from "@/components/research/study-form";
 import { scopeOf } from "@/lib/auth/guard";
 import { requirePageRole } from "@/lib/auth/page-guard";
 import { uuidParam } from "@/lib/http/route";
@@ -33,10 +35,11 @@ export default async function StudyPage({ params }: { params: Promise<{ studyId:
   const study = await getStudy(scope, id.data);
   if (!study) notFound();
   const siteIds = study.sites.map((s) => s.id);
-  const [enrolled, candidates, dash] = await Promise.all([
+  const [enrolled, candidates, dash, mySites] = await Promise.all([
     listEnrolments(scope, study.id),
     listEnrolmentCandidates(scope, study.id),
     loadRegistryDashboard(study.id, siteIds),
+    listSitesByIds(user.siteIds),
   ]);
   await recordAudit({ userId: user.id, action: "study.read", entityType: "study", entityId: study.id });
   const today = new Date().toISOString().slice(0, 10);
@@ -53,7 +56,11 @@ export default async function StudyPage({ params }: { params: Promise<{ studyId:
     <AppShell user={user}>
       <p className="text-sm"><Link href="/studies" className="text-lagoon-700 underline">Studies</Link> /</p>
       <h1 className="mt-1 text-2xl font-bold">{study.code} · {study.title}</h1>
-      <p className="text-sm text-ink-soft">Started {study.startDate} · Sites: {study.sites.map((s) => s.code).join(", ")}</p>
+      <p className="text-sm text-ink-soft">Started {study.startDate} · Consent form version {study.consentFormVersion} · Sites: {study.sites.map((s) => s.code).join(", ")}</p>
+      <details className="mt-3 rounded-md border border-rule bg-panel px-4 py-2">
+        <summary className="min-h-11 cursor-pointer py-2 font-semibold">Edit the study</summary>
+        <StudyForm study={{ ...study, siteIds: study.sites.map((s) => s.id) }} sites={mySites} />
+      </details>
 
       <section aria-labelledby="registry" className="mt-6">
         <h2 id="registry" className="text-lg font-bold">Registry</h2>
