@@ -84,9 +84,11 @@ describe("npm run admin:create on an empty install", () => {
 });
 
 describe("a production server and the demo accounts", () => {
-  const savedEnv = process.env.NODE_ENV;
+  // scripts/test.sh declares its (demo) database a demonstration install: DENTATE_DEMO=1.
+  const saved = { NODE_ENV: process.env.NODE_ENV, DENTATE_DEMO: process.env.DENTATE_DEMO };
   afterEach(() => {
-    (process.env as Record<string, string | undefined>).NODE_ENV = savedEnv;
+    Object.assign(process.env, saved);
+    if (saved.DENTATE_DEMO === undefined) delete process.env.DENTATE_DEMO;
   });
 
   it("the start-up check refuses the demo database in production and passes an empty one", () => {
@@ -100,7 +102,7 @@ describe("a production server and the demo accounts", () => {
   it("a running production server answers 503 with the reason instead of patient data", async () => {
     expect(await servableRefusal({ NODE_ENV: "production" })).toMatch(/6 demo accounts/);
     const clinician = await actor("clinician", [(await makeSite()).id]);
-    (process.env as Record<string, string | undefined>).NODE_ENV = "production";
+    Object.assign(process.env, { NODE_ENV: "production", DENTATE_DEMO: "" });
     const res = await listLesions(req("GET", "/api/visits/00000000-0000-4000-8000-000000000000/lesions", clinician), ctx({ visitId: "00000000-0000-4000-8000-000000000000" }));
     expect(res.status).toBe(503);
     expect((await res.json()).error.message).toMatch(/demo account/);
