@@ -132,7 +132,7 @@ export function StaffSites({ userId, name, current, sites }: { userId: string; n
           {s.label}
         </label>
       ))}
-      <Button variant="secondary" disabled={pending} aria-label={`Save the sites of ${name}`} onClick={() => run("PUT", `/api/admin/users/${encodeURIComponent(userId)}/sites`, { siteIds: [...chosen] })}>Save sites</Button>
+      <Button variant="secondary" disabled={pending} aria-label={`Save sites of ${name}`} onClick={() => run("PUT", `/api/admin/users/${encodeURIComponent(userId)}/sites`, { siteIds: [...chosen] })}>Save sites</Button>
       {error ? <p role="alert" className="w-full text-sm text-danger-ink">{error}</p> : null}
     </fieldset>
   );
