@@ -56,13 +56,14 @@ export function SiteForm({ site }: { site?: SiteRow }) {
     <form onSubmit={form.handleSubmit(submit)} noValidate className="flex flex-wrap items-end gap-3" aria-label={site ? `Edit ${site.name}` : "New site"}>
       {FIELDS.map((f) => (
         <div key={f.name} className={f.width}>
-          <label htmlFor={idOf(f.name)} className="block text-sm font-semibold">{f.label}{f.hint ? <span className="font-normal text-ink-soft"> ({f.hint})</span> : null}</label>
-          <input id={idOf(f.name)} {...form.register(f.name)} aria-invalid={errors[f.name] ? true : undefined}
+          <label htmlFor={idOf(f.name)} className="block text-sm font-semibold">{f.label}</label>
+          <input id={idOf(f.name)} {...form.register(f.name)} aria-invalid={errors[f.name] ? true : undefined} aria-describedby={f.hint ? idOf(`${f.name}-hint`) : undefined}
             className="mt-1 min-h-11 w-full rounded-md border border-rule-strong bg-panel px-3" />
+          {f.hint ? <p id={idOf(`${f.name}-hint`)} className="mt-1 h-5 text-xs text-ink-soft">{f.hint}</p> : <p className="mt-1 h-5" aria-hidden="true" />}
           {errors[f.name] ? <p className="mt-1 text-sm text-danger-ink">{errors[f.name]!.message}</p> : null}
         </div>
       ))}
-      <Button type="submit" disabled={form.formState.isSubmitting}>{site ? "Save" : "Create site"}</Button>
+      <div className="pb-6"><Button type="submit" disabled={form.formState.isSubmitting}>{site ? "Save" : "Create site"}</Button></div>
       {message ? <p role="status" className="w-full text-sm">{message}</p> : null}
     </form>
   );

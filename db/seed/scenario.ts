@@ -66,7 +66,20 @@ function addMonths(date: Date, months: number): Date {
   return d;
 }
 
-export function buildScenario(): SeedPatient[] {
+// How long before the seed's run date each patient's last visit lies, in days, by patient number.
+// Against the usual 3-, 6- and 12-month intervals this gives a few patients due this week, a few
+// overdue by days or weeks, and the rest not yet due; no one is years overdue.
+const LAST_VISIT_LAG_DAYS = [14, 88, 60, 95, 100, 30, 91, 110, 120, 180, 86, 200, 150, 240, 45] as const;
+
+const DAY_MS = 86_400_000;
+const shiftIso = (iso: string, days: number) => new Date(Date.parse(`${iso}T00:00:00Z`) + days * DAY_MS).toISOString().slice(0, 10);
+
+/**
+ * The invented clinic, laid out so that each patient's last visit lies a set number of days before
+ * `today` (the day the seed runs): the same run date always gives the same records.
+ */
+export function buildScenario(today: Date = new Date()): SeedPatient[] {
+  const todayIso = today.toISOString().slice(0, 10);
   faker.seed(20261201);
   const out: SeedPatient[] = [];
   const zips = ["02139", "10027", "03601", "94110", "60614", "87901", "33139"];
@@ -118,6 +131,11 @@ export function buildScenario(): SeedPatient[] {
       visits.push({ date: isoDate(when), examiner: examiners[v % examiners.length]!, lesions, notFound });
       when = addMonths(when, faker.number.int({ min: 4, max: 7 }));
     }
+    // The whole history moves together, so intervals between visits are kept.
+    const last = visits.at(-1)!.date;
+    const target = shiftIso(todayIso, -LAST_VISIT_LAG_DAYS[i % LAST_VISIT_LAG_DAYS.length]!);
+    const shift = Math.round((Date.parse(`${target}T00:00:00Z`) - Date.parse(`${last}T00:00:00Z`)) / DAY_MS);
+    for (const v of visits) v.date = shiftIso(v.date, shift);
     out.push({
       siteCode,
       mrn: `${siteCode}-${String(100200 + i * 37).padStart(7, "0")}`,
