@@ -39,7 +39,7 @@ export function readCsv(original: string): FileRead {
       skip_empty_lines: true,
       // One more than the limit, to tell "too many" from "exactly the limit" without reading on.
       to: MAX_ROWS + 2,
-    });
+    }) as unknown as typeof rows;
   } catch (e) {
     const err = e as { message?: string; lines?: number };
     return { ok: false, message: `The file cannot be read as CSV near line ${err.lines ?? "?"}: ${String(err.message ?? e).replace(/^[^:]*: /, "").slice(0, 200)}` };

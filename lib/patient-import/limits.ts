@@ -15,3 +15,9 @@ export const PREVIEW_ROWS = 10;
 export const MAX_REPORTED_PROBLEMS = 5_000;
 
 export const megabytes = (bytes: number) => `${Math.round((bytes / 1024 / 1024) * 10) / 10} MB`;
+
+/** The request that carries a file as a JSON string: escaping can make it up to about twice its size. */
+export const IMPORT_BODY_LIMIT = {
+  bytes: 2 * MAX_FILE_BYTES + 64 * 1024,
+  message: `The file is too large: at most ${megabytes(MAX_FILE_BYTES)} can be imported at once. Split it into smaller files.`,
+};
