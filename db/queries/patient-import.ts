@@ -4,7 +4,7 @@ import "server-only";
 // postgres.js keeps it prepared). Risk groups, a set per patient, travel as one array literal
 // per row inside a text[] (unnest would flatten an array of arrays).
 import { sql as dsql } from "drizzle-orm";
-import type { Db, Tx } from "../client";
+import { db, type Db, type Tx } from "../client";
 import { pgArrayLiteral } from "./scope";
 import type { PatientValues, StoredPatient } from "@/lib/patient-import/merge";
 
@@ -60,4 +60,10 @@ export async function updatePatients(run: Run, siteId: string, rows: (PatientVal
     where p.id = u.id and p.site_id = ${siteId}::uuid and p.version = u.version
     returning p.id`);
   return (done as unknown as unknown[]).length;
+}
+
+/** Names of these sites, for choosing where to import. */
+export async function sitesNamed(siteIds: string[], run: Run = db): Promise<{ id: string; name: string }[]> {
+  if (siteIds.length === 0) return [];
+  return (await run.execute(dsql`select id, name from sites where id = any(${pgArrayLiteral(siteIds)}::uuid[]) order by name`)) as unknown as { id: string; name: string }[];
 }

@@ -39,6 +39,6 @@ describe("column mapping", () => {
   it("names a required field without a column and a column chosen twice", () => {
     const m = { ...guessMapping(["MRN", "Surname", "Given", "DOB", "Sex"]), givenName: 1 };
     expect(mappingProblems(m, 5)).toEqual(["Column 2 is chosen for both family name and given names."]);
-    expect(mappingProblems({ ...m, givenName: 2, mrn: null }, 5)).toEqual(["Choose the column that holds mrn."]);
+    expect(mappingProblems({ ...m, givenName: 2, mrn: null }, 5)).toEqual(["Choose the column that holds MRN."]);
   });
 });

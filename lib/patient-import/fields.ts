@@ -19,6 +19,9 @@ export const FIELD_LABEL = Object.fromEntries(IMPORT_FIELDS.map((f) => [f.key, f
 /** For each field, the index of the column it is read from, or null when no column fills it. */
 export type ColumnMapping = Record<ImportField, number | null>;
 
+/** A label inside a sentence: "family name", but "MRN" and "HIV status" keep their capitals. */
+export const inSentence = (label: string) => (/^[A-Z]{2}/.test(label) ? label : label.toLowerCase());
+
 const normal = (s: string) => s.toLowerCase().replace(/[^a-z0-9]/g, "");
 
 /**
@@ -45,12 +48,12 @@ export function mappingProblems(mapping: ColumnMapping, columnCount: number): st
   for (const f of IMPORT_FIELDS) {
     const index = mapping[f.key];
     if (index === null) {
-      if (f.required) problems.push(`Choose the column that holds ${f.label.toLowerCase()}.`);
+      if (f.required) problems.push(`Choose the column that holds ${inSentence(f.label)}.`);
       continue;
     }
     if (index >= columnCount) problems.push(`${f.label}: the file has no column ${index + 1}.`);
     const other = used.get(index);
-    if (other) problems.push(`Column ${index + 1} is chosen for both ${FIELD_LABEL[other].toLowerCase()} and ${f.label.toLowerCase()}.`);
+    if (other) problems.push(`Column ${index + 1} is chosen for both ${inSentence(FIELD_LABEL[other])} and ${inSentence(f.label)}.`);
     used.set(index, f.key);
   }
   return problems;

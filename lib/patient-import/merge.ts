@@ -1,6 +1,6 @@
 // What importing one row does to the patient with the same MRN at the site. Pure.
 import type { ImportRowValues } from "./row-schema";
-import { FIELD_LABEL, type ImportField } from "./fields";
+import { FIELD_LABEL, inSentence, type ImportField } from "./fields";
 
 /** The stored patient, as far as an import reads and writes it. */
 export interface StoredPatient {
@@ -75,4 +75,4 @@ export function planRow(stored: StoredPatient | null, row: ImportRowValues): Row
 }
 
 export const describeChanges = (changes: Partial<Record<ImportField, Change>>) =>
-  Object.keys(changes).map((f) => FIELD_LABEL[f as ImportField].toLowerCase()).join(", ");
+  Object.keys(changes).map((f) => inSentence(FIELD_LABEL[f as ImportField])).join(", ");

@@ -112,7 +112,7 @@ describe("CSV import", () => {
   it("takes a mapping chosen by the user, and says which required field has no column", async () => {
     const content = "Ref;Nom;Prénom;Né le;Sexe\nQ-1;Durand;Léa;1985-05-05;F\n";
     const guessed = await checkFile(clinician, body({ content }));
-    expect(guessed.body.mappingProblems).toEqual(expect.arrayContaining(["Choose the column that holds mrn.", "Choose the column that holds family name."]));
+    expect(guessed.body.mappingProblems).toEqual(expect.arrayContaining(["Choose the column that holds MRN.", "Choose the column that holds family name."]));
     const mapping = { mrn: 0, familyName: 1, givenName: 2, dateOfBirth: 3, sexAtBirth: 4, postalCode: null, hivStatus: null, riskGroups: null, contactEmail: null };
     const chosen = await checkFile(clinician, body({ content, mapping }));
     expect(chosen.body).toMatchObject({ mappingProblems: [], problems: [], plan: { create: 1, update: 0, unchanged: 0 } });
