@@ -4,7 +4,7 @@ import { useState } from "react";
 import Link from "next/link";
 import { ApiError } from "@/components/data/fetcher";
 import { Button } from "@/components/ui/button";
-import type { ColumnMapping, ImportField } from "@/lib/patient-import/fields";
+import { assignColumn } from "@/lib/patient-import/fields";
 import { MAX_FILE_BYTES, MAX_ROWS, megabytes } from "@/lib/patient-import/limits";
 import type { ImportReport, ImportResult } from "@/lib/patient-import/report";
 import { checkImportFile, ImportRefused, runImport, type ImportRequest } from "./import-api";
@@ -13,14 +13,6 @@ import { PreviewTable } from "./preview-table";
 import { ProblemList } from "./problem-list";
 
 type Phase = { at: "idle" } | { at: "checking" } | { at: "checked" } | { at: "importing"; done: number; total: number } | { at: "done"; result: ImportResult };
-
-/** A column chosen for a field takes it from whichever field had it; the field's old column is freed. */
-function remap(mapping: ColumnMapping, column: number, field: ImportField | null): ColumnMapping {
-  const next = { ...mapping };
-  for (const k of Object.keys(next) as ImportField[]) if (next[k] === column) next[k] = null;
-  if (field) next[field] = column;
-  return next;
-}
 
 export function ImportPanel({ sites }: { sites: { id: string; name: string }[] }) {
   const [siteId, setSiteId] = useState(sites[0]?.id ?? "");
@@ -99,7 +91,7 @@ export function ImportPanel({ sites }: { sites: { id: string; name: string }[] }
       {report ? (
         <>
           <ImportSummary report={report} fileName={file?.fileName ?? ""} />
-          <PreviewTable report={report} disabled={busy} onColumnChange={report.format === "csv" && file ? (column, field) => void check({ ...file, siteId, mapping: remap(report.mapping, column, field) }) : undefined} />
+          <PreviewTable report={report} disabled={busy} onColumnChange={report.format === "csv" && file ? (column, field) => void check({ ...file, siteId, mapping: assignColumn(report.mapping, column, field) }) : undefined} />
           <ProblemList report={report} />
           <div className="space-y-3 rounded-lg border border-rule bg-panel p-3">
             {report.badRows > 0 && ready > 0 && report.mappingProblems.length === 0 ? (

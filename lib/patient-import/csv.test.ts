@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { readCsv } from "./csv";
-import { guessMapping, mappingProblems } from "./fields";
+import { assignColumn, guessMapping, mappingProblems } from "./fields";
 import { MAX_ROWS } from "./limits";
 
 describe("readCsv", () => {
@@ -40,5 +40,11 @@ describe("column mapping", () => {
     const m = { ...guessMapping(["MRN", "Surname", "Given", "DOB", "Sex"]), givenName: 1 };
     expect(mappingProblems(m, 5)).toEqual(["Column 2 is chosen for both family name and given names."]);
     expect(mappingProblems({ ...m, givenName: 2, mrn: null }, 5)).toEqual(["Choose the column that holds MRN."]);
+  });
+
+  it("moves a column to the field chosen for it, freeing the field that had it and the field's old column", () => {
+    const m = guessMapping(["MRN", "Surname", "Given", "DOB", "Sex", "Email"]);
+    expect(assignColumn(m, 1, "givenName")).toMatchObject({ familyName: null, givenName: 1 });
+    expect(assignColumn(m, 5, null)).toMatchObject({ contactEmail: null, mrn: 0 });
   });
 });

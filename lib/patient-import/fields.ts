@@ -41,6 +41,14 @@ export function guessMapping(headers: readonly string[]): ColumnMapping {
   return mapping;
 }
 
+/** A column chosen for a field (or for none) takes it from whichever field had it; the field's old column is freed. */
+export function assignColumn(mapping: ColumnMapping, column: number, field: ImportField | null): ColumnMapping {
+  const next = { ...mapping };
+  for (const f of IMPORT_FIELDS) if (next[f.key] === column) next[f.key] = null;
+  if (field) next[field] = column;
+  return next;
+}
+
 /** What is wrong with a mapping as a whole (a required field without a column, a column used twice). */
 export function mappingProblems(mapping: ColumnMapping, columnCount: number): string[] {
   const problems: string[] = [];
