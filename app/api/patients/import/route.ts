@@ -17,9 +17,19 @@ export const POST = route({ roles: ["clinician", "admin"] }, async ({ req, user,
   const started = await startImport(user, body.siteId, body, ip);
   if (!started.ok) return json({ error: { code: "invalid", message: started.message }, report: started.report }, 400);
   const encoder = new TextEncoder();
+  // A reader that went away (the page was closed) does not stop the import: it finishes or
+  // fails as a whole either way, and its audit row tells what happened.
+  let open = true;
   const stream = new ReadableStream<Uint8Array>({
     async start(controller) {
-      const send = (e: ImportEvent) => controller.enqueue(encoder.encode(JSON.stringify(e) + "\n"));
+      const send = (e: ImportEvent) => {
+        if (!open) return;
+        try {
+          controller.enqueue(encoder.encode(JSON.stringify(e) + "\n"));
+        } catch {
+          open = false;
+        }
+      };
       try {
         const result = await commitImport(started.job, (done, total) => send({ stage: "writing", done, total }));
         send({ stage: "done", result });
@@ -27,7 +37,10 @@ export const POST = route({ roles: ["clinician", "admin"] }, async ({ req, user,
         const { body: b } = errorToBody(err);
         send({ stage: "failed", error: { code: b.error.code, message: b.error.message } });
       }
-      controller.close();
+      if (open) controller.close();
+    },
+    cancel() {
+      open = false;
     },
   });
   return new Response(stream, { status: 200, headers: { "content-type": "application/x-ndjson", "cache-control": "no-store" } });
