@@ -11,7 +11,7 @@ import type { PatientValues, StoredPatient } from "@/lib/patient-import/merge";
 type Run = Db | Tx;
 
 const SELECT_STORED = dsql`select id, version, mrn, family_name as "familyName", given_name as "givenName",
-  date_of_birth::text as "dateOfBirth", sex_at_birth as "sexAtBirth", postal_code as "postalCode",
+  date_of_birth::text as "dateOfBirth", sex_at_birth as "sexAtBirth", zip as "postalCode",
   hiv_status as "hivStatus", risk_groups::text[] as "riskGroups", contact_email as "contactEmail"
   from patients where site_id = `;
 
@@ -38,7 +38,7 @@ const arrays = (rows: PatientValues[]) => ({
 export async function insertPatients(run: Run, siteId: string, rows: (PatientValues & { id: string })[]): Promise<void> {
   if (rows.length === 0) return;
   const a = arrays(rows);
-  await run.execute(dsql`insert into patients (id, site_id, mrn, family_name, given_name, date_of_birth, sex_at_birth, postal_code, hiv_status, risk_groups, contact_email)
+  await run.execute(dsql`insert into patients (id, site_id, mrn, family_name, given_name, date_of_birth, sex_at_birth, zip, hiv_status, risk_groups, contact_email)
     select id, ${siteId}::uuid, mrn, family, given, born, sex, postal, hiv, risks::risk_group[], email
     from unnest(${pgArrayLiteral(rows.map((r) => r.id))}::uuid[], ${a.mrns}::text[], ${a.family}::text[], ${a.given}::text[], ${a.born}::date[],
       ${a.sex}::sex_at_birth[], ${a.postal}::text[], ${a.hiv}::hiv_status[], ${a.risks}::text[], ${a.emails}::text[])
@@ -52,7 +52,7 @@ export async function insertPatients(run: Run, siteId: string, rows: (PatientVal
 export async function updatePatients(run: Run, siteId: string, rows: (PatientValues & { id: string; version: number })[]): Promise<number> {
   if (rows.length === 0) return 0;
   const a = arrays(rows);
-  const done = await run.execute(dsql`update patients p set family_name = u.family, given_name = u.given, sex_at_birth = u.sex, postal_code = u.postal,
+  const done = await run.execute(dsql`update patients p set family_name = u.family, given_name = u.given, sex_at_birth = u.sex, zip = u.postal,
       hiv_status = u.hiv, risk_groups = u.risks::risk_group[], contact_email = u.email, version = p.version + 1
     from unnest(${pgArrayLiteral(rows.map((r) => r.id))}::uuid[], ${pgArrayLiteral(rows.map((r) => String(r.version)))}::int[], ${a.family}::text[], ${a.given}::text[],
       ${a.sex}::sex_at_birth[], ${a.postal}::text[], ${a.hiv}::hiv_status[], ${a.risks}::text[], ${a.emails}::text[])

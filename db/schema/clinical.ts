@@ -1,6 +1,7 @@
 import {
   boolean, char, date, doublePrecision, index, integer, jsonb, pgTable, text, timestamp, unique, uniqueIndex, uuid,
 } from "drizzle-orm/pg-core";
+import { sql } from "drizzle-orm";
 import { sites, users } from "./accounts";
 import * as e from "./enums";
 
@@ -17,6 +18,8 @@ export const patients = pgTable(
     genderIdentity: text("gender_identity"),
     hivStatus: e.hivEnum("hiv_status").notNull().default("unknown"),
     riskGroup: e.riskGroupEnum("risk_group").notNull().default("other"),
+    /** IANS 2024 risk groups: more than one may apply (living with HIV and a transplant recipient). */
+    riskGroups: e.riskGroupEnum("risk_groups").array().notNull().default(sql`'{}'::risk_group[]`),
     /** Date of transplant or of vulvar HSIL diagnosis, where the risk group needs one. */
     riskDate: date("risk_date"),
     zip: text("zip"),
@@ -27,6 +30,8 @@ export const patients = pgTable(
     clinicianId: text("clinician_id").references(() => users.id),
     nextDueOverride: date("next_due_override"),
     nextDueOverrideReason: text("next_due_override_reason"),
+    /** Optimistic-concurrency version of the demographics; a change that changes nothing keeps it. */
+    version: integer("version").notNull().default(1),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [

@@ -81,7 +81,7 @@ describe("CSV import", () => {
       { mrn: "IMP-8", familyName: "Someone", dateOfBirth: "1950-01-01" },
       { mrn: "IMP-9", familyName: "Hale", dateOfBirth: "1972-07-07" },
     ]);
-    const [noor] = await db.execute(dsql`select risk_groups::text[] as "riskGroups", postal_code as "postalCode", hiv_status as "hivStatus", contact_email as "contactEmail", version from patients where site_id = ${siteId} and mrn = 'IMP-1'`);
+    const [noor] = await db.execute(dsql`select risk_groups::text[] as "riskGroups", zip as "postalCode", hiv_status as "hivStatus", contact_email as "contactEmail", version from patients where site_id = ${siteId} and mrn = 'IMP-1'`);
     expect(noor).toEqual({ riskGroups: ["msm_tw_hiv", "solid_organ_transplant"], postalCode: "90210", hivStatus: "positive", contactEmail: "noor@example.test", version: 1 });
     const { importId } = (r.last as { result: { importId: string } }).result;
     const audits = await db.select({ action: auditEvents.action, detail: auditEvents.detail }).from(auditEvents).where(and(eq(auditEvents.siteId, siteId), eq(auditEvents.userId, clinician.userId)));
@@ -103,7 +103,7 @@ describe("CSV import", () => {
     const changed = CSV.replace("IMP-7,Marsh,Lee,1958-12-01,M,negative,,10001,", "IMP-7,Marsh,Lee,1958-12-01,M,positive,,10002,");
     const r = await importFile(clinician, body({ content: changed, acceptValidRows: true }));
     expect(r.last).toMatchObject({ stage: "done", result: { created: 0, updated: 1, unchanged: 2 } });
-    const [lee] = await db.execute(dsql`select id, version, hiv_status as "hivStatus", postal_code as "postalCode" from patients where site_id = ${siteId} and mrn = 'IMP-7'`);
+    const [lee] = await db.execute(dsql`select id, version, hiv_status as "hivStatus", zip as "postalCode" from patients where site_id = ${siteId} and mrn = 'IMP-7'`);
     expect(lee).toMatchObject({ version: 2, hivStatus: "positive", postalCode: "10002" });
     const [audit] = await db.select({ detail: auditEvents.detail }).from(auditEvents).where(and(eq(auditEvents.patientId, String(lee!.id)), eq(auditEvents.action, "patient.update")));
     expect(audit!.detail).toMatchObject({ changes: { hivStatus: { before: "negative", after: "positive" }, postalCode: { before: "10001", after: "10002" } }, version: 2 });
