@@ -4,9 +4,9 @@ import "server-only";
 // reads the file, reads the site's patients with the same MRNs, writes, audits.
 import { createHash, randomUUID } from "node:crypto";
 import { db } from "@/db/client";
-import { recordAudit, recordAudits, type AuditInput } from "@/db/queries/audit";
+import { recordAudit, recordAudits, type AuditInput } from "@/db/queries/audit-write";
 import { insertPatients, patientsByMrn, updatePatients } from "@/db/queries/patient-import";
-import type { CurrentUser } from "@/lib/auth/guard";
+import type { SiteScope } from "@/db/queries/scope";
 import { AppError } from "@/lib/errors";
 import { planRow, type RowPlan, type StoredPatient } from "@/lib/patient-import/merge";
 import { buildReport, type ImportReport, type ImportResult } from "@/lib/patient-import/report";
@@ -26,6 +26,12 @@ function planAll(rows: ImportRow[], stored: StoredPatient[]): { plans: (RowPlan 
   const plans = rows.map((r) => ({ ...planRow(byMrn.get(r.values.mrn) ?? null, r.values), line: r.line }));
   const conflicts = plans.flatMap((p) => (p.kind === "conflict" ? [{ line: p.line, field: "mrn" as const, message: p.message }] : []));
   return { plans, conflicts };
+}
+
+/** The site imported into must be one of the caller's; another site's answers as if it did not exist. */
+function siteOf(scope: SiteScope, input: ImportCheckInput): string {
+  if (!scope.siteIds.includes(input.siteId)) throw new AppError("not_found");
+  return input.siteId;
 }
 
 /** Reads and checks the whole file against the rules and the site's patients; writes nothing. */
@@ -51,8 +57,8 @@ async function check(siteId: string, input: ImportCheckInput): Promise<Checked> 
 }
 
 /** The preview and dry run: the column mapping, the first rows, every row's problems, what an import would do. */
-export async function checkImport(siteId: string, input: ImportCheckInput): Promise<ImportReport> {
-  return (await check(siteId, input)).report;
+export async function checkImport(scope: SiteScope, input: ImportCheckInput): Promise<ImportReport> {
+  return (await check(siteOf(scope, input), input)).report;
 }
 
 export interface PendingImport {
@@ -68,14 +74,15 @@ export interface PendingImport {
  * Checks the file again (the client's word is not taken for it). A file with bad rows is refused
  * as a whole unless the user chose to import the good ones; the refusal carries the report.
  */
-export async function startImport(user: CurrentUser, siteId: string, input: ImportRunInput, ip: string): Promise<{ ok: true; job: PendingImport } | { ok: false; message: string; report: ImportReport }> {
+export async function startImport(scope: SiteScope, input: ImportRunInput, ip: string): Promise<{ ok: true; job: PendingImport } | { ok: false; message: string; report: ImportReport }> {
+  const siteId = siteOf(scope, input);
   const { report, rows } = await check(siteId, input);
   if (report.mappingProblems.length) return { ok: false, report, message: report.mappingProblems.join(" ") };
   if (report.badRows > 0 && !input.acceptValidRows) {
     return { ok: false, report, message: `${report.badRows} of ${report.total} ${report.unit === "line" ? "rows" : "entries"} have problems, so nothing was imported. Correct them, or choose to import only the valid rows.` };
   }
   if (rows.length === 0) return { ok: false, report, message: "No row of this file can be imported." };
-  return { ok: true, job: { siteId, userId: user.id, ip, input, rows, report } };
+  return { ok: true, job: { siteId, userId: scope.userId, ip, input, rows, report } };
 }
 
 const CHUNK = 1_000;

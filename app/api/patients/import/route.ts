@@ -1,4 +1,4 @@
-import { requireSite } from "@/lib/auth/guard";
+import { scopeOf } from "@/lib/auth/guard";
 import { errorToBody } from "@/lib/errors";
 import { json, readJson, route } from "@/lib/http/route";
 import type { ImportEvent } from "@/lib/patient-import/report";
@@ -13,8 +13,7 @@ import { IMPORT_BODY_LIMIT } from "@/lib/patient-import/limits";
  */
 export const POST = route({ roles: ["clinician", "admin"] }, async ({ req, user, ip }) => {
   const body = await readJson(req, importRunSchema, IMPORT_BODY_LIMIT);
-  requireSite(user, body.siteId);
-  const started = await startImport(user, body.siteId, body, ip);
+  const started = await startImport(scopeOf(user), body, ip);
   if (!started.ok) return json({ error: { code: "invalid", message: started.message }, report: started.report }, 400);
   const encoder = new TextEncoder();
   // A reader that went away (the page was closed) does not stop the import: it finishes or
