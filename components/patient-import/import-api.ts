@@ -1,8 +1,10 @@
 // The import page's two calls: the check (preview and dry run) and the import, whose answer is
 // read line by line as it streams so the page can show progress.
 import { ApiError, sendJson } from "@/components/data/fetcher";
+import { api } from "@/components/data/keys";
 import type { ColumnMapping } from "@/lib/patient-import/fields";
-import type { ImportEvent, ImportFormat, ImportReport, ImportResult } from "@/lib/patient-import/report";
+import type { ImportEvent, ImportReport, ImportResult } from "@/lib/api/types";
+import type { ImportFormat } from "@/lib/patient-import/report";
 
 export interface ImportRequest {
   siteId: string;
@@ -13,7 +15,7 @@ export interface ImportRequest {
 }
 
 export function checkImportFile(r: ImportRequest): Promise<ImportReport> {
-  return sendJson<ImportReport>("POST", "/api/patients/import/check", r);
+  return sendJson<ImportReport>("POST", api.patientImportCheck, r);
 }
 
 /** A refused import: the server's reason, and the report when the file's rows were the reason. */
@@ -28,7 +30,7 @@ export class ImportRefused extends ApiError {
 export async function runImport(r: ImportRequest & { acceptValidRows: boolean }, onProgress: (done: number, total: number) => void): Promise<ImportResult> {
   let res: Response;
   try {
-    res = await fetch("/api/patients/import", { method: "POST", credentials: "same-origin", headers: { "content-type": "application/json" }, body: JSON.stringify(r) });
+    res = await fetch(api.patientImport, { method: "POST", credentials: "same-origin", headers: { "content-type": "application/json" }, body: JSON.stringify(r) });
   } catch {
     throw new ApiError(0, "network", "The server could not be reached. Nothing was imported; check the connection and try again.");
   }

@@ -6,7 +6,7 @@ import { ApiError } from "@/components/data/fetcher";
 import { Button } from "@/components/ui/button";
 import { assignColumn } from "@/lib/patient-import/fields";
 import { MAX_FILE_BYTES, MAX_ROWS, megabytes } from "@/lib/patient-import/limits";
-import type { ImportReport, ImportResult } from "@/lib/patient-import/report";
+import type { ImportReport, ImportResult } from "@/lib/api/types";
 import { checkImportFile, ImportRefused, runImport, type ImportRequest } from "./import-api";
 import { ImportSummary } from "./import-summary";
 import { PreviewTable } from "./preview-table";

@@ -1,4 +1,4 @@
-import type { ImportReport } from "@/lib/patient-import/report";
+import type { ImportReport } from "@/lib/api/types";
 
 /** What the check found, in one line, and what the file means for the site's patients. */
 export function ImportSummary({ report, fileName }: { report: ImportReport; fileName: string }) {

@@ -1,7 +1,7 @@
 "use client";
 
 import type { ImportField } from "@/lib/patient-import/fields";
-import type { ImportReport } from "@/lib/patient-import/report";
+import type { ImportReport } from "@/lib/api/types";
 
 /**
  * The first rows of the file as they are in it, with a choice above each column of the field it

@@ -1,4 +1,4 @@
-import type { ImportReport } from "@/lib/patient-import/report";
+import type { ImportReport } from "@/lib/api/types";
 
 /** Every problem of the file, by line (or bundle entry), in file order. */
 export function ProblemList({ report }: { report: ImportReport }) {

@@ -1,6 +1,6 @@
 // A FHIR R4 Bundle of Patient resources read as a table, one record per Patient entry, so it is
 // checked by the same rules as a CSV file. Pure; validation against the R4 definitions is done
-// before this (lib/fhir/validator.ts).
+// before this (lib/server/fhir-validator.ts).
 import type { SourceTable } from "./csv";
 import { IMPORT_FIELDS, type ColumnMapping, type ImportField } from "./fields";
 import { MAX_ROWS } from "./limits";

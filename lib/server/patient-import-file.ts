@@ -3,7 +3,7 @@ import "server-only";
 // validated against the R4 definitions and read. A file that cannot be read at all is refused
 // here (400 or 413, with the reason); row-level problems are left to the row checks.
 import { AppError } from "@/lib/errors";
-import { errorsOf, loadFhirValidator } from "@/lib/fhir/validator";
+import { errorsOf, loadFhirValidator } from "@/lib/server/fhir-validator";
 import type { SourceTable } from "@/lib/patient-import/csv";
 import { readCsv } from "@/lib/patient-import/csv";
 import { readPatientBundle } from "@/lib/patient-import/fhir";

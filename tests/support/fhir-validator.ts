@@ -1,3 +1,3 @@
-// The FHIR R4 validator the server uses (lib/fhir/validator.ts), for tests: call
+// The FHIR R4 validator the server uses (lib/server/fhir-validator.ts), for tests: call
 // loadFhirValidator() in beforeAll, then problemsOf(resource) gives its lines.
-export { loadFhirValidator, problemsOf } from "@/lib/fhir/validator";
+export { loadFhirValidator, problemsOf } from "@/lib/server/fhir-validator";
