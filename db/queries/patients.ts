@@ -55,7 +55,7 @@ export async function getPatient(scope: SiteScope, patientId: string) {
       sexAtBirth: patients.sexAtBirth,
       genderIdentity: patients.genderIdentity,
       hivStatus: patients.hivStatus,
-      riskGroup: patients.riskGroup,
+      riskGroups: patients.riskGroups,
       riskDate: patients.riskDate,
       consentEmail: patients.consentEmail,
       consentResearch: patients.consentResearch,
