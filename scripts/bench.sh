@@ -119,6 +119,8 @@ part sequential node scripts/bench/sequential.mjs "$BASE" "$OUT/prepare.json"
 part timeline-queries $TSX --conditions=react-server scripts/bench/timeline-queries.ts "$OUT/prepare.json"
 part map node scripts/bench/map-bench.mjs "$BASE" "$OUT/prepare.json"
 part pages node scripts/bench/pages.mjs "$BASE" "$OUT/prepare.json" "$DENTATE_DIST_DIR"
+# Last: it adds 10,000 patients (at a site of their own) that no earlier step should see.
+part patient-import env DENTATE_BASE_URL="$BASE" $TSX --conditions=react-server scripts/bench/patient-import.ts
 
 mkdir -p bench
 node scripts/bench/report.mjs "$PARTS" bench/results.json "$(( $(date +%s) - T0 ))"

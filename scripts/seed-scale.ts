@@ -83,7 +83,7 @@ async function main() {
   for (let p = 0; p < PATIENTS; p++) {
     const pid = randomUUID();
     const dob = iso(dayOf("1940-01-01") + int(0, 365 * 55));
-    patients.push([pid, siteId, `SCL-${String(p + 1).padStart(6, "0")}`, word(2), word(2), dob, pick(["male", "male", "female"]), pick(["positive", "negative", "unknown"]), "other", String(int(10000, 99999)), true]);
+    patients.push([pid, siteId, `SCL-${String(p + 1).padStart(6, "0")}`, word(2), word(2), dob, pick(["male", "male", "female"]), pick(["positive", "negative", "unknown"]), "{other}", String(int(10000, 99999)), true]);
     let day = dayOf("2022-01-01") + int(0, 700);
     const nVisits = int(3, 9);
     const trackDefs = Array.from({ length: int(3, 6) }, (_, t) => {
@@ -131,7 +131,7 @@ async function main() {
     enrolments.push([randomUUID(), studyId, pid, siteId, `SCL-${String(p + 1).padStart(5, "0")}`, String(visits.at(-nVisits)![3])]);
   }
   const counts: Record<string, number> = {};
-  counts.patients = await copyRows("patients", ["id", "site_id", "mrn", "family_name", "given_name", "date_of_birth", "sex_at_birth", "hiv_status", "risk_group", "zip", "consent_research"], patients);
+  counts.patients = await copyRows("patients", ["id", "site_id", "mrn", "family_name", "given_name", "date_of_birth", "sex_at_birth", "hiv_status", "risk_groups", "zip", "consent_research"], patients);
   counts.visits = await copyRows("visits", ["id", "patient_id", "site_id", "visit_date", "examiner_id", "cytology", "status", "signed_at", "signed_by", "exam_started_at", "exam_ended_at"], visits);
   counts.tracks = await copyRows("lesion_tracks", ["id", "patient_id", "site_id", "label"], tracks);
   counts.lesions = await copyRows("lesions", ["id", "visit_id", "site_id", "track_id", "label", "clock_start_h", "clock_end_h", "distance_start_cm", "distance_end_cm", "zone", "grade", "morphology", "acetowhite", "lugol", "vessels", "size_mm"], lesions);

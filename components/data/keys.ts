@@ -13,4 +13,6 @@ export const api = {
   review: (reviewId: string) => `/api/reviews/${reviewId}`,
   resolveAdjudication: (adjudicationId: string) => `/api/adjudications/${adjudicationId}/resolve`,
   studyEnrolments: (studyId: string) => `/api/studies/${studyId}/enrolments`,
+  patientImportCheck: "/api/patients/import/check",
+  patientImport: "/api/patients/import",
 } as const;

@@ -2,10 +2,10 @@
 // the IANS 2024 consensus (lib/due-dates). Shown as guidance; local guidelines and the clinician decide.
 import { Caution } from "@/components/ui/caution";
 import type { RiskGroup } from "@/lib/domain/vocab";
-import { screeningSuggestion } from "@/lib/due-dates/eligibility";
+import { screeningSuggestionForGroups } from "@/lib/due-dates/eligibility";
 
 export interface ScreeningGuidanceProps {
-  riskGroup: RiskGroup;
+  riskGroups: readonly RiskGroup[];
   dateOfBirth: string;
   /** Transplant date or vulvar HSIL/cancer diagnosis date, where the group needs one. */
   riskDate?: string | null;
@@ -13,13 +13,13 @@ export interface ScreeningGuidanceProps {
   today?: string;
 }
 
-export function ScreeningGuidance({ riskGroup, dateOfBirth, riskDate, today }: ScreeningGuidanceProps) {
-  const s = screeningSuggestion({
-    riskGroup,
+export function ScreeningGuidance({ riskGroups, dateOfBirth, riskDate, today }: ScreeningGuidanceProps) {
+  const s = screeningSuggestionForGroups({
+    riskGroups,
     dob: dateOfBirth,
     today: today ?? new Date().toISOString().slice(0, 10),
-    transplantDate: riskGroup === "solid_organ_transplant" ? riskDate ?? undefined : undefined,
-    diagnosisDate: riskGroup === "vulvar_hsil_or_cancer" ? riskDate ?? undefined : undefined,
+    transplantDate: riskGroups.includes("solid_organ_transplant") ? riskDate ?? undefined : undefined,
+    diagnosisDate: riskGroups.includes("vulvar_hsil_or_cancer") ? riskDate ?? undefined : undefined,
   });
   const title = s.eligibleNow ? "Screening suggested now" : s.startDate ? `Screening suggested from ${s.startDate}` : "No screening start suggested";
   return (

@@ -2,6 +2,7 @@ import "server-only";
 import { sql as dsql, type SQL } from "drizzle-orm";
 import { db, prepared, type Db, type Tx } from "../client";
 import { auditEvents } from "../schema";
+import { pgArrayLiteral } from "./scope";
 
 export interface AuditInput {
   userId?: string | null;
@@ -53,6 +54,19 @@ const insertAudit = prepared((run) =>
 /** Pass the transaction when the event belongs to a change, so both commit or neither does. */
 export async function recordAudit(e: AuditInput, run: Db | Tx = db): Promise<void> {
   await insertAudit(run, auditValues(e));
+}
+
+/**
+ * Many events in one statement (a bulk change audits each record it changed): one array
+ * parameter per column, turned back into rows by unnest, so the text is the same for any count.
+ */
+export async function recordAudits(events: AuditInput[], run: Db | Tx = db): Promise<void> {
+  if (events.length === 0) return;
+  const v = events.map(auditValues);
+  const col = <K extends keyof ReturnType<typeof auditValues>>(k: K) => pgArrayLiteral(v.map((e) => e[k]));
+  await run.execute(
+    dsql`insert into ${auditEvents} (user_id, site_id, patient_id, action, entity_type, entity_id, ip, detail) select * from unnest(${col("auditUserId")}::text[], ${col("auditSiteId")}::uuid[], ${col("auditPatientId")}::uuid[], ${col("auditAction")}::text[], ${col("auditEntityType")}::text[], ${col("auditEntityId")}::text[], ${col("auditIp")}::text[], ${col("auditDetail")}::jsonb[])`,
+  );
 }
 
 /**

@@ -12,6 +12,8 @@ export interface DueFilter {
   patientId?: string;
   siteId?: string;
   clinicianId?: string;
+  /** Only patients still followed (not inactive or deceased): the worklist and the reminders. */
+  activeOnly?: boolean;
 }
 
 function whereOf(f: DueFilter): SQL | undefined {
@@ -20,6 +22,7 @@ function whereOf(f: DueFilter): SQL | undefined {
     f.patientId ? eq(patients.id, f.patientId) : undefined,
     f.siteId ? eq(patients.siteId, f.siteId) : undefined,
     f.clinicianId ? eq(patients.clinicianId, f.clinicianId) : undefined,
+    f.activeOnly ? eq(patients.status, "active") : undefined,
   );
 }
 

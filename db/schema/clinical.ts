@@ -1,6 +1,7 @@
 import {
   boolean, char, date, doublePrecision, index, integer, jsonb, pgTable, text, timestamp, unique, uniqueIndex, uuid,
 } from "drizzle-orm/pg-core";
+import { sql } from "drizzle-orm";
 import { sites, users } from "./accounts";
 import * as e from "./enums";
 
@@ -16,8 +17,9 @@ export const patients = pgTable(
     sexAtBirth: e.sexEnum("sex_at_birth").notNull(),
     genderIdentity: text("gender_identity"),
     hivStatus: e.hivEnum("hiv_status").notNull().default("unknown"),
-    riskGroup: e.riskGroupEnum("risk_group").notNull().default("other"),
-    /** Date of transplant or of vulvar HSIL diagnosis, where the risk group needs one. */
+    /** IANS 2024 risk groups: a set, since they overlap (HIV and a transplant, say). Empty when none applies. */
+    riskGroups: e.riskGroupEnum("risk_groups").array().notNull().default(sql`'{}'::risk_group[]`),
+    /** Date of transplant or of vulvar HSIL diagnosis, where a risk group needs one. */
     riskDate: date("risk_date"),
     zip: text("zip"),
     contactEmail: text("contact_email"),
@@ -25,6 +27,10 @@ export const patients = pgTable(
     consentResearch: boolean("consent_research").notNull().default(false),
     /** The clinician responsible for follow-up. */
     clinicianId: text("clinician_id").references(() => users.id),
+    /** Active patients are on the worklist; inactive and deceased ones keep their record but leave it. */
+    status: e.patientStatusEnum("status").notNull().default("active"),
+    /** Optimistic-concurrency version of the demographics. */
+    version: integer("version").notNull().default(1),
     nextDueOverride: date("next_due_override"),
     nextDueOverrideReason: text("next_due_override_reason"),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
@@ -32,6 +38,8 @@ export const patients = pgTable(
   (t) => [
     unique("patients_site_mrn").on(t.siteId, t.mrn),
     index("patients_site_name_idx").on(t.siteId, t.familyName, t.givenName),
+    // The duplicate check looks for the same date of birth at a site, then compares names.
+    index("patients_site_dob_idx").on(t.siteId, t.dateOfBirth),
   ],
 );
 

@@ -21,6 +21,7 @@ export const trackCheckEnum = pgEnum("track_check_outcome", v.TRACK_CHECK_OUTCOM
 export const sexEnum = pgEnum("sex_at_birth", v.SEX_AT_BIRTH);
 export const hivEnum = pgEnum("hiv_status", v.HIV_STATUS);
 export const riskGroupEnum = pgEnum("risk_group", v.RISK_GROUPS);
+export const patientStatusEnum = pgEnum("patient_status", v.PATIENT_STATUSES);
 export const complicationEnum = pgEnum("complication_kind", v.COMPLICATION_KINDS);
 export const severityEnum = pgEnum("severity", v.SEVERITIES);
 export const visitStatusEnum = pgEnum("visit_status", v.VISIT_STATUSES);

@@ -32,7 +32,7 @@ async function main() {
       const sid = siteId(p.siteCode);
       const [patient] = await tx.insert(s.patients).values({
         siteId: sid, mrn: p.mrn, familyName: p.familyName, givenName: p.givenName, dateOfBirth: p.dateOfBirth,
-        sexAtBirth: p.sexAtBirth, genderIdentity: p.genderIdentity, hivStatus: p.hivStatus, riskGroup: p.riskGroup,
+        sexAtBirth: p.sexAtBirth, genderIdentity: p.genderIdentity, hivStatus: p.hivStatus, riskGroups: [p.riskGroup],
         zip: p.zip, contactEmail: p.email, consentEmail: p.consentEmail, consentResearch: p.consentResearch,
         clinicianId: p.visits[0]?.examiner,
       }).returning({ id: s.patients.id });

@@ -3,6 +3,9 @@
 import type { Adequacy, Cytology, HpvResult, Position, VisitStatus } from "@/lib/domain/vocab";
 import type { TimelineDto } from "@/lib/timeline/assemble";
 
+/** POST /api/patients/import/check answers an ImportReport; POST /api/patients/import streams ImportEvents. */
+export type { ImportEvent, ImportReport, ImportResult } from "@/lib/patient-import/report";
+
 export type Wire<T> = T extends Date ? string : T extends (infer U)[] ? Wire<U>[] : T extends object ? { [K in keyof T]: Wire<T[K]> } : T;
 
 /** GET /api/patients/:id/timeline */

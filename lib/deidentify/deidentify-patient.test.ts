@@ -13,7 +13,7 @@ const record: IdentifiedPatient = {
   dateOfBirth: "1968-04-17",
   sexAtBirth: "male",
   hivStatus: "positive",
-  riskGroup: "msm_tw_hiv",
+  riskGroups: ["msm_tw_hiv"],
   zip: "10027",
 };
 

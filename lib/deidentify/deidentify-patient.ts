@@ -27,7 +27,7 @@ export interface IdentifiedPatient {
   dateOfBirth: DateInput;
   sexAtBirth: SexAtBirth;
   hivStatus: HivStatus;
-  riskGroup: RiskGroup;
+  riskGroups: readonly RiskGroup[];
   zip?: string | null;
   givenName?: string;
   familyName?: string;
@@ -57,7 +57,7 @@ export interface DeidentifiedPatient {
   ageCategory: string;
   sexAtBirth: SexAtBirth;
   hivStatus: HivStatus;
-  riskGroup: RiskGroup;
+  riskGroups: RiskGroup[];
   zip3: string;
   dateMode: DateMode;
   /** Year of enrolment in year mode; null in offset mode, where enrolment is day 0. */
@@ -80,7 +80,7 @@ export function deidentifyPatient(record: IdentifiedPatient, options: Deidentify
     ageCategory: ageAtEnrolment,
     sexAtBirth: record.sexAtBirth,
     hivStatus: record.hivStatus,
-    riskGroup: record.riskGroup,
+    riskGroups: [...record.riskGroups],
     zip3: zip3(record.zip),
     dateMode,
     enrolmentYear: dateMode === "year" ? yearOnly(enrolmentDate) : null,

@@ -90,6 +90,10 @@ export const RISK_GROUPS = [
 ] as const;
 export type RiskGroup = (typeof RISK_GROUPS)[number];
 
+/** Whether a patient is followed: inactive and deceased patients keep their record but leave the worklist. */
+export const PATIENT_STATUSES = ["active", "inactive", "deceased"] as const;
+export type PatientStatus = (typeof PATIENT_STATUSES)[number];
+
 export const COMPLICATION_KINDS = ["pain", "bleeding", "other"] as const;
 export const SEVERITIES = ["mild", "moderate", "severe"] as const;
 

@@ -53,6 +53,26 @@ function fromStart(startDate: string, today: DateInput, reason: string): Screeni
   return { eligibleNow: dayNumber(today) >= dayNumber(startDate), startDate, reason, caution: SCREENING_CAUTION };
 }
 
+export interface GroupsScreeningInput extends Omit<ScreeningInput, "riskGroup"> {
+  /** Every group that applies; IANS 2024 groups overlap (HIV and a transplant, say). */
+  riskGroups: readonly RiskGroup[];
+}
+
+/**
+ * The suggestion for a person in several groups: the earliest start among them. A group that
+ * qualifies now without a start date (vulvar HSIL, date not recorded) counts as now; when no group
+ * gives a start, the first that asks for a missing date is shown, so the clinician can record it.
+ */
+export function screeningSuggestionForGroups(input: GroupsScreeningInput): ScreeningSuggestion {
+  const { riskGroups, ...rest } = input;
+  const each = (riskGroups.length ? riskGroups : (["other"] as const)).map((riskGroup) => screeningSuggestion({ ...rest, riskGroup }));
+  const rank = (s: ScreeningSuggestion) => (s.startDate ? dayNumber(s.startDate) : s.eligibleNow ? -Infinity : Infinity);
+  const applies = each.filter((s) => s.startDate || s.eligibleNow);
+  if (applies.length) return applies.reduce((best, s) => (rank(s) < rank(best) ? s : best));
+  const missing = each.filter((_, i) => riskGroups[i] === "solid_organ_transplant");
+  return missing[0] ?? each[0]!;
+}
+
 export function screeningSuggestion(input: ScreeningInput): ScreeningSuggestion {
   const { riskGroup, dob, today } = input;
   const group = GROUP_TEXT[riskGroup];

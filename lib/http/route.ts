@@ -66,12 +66,15 @@ export function parseWith<S extends z.ZodType>(schema: S, value: unknown): z.inf
 
 const MAX_JSON_BYTES = 256 * 1024;
 
-/** Reads a JSON body with a size limit and validates it; bad input is a 400 with field messages. */
-export async function readJson<S extends z.ZodType>(req: Request, schema: S): Promise<z.infer<S>> {
+/**
+ * Reads a JSON body with a size limit and validates it; bad input is a 400 with field messages.
+ * A route that takes a file inside its JSON (an import) passes its own limit and message.
+ */
+export async function readJson<S extends z.ZodType>(req: Request, schema: S, limit: { bytes: number; message: string } = { bytes: MAX_JSON_BYTES, message: "The request body is too large." }): Promise<z.infer<S>> {
   const declared = Number(req.headers.get("content-length") ?? 0);
-  if (declared > MAX_JSON_BYTES) throw new AppError("too_large", "The request body is too large.");
+  if (declared > limit.bytes) throw new AppError("too_large", limit.message);
   const text = await req.text();
-  if (text.length > MAX_JSON_BYTES) throw new AppError("too_large", "The request body is too large.");
+  if (text.length > limit.bytes) throw new AppError("too_large", limit.message);
   let value: unknown;
   try {
     value = text.length ? JSON.parse(text) : undefined;

@@ -4,11 +4,11 @@ import { selectWorklist, type WorklistFilters } from "@/lib/due-dates/worklist";
 import { computeDue, todayIso, type PatientDue } from "./due-dates";
 
 export async function listWorklist(scope: SiteScope, f: WorklistFilters, today = todayIso()) {
-  return selectWorklist(await computeDue({ scope, siteId: f.siteId, clinicianId: f.clinicianId }, today), f, today);
+  return selectWorklist(await computeDue({ scope, siteId: f.siteId, clinicianId: f.clinicianId, activeOnly: true }, today), f, today);
 }
 
-/** For the reminders job, across all sites: everyone overdue today. */
+/** For the reminders job, across all sites: everyone still followed who is overdue today. */
 export async function listOverdue(today = todayIso()): Promise<PatientDue[]> {
-  return (await computeDue({}, today)).filter((r) => r.overdueDays > 0);
+  return (await computeDue({ activeOnly: true }, today)).filter((r) => r.overdueDays > 0);
 }
 

@@ -87,6 +87,15 @@ if (ex.data) {
   row("Export workbook (all rows): time / peak RSS", e.workbookStatus === 200 ? `${ms(e.workbookMs)} / ${e.serverPeakRssMbWorkbook} MB` : `status ${e.workbookStatus}`, `VmHWM ${hwmMb ?? "?"} MB`, "", "report", undefined);
 } else missing("Export 200,000 rows", ex.why);
 
+const imp = load("patient-import");
+if (imp.data) {
+  const i = imp.data;
+  const wrote = i.importResult?.created === i.rows && i.reimportResult?.unchanged === i.rows && i.patientsStored === i.rows;
+  row(`Patient import ${i.rows.toLocaleString("en")} CSV rows: check + import`, ms(i.totalMs), "", "", "< 30 s", i.totalMs < 30_000 && wrote);
+  row("Patient import: check / import / same file again", `${ms(i.checkMs)} / ${ms(i.importMs)} / ${ms(i.reimportMs)}`, "", "", "(reported)", undefined);
+  if (!wrote) missing("Patient import: rows written", `expected ${i.rows} created then unchanged; got ${JSON.stringify(i.importResult)} then ${JSON.stringify(i.reimportResult)}`);
+} else missing("Patient import 10,000 rows", imp.why);
+
 const pages = load("pages");
 if (pages.data) {
   const { firstLoadJs: js, lighthouse: lh } = pages.data;
@@ -100,7 +109,7 @@ if (pages.data) {
 } else missing("Pages (first-load JS, Lighthouse)", pages.why);
 
 const results = { when: new Date().toISOString(), elapsedSeconds: Number(elapsed), host: { cores: (await import("node:os")).cpus().length, node: process.version } };
-for (const n of ["api", "map", "sequential", "timeline-queries", "export", "pages", "prepare"]) {
+for (const n of ["api", "map", "sequential", "timeline-queries", "export", "patient-import", "pages", "prepare"]) {
   const p = load(n);
   results[n] = n === "prepare" ? (p.data ? { slots: p.data.slots.length } : { notMeasured: p.why }) : p.data ?? { notMeasured: p.why };
 }

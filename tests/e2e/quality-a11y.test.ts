@@ -81,7 +81,7 @@ afterAll(async () => {
 
 // Page keys per role; the ids are resolved once the demo records are known (beforeAll).
 const PAGES: Record<Role, string[]> = {
-  clinician: ["/patients", "patient", "visit", "timeline", "compare", "/worklist", "/biopsies"],
+  clinician: ["/patients", "patient", "visit", "timeline", "compare", "/worklist", "/biopsies", "/patients/import"],
   reviewer: ["/patients", "patient", "visit", "timeline", "compare", "/worklist", "/quality"],
   admin: ["/patients", "patient", "/biopsies", "/staff", "/audit", "/followup-rules", "/studies", "study", "/quality"],
   research_nurse: ["/studies", "study"],

@@ -43,7 +43,7 @@ describe("SQL de-identification agrees with lib/deidentify", () => {
     const byId = new Map(rows.map((r) => [r.id, r]));
     RECORDS.forEach((r, i) => {
       const ts = deidentifyPatient(
-        { id: ids[i]!, dateOfBirth: r.dob, zip: r.zip, sexAtBirth: "male", hivStatus: "unknown", riskGroup: "other" },
+        { id: ids[i]!, dateOfBirth: r.dob, zip: r.zip, sexAtBirth: "male", hivStatus: "unknown", riskGroups: ["other"] },
         { enrolmentDate: r.enrol, studySubjectId: `S-${i}`, dateMode: "year", asOfDate: AS_OF },
       );
       const got = byId.get(ids[i]!)!;

@@ -20,6 +20,9 @@ export interface RequestSpec {
   noSiteRecord?: string;
 }
 
+// One invented patient with an MRN of its own, in a file as a clinic would export it.
+const importCsv = () => `MRN,Family name,Given name,Date of birth,Sex at birth\nQ-${randomUUID().slice(0, 8)},Invented,Pat,1970-01-01,F\n`;
+
 export const SPECS: Record<string, RequestSpec> = {
   "GET /api/patients": { noSiteRecord: "a list scoped to the caller's sites; checked for leaks below" },
   "GET /api/biopsies/awaiting": { noSiteRecord: "a list scoped to the caller's sites; checked for leaks below" },
@@ -45,6 +48,8 @@ export const SPECS: Record<string, RequestSpec> = {
   "DELETE /api/attachments/[attachmentId]": { body: "none", skipRightRole: "the fixture row has no stored object; deletion is covered by attachments.test.ts" },
   "PATCH /api/biopsies/[biopsyId]": { body: () => ({ histology: "hsil" }) },
   "DELETE /api/biopsies/[biopsyId]": { body: "none" },
+  "POST /api/patients/import/check": { body: (w) => ({ siteId: w.siteA, format: "csv", content: importCsv() }) },
+  "POST /api/patients/import": { body: (w) => ({ siteId: w.siteA, format: "csv", content: importCsv(), acceptValidRows: true }) },
   "POST /api/patients/[patientId]/reviews": { body: (w) => ({ visitId: w.ids.signedVisitId, reviewerId: w.a.reviewer.userId }) },
   "POST /api/patients/[patientId]/visits": { body: () => ({ visitDate: "2026-02-03", patientPosition: "lithotomy" }) },
   "PUT /api/reviews/[reviewId]/adjudications": { body: (w) => ({ trackId: w.ids.trackId, verdict: "agree" }) },

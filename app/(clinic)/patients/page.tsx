@@ -20,7 +20,10 @@ export default async function PatientsPage({ searchParams }: { searchParams: Pro
   return (
     <AppShell user={user}>
       <div className="flex flex-wrap items-end justify-between gap-4">
-        <h1 className="text-2xl font-bold">Patients</h1>
+        <div className="flex flex-wrap items-baseline gap-4">
+          <h1 className="text-2xl font-bold">Patients</h1>
+          {user.role === "clinician" || user.role === "admin" ? <Link href="/patients/import" className="font-semibold text-lagoon-700 underline-offset-2 hover:underline">Import patients…</Link> : null}
+        </div>
         <form role="search" className="flex gap-2" action="/patients">
           <label htmlFor="q" className="sr-only">Search by name or MRN</label>
           <input id="q" name="q" defaultValue={q} placeholder="Name or MRN" className="min-h-11 w-64 rounded-md border border-rule-strong bg-panel px-3" />

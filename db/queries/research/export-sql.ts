@@ -72,10 +72,10 @@ export function outcomesSelect(scope: ExportScope): string {
   const d = (expr: string, name: string) => dateColumn(expr, "enr.consent_date", name, style);
   const person =
     style === "identified"
-      ? `${IDENTITY_COLUMNS}, p.zip, p.sex_at_birth, p.hiv_status, p.risk_group, enr.consent_date AS enrolment_date`
+      ? `${IDENTITY_COLUMNS}, p.zip, p.sex_at_birth, p.hiv_status, array_to_string(p.risk_groups, ';') AS risk_groups, enr.consent_date AS enrolment_date`
       : `dentate_birth_year(p.date_of_birth, enr.consent_date, current_date) AS birth_year,
   dentate_age_category(p.date_of_birth, enr.consent_date) AS age_at_enrolment,
-  p.sex_at_birth, p.hiv_status, p.risk_group, dentate_zip3(p.zip) AS zip3${style === "year" ? ",\n  dentate_year_only(enr.consent_date) AS enrolment_year" : ""}`;
+  p.sex_at_birth, p.hiv_status, array_to_string(p.risk_groups, ';') AS risk_groups, dentate_zip3(p.zip) AS zip3${style === "year" ? ",\n  dentate_year_only(enr.consent_date) AS enrolment_year" : ""}`;
   return `WITH ${baseCtes(scope)}, pv AS (
   SELECT vis.patient_id, vis.visit_date,
     EXISTS (SELECT 1 FROM lesions l LEFT JOIN biopsies b ON b.lesion_id = l.id WHERE l.visit_id = vis.id

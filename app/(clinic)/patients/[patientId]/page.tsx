@@ -51,7 +51,7 @@ export default async function PatientPage({ params }: { params: Promise<{ patien
         </details>
         <details className="rounded-md border border-rule bg-panel px-4 py-2">
           <summary className="min-h-11 cursor-pointer py-2 font-semibold">Screening guidance (IANS 2024)</summary>
-          <ScreeningGuidance riskGroup={patient.riskGroup} dateOfBirth={patient.dateOfBirth} riskDate={patient.riskDate} />
+          <ScreeningGuidance riskGroups={patient.riskGroups} dateOfBirth={patient.dateOfBirth} riskDate={patient.riskDate} />
         </details>
       </div>
       {user.role === "clinician" ? (
