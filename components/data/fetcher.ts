@@ -6,8 +6,11 @@ export class ApiError extends Error {
   readonly status: number;
   readonly code: string;
   readonly fields?: Record<string, string[]>;
-  constructor(status: number, code: string, message: string, fields?: Record<string, string[]>) {
+  /** The whole error object, for answers that carry more (e.g. the candidates of a duplicate warning). */
+  readonly detail?: Record<string, unknown>;
+  constructor(status: number, code: string, message: string, fields?: Record<string, string[]>, detail?: Record<string, unknown>) {
     super(message);
+    this.detail = detail;
     this.name = "ApiError";
     this.status = status;
     this.code = code;
@@ -26,7 +29,7 @@ async function toApiError(res: Response): Promise<ApiError> {
   const code = typeof err?.code === "string" ? err.code : res.status === 0 ? "network" : `http_${res.status}`;
   const message = typeof err?.message === "string" ? err.message : `The server answered ${res.status}.`;
   const fields = err?.fields && typeof err.fields === "object" ? (err.fields as Record<string, string[]>) : undefined;
-  return new ApiError(res.status, code, message, fields);
+  return new ApiError(res.status, code, message, fields, err && typeof err === "object" ? (err as Record<string, unknown>) : undefined);
 }
 
 async function call<T>(url: string, init?: RequestInit): Promise<T> {

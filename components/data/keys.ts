@@ -2,6 +2,8 @@
 // same string everywhere it is read, revalidated or mutated.
 export const api = {
   preferences: "/api/me/preferences",
+  patients: "/api/patients",
+  patient: (patientId: string) => `/api/patients/${patientId}`,
   patientVisits: (patientId: string) => `/api/patients/${patientId}/visits`,
   patientReviews: (patientId: string) => `/api/patients/${patientId}/reviews`,
   timeline: (patientId: string) => `/api/patients/${patientId}/timeline`,

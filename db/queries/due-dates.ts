@@ -1,7 +1,7 @@
 import "server-only";
 // Statements behind due dates: what the rules read of each patient's latest visit, the clinician's
 // own date, and the sites' rule tables. lib/server/due-dates.ts works the dates out.
-import { and, desc, eq, inArray, isNotNull, type SQL } from "drizzle-orm";
+import { and, desc, eq, inArray, isNotNull, sql, type SQL } from "drizzle-orm";
 import { db, type Tx } from "../client";
 import { biopsies, lesions, patients, sites, trackStatuses, treatments, users, visits } from "../schema";
 import { inScope, type SiteScope } from "./scope";
@@ -10,6 +10,8 @@ import { inScope, type SiteScope } from "./scope";
 export interface DueFilter {
   scope?: SiteScope;
   patientId?: string;
+  /** Several patients (a page of the patient list). */
+  patientIds?: readonly string[];
   siteId?: string;
   clinicianId?: string;
   /** Only patients still followed (not inactive or deceased): the worklist and the reminders. */
@@ -20,6 +22,7 @@ function whereOf(f: DueFilter): SQL | undefined {
   return and(
     f.scope ? inScope(patients.siteId, f.scope) : undefined,
     f.patientId ? eq(patients.id, f.patientId) : undefined,
+    f.patientIds ? (f.patientIds.length ? inArray(patients.id, [...f.patientIds]) : sql`false`) : undefined,
     f.siteId ? eq(patients.siteId, f.siteId) : undefined,
     f.clinicianId ? eq(patients.clinicianId, f.clinicianId) : undefined,
     f.activeOnly ? eq(patients.status, "active") : undefined,

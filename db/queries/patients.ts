@@ -147,3 +147,14 @@ export async function updatePatientRow(tx: Tx, patientId: string, set: Partial<P
   const [row] = await tx.update(patients).set({ ...set, version }).where(eq(patients.id, patientId)).returning(editable);
   return row!;
 }
+
+/** Clinicians and administrators of these sites, one row per site they work at (the form's choices). */
+export function cliniciansBySite(siteIds: string[]) {
+  if (siteIds.length === 0) return Promise.resolve([]);
+  return db
+    .select({ id: users.id, displayName: users.displayName, siteId: userSites.siteId })
+    .from(users)
+    .innerJoin(userSites, eq(userSites.userId, users.id))
+    .where(and(inArray(userSites.siteId, siteIds), eq(users.active, true), inArray(users.role, ["clinician", "admin"])))
+    .orderBy(asc(users.displayName));
+}

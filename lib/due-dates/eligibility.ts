@@ -35,7 +35,8 @@ export const SCREENING_START_AGE: Partial<Record<RiskGroup, number>> = {
   persistent_cervical_hpv16: 45,
 };
 
-const GROUP_TEXT: Record<RiskGroup, string> = {
+/** Words for each risk group, for the screens. */
+export const GROUP_TEXT: Record<RiskGroup, string> = {
   msm_tw_hiv: "MSM or transgender woman living with HIV",
   other_hiv: "Living with HIV",
   msm_tw_no_hiv: "MSM or transgender woman without HIV",

@@ -55,7 +55,7 @@ export async function registerPatient(actor: Actor, input: RegisterPatientInput,
       if (fields.clinicianId && !(await isClinicianAtSite(tx, fields.clinicianId, siteId))) throw new AppError("invalid", undefined, CLINICIAN_FIELD);
       if (!confirmDuplicate) {
         const candidates = await similarPatients(tx, siteId, fields.familyName, fields.dateOfBirth);
-        if (candidates.length) return { kind: "possible_duplicate", candidates: candidates.map(({ similarity: _s, ...c }) => c) } as const;
+        if (candidates.length) return { kind: "possible_duplicate", candidates: candidates.map((c) => ({ id: c.id, mrn: c.mrn, familyName: c.familyName, givenName: c.givenName, dateOfBirth: c.dateOfBirth })) } as const;
       }
       const patient = await insertPatient(tx, { siteId, ...(toValues(fields) as Omit<PatientValues, "siteId">) });
       await recordAudit(

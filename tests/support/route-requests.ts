@@ -50,6 +50,11 @@ export const SPECS: Record<string, RequestSpec> = {
   "DELETE /api/biopsies/[biopsyId]": { body: "none" },
   "POST /api/patients/import/check": { body: (w) => ({ siteId: w.siteA, format: "csv", content: importCsv() }) },
   "POST /api/patients/import": { body: (w) => ({ siteId: w.siteA, format: "csv", content: importCsv(), acceptValidRows: true }) },
+  "POST /api/patients": {
+    noSiteRecord: "a new patient at the caller's own site; another site's id is refused (patients.test.ts)",
+    body: (w) => ({ siteId: w.siteA, familyName: "Matrixperson", givenName: "Quinn", dateOfBirth: "1981-02-03", sexAtBirth: "female", mrn: `MX-${randomUUID().slice(0, 8)}`, hivStatus: "unknown", riskGroups: [], confirmDuplicate: true }),
+  },
+  "PATCH /api/patients/[patientId]": { body: () => ({ version: 1, postalCode: "60614" }), skipRightRole: "the version moves with each edit; edits are covered by patients.test.ts" },
   "POST /api/patients/[patientId]/reviews": { body: (w) => ({ visitId: w.ids.signedVisitId, reviewerId: w.a.reviewer.userId }) },
   "POST /api/patients/[patientId]/visits": { body: () => ({ visitDate: "2026-02-03", patientPosition: "lithotomy" }) },
   "PUT /api/reviews/[reviewId]/adjudications": { body: (w) => ({ trackId: w.ids.trackId, verdict: "agree" }) },

@@ -29,7 +29,11 @@ export default async function PatientPage({ params }: { params: Promise<{ patien
       <p className="text-sm"><Link href="/patients" className="text-lagoon-700 underline">Patients</Link> /</p>
       <div className="mt-1 flex flex-wrap items-center gap-3">
         <h1 className="text-2xl font-bold">{patient.familyName}, {patient.givenName}</h1>
+        {patient.status !== "active" ? <span className="rounded border border-rule-strong px-2 py-0.5 text-sm font-semibold text-ink-soft">{patient.status === "deceased" ? "Deceased" : "Inactive: not followed here"}</span> : null}
         <nav aria-label="Patient views" className="no-print ml-auto flex gap-2">
+          {user.role === "clinician" || user.role === "admin" ? (
+            <Link href={`/patients/${patient.id}/edit`} className="inline-flex min-h-11 items-center rounded-md border border-rule-strong bg-panel px-4 font-semibold hover:bg-lagoon-50">Correct details</Link>
+          ) : null}
           <Link href={`/patients/${patient.id}/timeline`} className="inline-flex min-h-11 items-center rounded-md border border-rule-strong bg-panel px-4 font-semibold hover:bg-lagoon-50">Timeline</Link>
           <Link href={`/patients/${patient.id}/compare`} className="inline-flex min-h-11 items-center rounded-md border border-rule-strong bg-panel px-4 font-semibold hover:bg-lagoon-50">Compare visits</Link>
         </nav>
