@@ -31,8 +31,8 @@ const HIV_WORDS = { positive: "Living with HIV", negative: "HIV negative", unkno
 const STATUS_WORDS = { active: "Active: followed on the worklist", inactive: "Inactive: no longer followed here", deceased: "Deceased" } as const;
 const GROUPS = RISK_GROUPS.filter((g) => g !== "other");
 
-export function PatientForm(props: { sites: { id: string; name: string }[]; clinicians: { id: string; displayName: string; siteId: string }[]; patient?: EditedPatient }) {
-  const { sites, clinicians, patient } = props;
+export function PatientForm(props: { sites: { id: string; name: string }[]; clinicians: { id: string; displayName: string; siteId: string }[]; patient?: EditedPatient; me?: string }) {
+  const { sites, clinicians, patient, me } = props;
   const router = useRouter();
   const [message, setMessage] = useState<string | null>(null);
   const [existing, setExisting] = useState<string | null>(null);
@@ -42,7 +42,7 @@ export function PatientForm(props: { sites: { id: string; name: string }[]; clin
     resolver: zodResolver(registerPatientSchema),
     defaultValues: patient
       ? { ...patient, postalCode: patient.postalCode ?? "", contactEmail: patient.contactEmail ?? "", riskDate: patient.riskDate ?? "", clinicianId: patient.clinicianId ?? "" }
-      : { siteId: sites[0]?.id ?? "", familyName: "", givenName: "", dateOfBirth: "", mrn: "", postalCode: "", contactEmail: "", riskDate: "", clinicianId: "", riskGroups: [], hivStatus: "unknown", sexAtBirth: undefined },
+      : { siteId: sites[0]?.id ?? "", familyName: "", givenName: "", dateOfBirth: "", mrn: "", postalCode: "", contactEmail: "", riskDate: "", clinicianId: clinicians.some((c) => c.id === me && c.siteId === sites[0]?.id) ? me : "", riskGroups: [], hivStatus: "unknown", sexAtBirth: undefined },
   });
   const errors = form.formState.errors;
   const siteId = useWatch({ control: form.control, name: "siteId" });
@@ -87,7 +87,7 @@ export function PatientForm(props: { sites: { id: string; name: string }[]; clin
       <fieldset className="grid gap-4 sm:grid-cols-2">
         <legend className="mb-2 text-lg font-bold">Screening</legend>
         <SelectField label="HIV status" error={errors.hivStatus?.message} {...form.register("hivStatus")} options={HIV_STATUS.map((s) => [s, HIV_WORDS[s]])} />
-        <Field label="Transplant or vulvar diagnosis date" hint="if a group below needs it" type="date" error={errors.riskDate?.message} {...form.register("riskDate")} />
+        <Field label="Transplant or vulvar diagnosis date" hint="if needed" type="date" error={errors.riskDate?.message} {...form.register("riskDate")} />
         <div className="sm:col-span-2">
           <p className="text-sm font-semibold">Risk groups (IANS 2024): tick every one that applies</p>
           <div className="mt-1 grid gap-x-4 sm:grid-cols-2">

@@ -38,7 +38,7 @@ export const SCREENING_START_AGE: Partial<Record<RiskGroup, number>> = {
 /** Words for each risk group, for the screens. */
 export const GROUP_TEXT: Record<RiskGroup, string> = {
   msm_tw_hiv: "MSM or transgender woman living with HIV",
-  other_hiv: "Living with HIV",
+  other_hiv: "Other person living with HIV",
   msm_tw_no_hiv: "MSM or transgender woman without HIV",
   solid_organ_transplant: "Solid organ transplant recipient",
   vulvar_hsil_or_cancer: "Vulvar HSIL or vulvar cancer",

@@ -27,6 +27,7 @@ const nameText = (what: string) =>
 const dateOfBirth = z
   .string({ message: "Give the date of birth." })
   .trim()
+  .min(1, "Give the date of birth.")
   .refine(isCalendarDate, "Write the date of birth as a real date, YYYY-MM-DD.")
   .refine((s) => s >= "1900-01-01", "A date of birth before 1900 is not plausible.")
   .refine((s) => s <= todayIso(), "The date of birth is in the future.");
@@ -98,11 +99,21 @@ export const patientFieldsSchema = z.object({
 export type PatientFields = z.output<typeof patientFieldsSchema>;
 export type PatientFieldsInput = z.input<typeof patientFieldsSchema>;
 
+const HIV_GROUPS: readonly string[] = ["msm_tw_hiv", "other_hiv"];
+
+/** A group "living with HIV" with a recorded HIV status other than positive is a slip of the hand. */
+export function hivGroupsAgree(f: { hivStatus?: string; riskGroups?: readonly string[] }): boolean {
+  return !(f.riskGroups ?? []).some((g) => HIV_GROUPS.includes(g)) || f.hivStatus === "positive";
+}
+const HIV_DISAGREES = { message: "A group living with HIV is ticked: set the HIV status to living with HIV, or untick the group.", path: ["riskGroups"] };
+
 /** Registration: the fields, the site, and the user's confirmation after a possible-duplicate warning. */
-export const registerPatientSchema = patientFieldsSchema.extend({
-  siteId: z.string({ message: "Choose the site." }).uuid("Choose the site."),
-  confirmDuplicate: z.boolean().optional(),
-});
+export const registerPatientSchema = patientFieldsSchema
+  .extend({
+    siteId: z.string({ message: "Choose the site." }).uuid("Choose the site."),
+    confirmDuplicate: z.boolean().optional(),
+  })
+  .refine(hivGroupsAgree, HIV_DISAGREES);
 export type RegisterPatientInput = z.output<typeof registerPatientSchema>;
 
 /** An edit: any of the fields, the follow-up status, and the version the form was read at. */

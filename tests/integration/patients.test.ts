@@ -45,6 +45,10 @@ describe("registering a patient", () => {
     expect(res.status).toBe(400);
     const { fields } = (await res.json()).error;
     expect(Object.keys(fields)).toEqual(expect.arrayContaining(["familyName", "dateOfBirth", "sexAtBirth", "mrn", "riskGroups.0", "contactEmail"]));
+    // A group defined by living with HIV (IANS 2024) with another HIV status recorded is refused, not guessed.
+    const hiv = await post(clin, body(site.id, { hivStatus: "negative", riskGroups: ["msm_tw_hiv"] }));
+    expect(hiv.status).toBe(400);
+    expect((await hiv.json()).error.fields.riskGroups[0]).toMatch(/HIV status/);
     expect(await tableChecksums()).toEqual(before);
   });
 

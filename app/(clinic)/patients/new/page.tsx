@@ -17,8 +17,8 @@ export default async function NewPatientPage() {
       <p className="mt-1 max-w-3xl text-sm text-ink-soft">
         Dentate checks the record number and looks for someone already registered with the same date of birth and a similar family name before it saves.
       </p>
-      <div className="mt-4 rounded-lg border border-rule bg-panel p-5">
-        <PatientForm sites={sites.map((s) => ({ id: s.id, name: s.name }))} clinicians={clinicians} />
+      <div className="mt-4 max-w-3xl rounded-lg border border-rule bg-panel p-5">
+        <PatientForm sites={sites.map((s) => ({ id: s.id, name: s.name }))} clinicians={clinicians} me={user.id} />
       </div>
     </AppShell>
   );

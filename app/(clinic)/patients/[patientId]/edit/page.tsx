@@ -27,7 +27,7 @@ export default async function EditPatientPage({ params }: { params: Promise<{ pa
       </p>
       <h1 className="mt-1 text-2xl font-bold">Correct patient details</h1>
       <p className="mt-1 max-w-3xl text-sm text-ink-soft">Every change is kept in the audit trail with the old and the new value. An inactive or deceased patient leaves the worklist and the reminders; the record stays.</p>
-      <div className="mt-4 rounded-lg border border-rule bg-panel p-5">
+      <div className="mt-4 max-w-3xl rounded-lg border border-rule bg-panel p-5">
         <PatientForm sites={sites.map((s) => ({ id: s.id, name: s.name }))} clinicians={clinicians} patient={{
           id: patient.id, siteId: patient.siteId, familyName: patient.familyName, givenName: patient.givenName, dateOfBirth: patient.dateOfBirth,
           sexAtBirth: patient.sexAtBirth, mrn: patient.mrn, postalCode: patient.postalCode, hivStatus: patient.hivStatus, riskGroups: patient.riskGroups,
