@@ -18,7 +18,7 @@ const searchSchema = z.object({
 
 const COLUMNS: { key: PatientSort; label: string; numeric?: boolean }[] = [
   { key: "name", label: "Name" },
-  { key: "mrn", label: "Record" },
+  { key: "mrn", label: "MRN" },
   { key: "lastVisit", label: "Last visit", numeric: true },
   { key: "nextDue", label: "Next due", numeric: true },
   { key: "grade", label: "Worst current grade" },
@@ -42,8 +42,8 @@ export default async function PatientsPage({ searchParams }: { searchParams: Pro
         </div>
         <div className="flex flex-wrap gap-2">
           <form role="search" className="flex gap-2" action="/patients">
-            <label htmlFor="q" className="sr-only">Search by name or record number</label>
-            <input id="q" name="q" defaultValue={q} placeholder="Name or record number" className="min-h-11 w-64 rounded-md border border-rule-strong bg-panel px-3" />
+            <label htmlFor="q" className="sr-only">Search by name or MRN</label>
+            <input id="q" name="q" defaultValue={q} placeholder="Name or MRN" className="min-h-11 w-64 rounded-md border border-rule-strong bg-panel px-3" />
             <input type="hidden" name="sort" value={sort} />
             <input type="hidden" name="dir" value={dir} />
             <button className="min-h-11 rounded-md border border-rule-strong bg-panel px-4 font-semibold hover:bg-lagoon-50">Search</button>
