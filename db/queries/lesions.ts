@@ -5,7 +5,8 @@ import { biopsies, lesions, lesionTracks, treatments } from "../schema";
 import { inScopeParam, siteIdsParam, type SiteScope } from "./scope";
 import { loadVisitAudited } from "./visit-access";
 import type { ReadAudit } from "./audit-write";
-import { HISTOLOGY, type Histology } from "@/lib/domain/vocab";
+import type { Histology } from "@/lib/domain/vocab";
+import { worstHistology } from "@/lib/tracking/histories";
 import type { LesionDto, VisitMapDto } from "@/lib/validation/lesions";
 
 const lesionColumns = {
@@ -42,10 +43,7 @@ const lesionColumnsOfRow = Object.fromEntries(Object.entries(lesionColumns).filt
 type DecoratedRow = LesionRow & { biopsyLabels: string[]; histologies: string[]; treated: boolean };
 
 function toDto({ histologies, ...r }: DecoratedRow): LesionDto {
-  // The worst histology among the lesion's biopsies decides.
-  let histology: Histology | null = null;
-  for (const h of histologies as Histology[]) if (!histology || HISTOLOGY.indexOf(h) > HISTOLOGY.indexOf(histology)) histology = h;
-  return { ...r, vessels: r.vessels as LesionDto["vessels"], histology };
+  return { ...r, vessels: r.vessels as LesionDto["vessels"], histology: worstHistology(histologies as Histology[]) };
 }
 
 const selectLesions = (run: typeof db | Tx) => run.select({ ...lesionColumns, ...decorationColumns }).from(lesions).leftJoin(lesionTracks, eq(lesionTracks.id, lesions.trackId));

@@ -3,11 +3,9 @@ import { db, type Db, type Tx } from "@/db/client";
 import { codingRowsOfVisit, confirmedDiagnosesOfVisit, deleteDiagnosisRow, insertDiagnosis } from "@/db/queries/diagnoses";
 import type { SiteScope } from "@/db/queries/scope";
 import { AppError } from "@/lib/errors";
-import { HISTOLOGY, type Histology } from "@/lib/domain/vocab";
+import { worstHistology } from "@/lib/tracking/histories";
 import { codingCautions, suggestCodes, type CodingInput, type CodingLesion } from "@/lib/codes";
 import { changeDraftVisit, readVisitPart } from "./visit-parts";
-
-const RANK = Object.fromEntries(HISTOLOGY.map((h, i) => [h, i])) as Record<Histology, number>;
 
 /**
  * The visit's findings in the shape lib/codes reads: each lesion with its worst histology
@@ -16,9 +14,9 @@ const RANK = Object.fromEntries(HISTOLOGY.map((h, i) => [h, i])) as Record<Histo
 async function codingInput(run: Db | Tx, visitId: string): Promise<CodingInput> {
   const { visit: v, lesions: lesionRows, biopsies: biopsyRows } = await codingRowsOfVisit(run, visitId);
   const coded: CodingLesion[] = lesionRows.map((l) => {
-    const worst = biopsyRows
-      .filter((b) => b.lesionId === l.id && b.histology)
-      .sort((a, b) => RANK[b.histology!] - RANK[a.histology!])[0];
+    const mine = biopsyRows.filter((b) => b.lesionId === l.id && b.histology);
+    const worstResult = worstHistology(mine.map((b) => b.histology));
+    const worst = mine.find((b) => b.histology === worstResult);
     return {
       grade: l.grade,
       distanceStartCm: l.distanceStartCm,

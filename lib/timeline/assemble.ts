@@ -1,8 +1,9 @@
 // The timeline and compare screens' view of one patient, worked out from the rows the timeline
 // statement reads: each lesion's worst histology and effective grade (histology decides), and per
 // visit the lesion counts by grade and the treated share of the circumference.
-import { HISTOLOGY, HISTOLOGY_AS_GRADE, type Grade, type Histology, type Modality, type Position, type TrackCheckOutcome, type TrackStatus, type VisitStatus, type Zone } from "@/lib/domain/vocab";
+import { HISTOLOGY_AS_GRADE, type Grade, type Histology, type Modality, type Position, type TrackCheckOutcome, type TrackStatus, type VisitStatus, type Zone } from "@/lib/domain/vocab";
 import { unionLengthH } from "@/lib/geometry/arcs";
+import { worseHistology } from "@/lib/tracking/histories";
 
 export interface TimelineRows {
   patient: { id: string; siteId: string; familyName: string; givenName: string; mrn: string };
@@ -31,8 +32,7 @@ export function assembleTimeline(rows: TimelineRows) {
   for (const b of biopsyRows) {
     if (!b.lesionId) continue;
     biopsyLabels.set(b.lesionId, [...(biopsyLabels.get(b.lesionId) ?? []), b.label]);
-    const prev = histologyByLesion.get(b.lesionId);
-    if (b.histology && (!prev || HISTOLOGY.indexOf(b.histology) > HISTOLOGY.indexOf(prev))) histologyByLesion.set(b.lesionId, b.histology);
+    if (b.histology) histologyByLesion.set(b.lesionId, worseHistology(histologyByLesion.get(b.lesionId), b.histology)!);
   }
   const treatedLesions = new Set(treatmentRows.map((t) => t.lesionId).filter(Boolean));
   const lesionDtos = lesionRows.map((l) => {

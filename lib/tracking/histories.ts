@@ -15,13 +15,24 @@ export interface HistoryRows {
 
 const HISTOLOGY_RANK = Object.fromEntries(HISTOLOGY.map((h, i) => [h, i])) as Record<Histology, number>;
 
+/** Of two results, the worse (HISTOLOGY runs from benign to carcinoma); null counts as no result. */
+export function worseHistology(a: Histology | null | undefined, b: Histology | null | undefined): Histology | null {
+  if (!a) return b ?? null;
+  if (!b) return a;
+  return HISTOLOGY_RANK[b] > HISTOLOGY_RANK[a] ? b : a;
+}
+
+/** The worst of a lesion's biopsy results: the worst decides its grade. */
+export function worstHistology(results: readonly (Histology | null | undefined)[]): Histology | null {
+  return results.reduce<Histology | null>((worst, h) => worseHistology(worst, h), null);
+}
+
 /** The worst histology among each lesion's biopsies (the worst decides). */
 export function worstHistologyByLesion(rows: { lesionId: string | null; histology: Histology | null }[]): Map<string, Histology> {
   const out = new Map<string, Histology>();
   for (const b of rows) {
     if (!b.lesionId || !b.histology) continue;
-    const prev = out.get(b.lesionId);
-    if (!prev || HISTOLOGY_RANK[b.histology] > HISTOLOGY_RANK[prev]) out.set(b.lesionId, b.histology);
+    out.set(b.lesionId, worseHistology(out.get(b.lesionId), b.histology)!);
   }
   return out;
 }

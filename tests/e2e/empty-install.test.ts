@@ -9,6 +9,7 @@ import postgres from "postgres";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { BrowserContext, Page } from "playwright-core";
 import { BASE_URL, launch, mapPoint, screenshot } from "./browser";
+import { dropTestDatabase } from "../support/drop-database";
 
 const ROOT = path.resolve(__dirname, "../..");
 const PORT = Number(new URL(BASE_URL).port || 80) + 20;
@@ -86,7 +87,7 @@ afterAll(async () => {
     } catch {}
   }
   await new Promise((r) => setTimeout(r, 1_000));
-  await admin?.unsafe(`drop database if exists ${DB} with (force)`);
+  if (admin) await dropTestDatabase(admin, DB);
   await admin?.end();
 });
 

@@ -8,6 +8,7 @@ import { afterAll, afterEach, beforeAll, describe, expect, it } from "vitest";
 import { GET as listLesions } from "@/app/api/visits/[visitId]/lesions/route";
 import { servableRefusal } from "@/lib/auth/servable";
 import { actor, ctx, makeSite, req } from "../fixtures/factory";
+import { dropTestDatabase } from "../support/drop-database";
 
 const ROOT = path.resolve(__dirname, "../..");
 const EMPTY_DB = `dentate_empty_${process.pid}_${Date.now() % 1_000_000}`;
@@ -30,7 +31,7 @@ beforeAll(async () => {
 }, 120_000);
 afterAll(async () => {
   await empty?.end();
-  await admin?.unsafe(`drop database if exists ${EMPTY_DB} with (force)`);
+  if (admin) await dropTestDatabase(admin, EMPTY_DB);
   await admin?.end();
 });
 

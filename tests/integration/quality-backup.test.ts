@@ -9,6 +9,7 @@ import { tmpdir } from "node:os";
 import path from "node:path";
 import postgres from "postgres";
 import { afterAll, describe, expect, it } from "vitest";
+import { dropTestDatabase } from "../support/drop-database";
 
 const SOURCE_URL = process.env.DATABASE_URL!;
 const ROOT = path.resolve(__dirname, "../..");
@@ -55,17 +56,7 @@ let restored: postgres.Sql | null = null;
 
 afterAll(async () => {
   await restored?.end({ timeout: 5 });
-  // Autovacuum (a superuser process we may not signal) can be analysing the freshly restored
-  // database for a moment: retry the drop briefly rather than fail the suite on cleanup.
-  for (let attempt = 0; attempt < 20; attempt++) {
-    try {
-      await admin.unsafe(`drop database if exists "${RESTORED_DB}" with (force)`);
-      break;
-    } catch (err) {
-      if (attempt === 19) console.warn(`could not drop ${RESTORED_DB}:`, (err as Error).message);
-      await new Promise((r) => setTimeout(r, 500));
-    }
-  }
+  await dropTestDatabase(admin, RESTORED_DB);
   await admin.end({ timeout: 5 });
   rmSync(workDir, { recursive: true, force: true });
 });
