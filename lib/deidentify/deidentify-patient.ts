@@ -3,7 +3,7 @@
 import type { RiskGroup } from "@/lib/domain/vocab";
 import { HIV_STATUS, SEX_AT_BIRTH } from "@/lib/domain/vocab";
 import type { DateInput } from "@/lib/dates/calendar";
-import { AGE_OVER_89, MAX_REPORTABLE_AGE, ageCategory, ageInYears, yearOnly, zip3, type DateMode } from "./safe-harbor";
+import { ageCategory, reportableBirthYear, yearOnly, zip3, type DateMode } from "./safe-harbor";
 
 export type SexAtBirth = (typeof SEX_AT_BIRTH)[number];
 export type HivStatus = (typeof HIV_STATUS)[number];
@@ -72,11 +72,9 @@ export function deidentifyPatient(record: IdentifiedPatient, options: Deidentify
     if (own && studySubjectId.includes(own)) throw new Error("studySubjectId must not contain the MRN or record id");
   }
   const ageAtEnrolment = ageCategory(record.dateOfBirth, enrolmentDate);
-  const overAtExport = options.asOfDate ? ageInYears(record.dateOfBirth, options.asOfDate) > MAX_REPORTABLE_AGE : false;
-  const withholdYear = ageAtEnrolment === AGE_OVER_89 || overAtExport;
   return {
     studySubjectId,
-    birthYear: withholdYear ? null : yearOnly(record.dateOfBirth),
+    birthYear: reportableBirthYear(record.dateOfBirth, enrolmentDate, options.asOfDate),
     ageCategory: ageAtEnrolment,
     sexAtBirth: record.sexAtBirth,
     hivStatus: record.hivStatus,

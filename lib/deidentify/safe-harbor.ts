@@ -42,6 +42,19 @@ export function yearOnly(date: DateInput): number {
   return toCalendarDate(date).year;
 }
 
+/**
+ * The birth year a de-identified record may carry, or null. 45 CFR 164.514(b)(2)(i)(C): every
+ * element of a date, the year included, that indicates an age over 89 is aggregated into one
+ * category, so the year is withheld when the patient is over 89 at enrolment or at the export date.
+ * Every de-identified output (CSV, workbook, FHIR) uses this one rule; SQL mirrors it in
+ * dentate_birth_year (db/migrations/0002_deidentify_functions.sql).
+ */
+export function reportableBirthYear(dob: DateInput, enrolledOn: DateInput, asOf?: DateInput): number | null {
+  const overAt = (d: DateInput) => fullYearsBetween(dob, d) > MAX_REPORTABLE_AGE;
+  if (overAt(enrolledOn) || (asOf !== undefined && overAt(asOf))) return null;
+  return yearOnly(dob);
+}
+
 /** Whole days from the anchor (for example enrolment) to the date; negative before the anchor. */
 export function dayOffset(date: DateInput, anchorDate: DateInput): number {
   return daysBetween(anchorDate, date);

@@ -100,13 +100,30 @@ export const SEVERITIES = ["mild", "moderate", "severe"] as const;
 export const VISIT_STATUSES = ["draft", "signed"] as const;
 export type VisitStatus = (typeof VISIT_STATUSES)[number];
 
-/** Rank of a grade for progression and regression (higher is worse). Common practice, no source. */
+/**
+ * Order of grades for showing the worst finding (higher is worse): LSIL is named before condyloma
+ * because it says more. Common practice, no source. Progression and regression use GRADE_TIER.
+ */
 export const GRADE_RANK: Record<Grade, number> = {
   benign: 0,
   condyloma: 1,
   lsil: 2,
   hsil: 3,
   suspected_cancer: 4,
+};
+
+/**
+ * Tier of a grade for progression, regression and follow-up intervals. Condyloma is a low-grade
+ * squamous intraepithelial lesion under LAST (Darragh TM et al., Arch Pathol Lab Med
+ * 2012;136:1266-97), so condyloma and LSIL are one tier: a change between them is neither
+ * progression nor regression.
+ */
+export const GRADE_TIER: Record<Grade, number> = {
+  benign: 0,
+  condyloma: 1,
+  lsil: 1,
+  hsil: 2,
+  suspected_cancer: 3,
 };
 
 export const ROLE_LABEL: Record<Role, string> = {

@@ -1,7 +1,7 @@
 // When the next examination is due. The intervals are defaults a site can change; they are
 // guidance for scheduling, and the clinician's own date always wins.
 import { z } from "zod";
-import { GRADE_RANK, HISTOLOGY_AS_GRADE, type Cytology, type Grade, type Histology } from "@/lib/domain/vocab";
+import { GRADE_RANK, GRADE_TIER, HISTOLOGY_AS_GRADE, type Cytology, type Grade, type Histology } from "@/lib/domain/vocab";
 import { addMonths, daysBetween, isoDate, type DateInput } from "@/lib/dates/calendar";
 
 export const FOLLOWUP_RULE_KEYS = [
@@ -102,8 +102,8 @@ export function selectRule(findings: FindingsSummary): FollowupRuleKey {
   if (worst === "suspected_cancer") return "suspected_cancer";
   if (findings.treatedHsil) return "after_hsil_treatment";
   if (worst === "hsil") return "hsil_untreated";
-  // Condyloma is low grade in LAST terms (from memory), so it follows the LSIL interval.
-  if (worst === "lsil" || worst === "condyloma") return "lsil_only";
+  // Condyloma and LSIL are one low-grade tier (LAST; GRADE_TIER), so both follow the LSIL interval.
+  if (worst !== null && GRADE_TIER[worst] === GRADE_TIER.lsil) return "lsil_only";
   if (findings.cytology && ABNORMAL_CYTOLOGY.has(findings.cytology)) return "abnormal_cytology_normal_exam";
   return "clear_exam";
 }

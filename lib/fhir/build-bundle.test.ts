@@ -106,7 +106,7 @@ describe("buildPatientBundle", () => {
 });
 
 describe("buildPatientBundle, de-identified", () => {
-  const bundle = buildPatientBundle(input, { deidentified: { studySubjectId: "S-0099" } });
+  const bundle = buildPatientBundle(input, { deidentified: { studySubjectId: "S-0099", enrolmentDate: "2024-01-10" } });
   const json = JSON.stringify(bundle);
 
   it("drops names, MRN and full dates (45 CFR 164.514(b)(2))", () => {
@@ -125,5 +125,26 @@ describe("buildPatientBundle, de-identified", () => {
   it("derives ids that do not match the identified export", () => {
     const identified = new Set(buildPatientBundle(input).entry.map((e) => e.fullUrl));
     for (const e of bundle.entry) expect(identified.has(e.fullUrl)).toBe(false);
+  });
+});
+
+describe("buildPatientBundle, de-identified, a patient over 89", () => {
+  // 45 CFR 164.514(b)(2)(i)(C): ages over 89 and all elements of dates (including year) indicative of
+  // such age are aggregated into one category, so the bundle carries no birth year at all.
+  const old = { ...input, patient: { ...input.patient, dateOfBirth: "1930-03-02" } };
+
+  it("writes no birthDate when the patient is 90 at enrolment", () => {
+    const b = buildPatientBundle(old, { deidentified: { studySubjectId: "S-0100", enrolmentDate: "2024-01-10" } });
+    expect(ofType(b, "Patient")[0].birthDate).toBeUndefined();
+    expect(JSON.stringify(b)).not.toContain("1930");
+  });
+
+  it("writes no birthDate when the patient turned 90 after enrolment, by the export date", () => {
+    // Born 1934-06-01: 89 at enrolment on 2024-01-10, 90 on the export date 2024-06-02.
+    const turned = { ...input, patient: { ...input.patient, dateOfBirth: "1934-06-01" } };
+    const atEnrolment = buildPatientBundle(turned, { deidentified: { studySubjectId: "S-0101", enrolmentDate: "2024-01-10", asOfDate: "2024-05-31" } });
+    expect(ofType(atEnrolment, "Patient")[0].birthDate).toBe("1934");
+    const later = buildPatientBundle(turned, { deidentified: { studySubjectId: "S-0101", enrolmentDate: "2024-01-10", asOfDate: "2024-06-02" } });
+    expect(ofType(later, "Patient")[0].birthDate).toBeUndefined();
   });
 });

@@ -1,6 +1,6 @@
 // One patient's registry record as a FHIR R4 collection Bundle. Entries use urn:uuid fullUrls
 // so the bundle is self-contained: references resolve inside it, no server ids needed.
-import { yearOnly } from "@/lib/deidentify/safe-harbor";
+import { reportableBirthYear, yearOnly } from "@/lib/deidentify/safe-harbor";
 import { buildBodyStructure } from "./body-structure";
 import {
   buildBiopsyProcedure,
@@ -29,7 +29,11 @@ function compact<T>(value: T): T {
 function buildPatient(patient: BundlePatient, id: string, options: BundleOptions): FhirResource {
   const birthSex = { url: BIRTH_SEX_EXTENSION, valueCode: BIRTH_SEX_CODE[patient.sexAtBirth] };
   if (options.deidentified) {
-    const birthYear = patient.birthYear ?? (patient.dateOfBirth ? yearOnly(patient.dateOfBirth) : undefined);
+    const { enrolmentDate, asOfDate } = options.deidentified;
+    // Safe Harbor: the one rule shared with the CSV and workbook exports (over 89: no year at all).
+    const birthYear = patient.dateOfBirth
+      ? (reportableBirthYear(patient.dateOfBirth, enrolmentDate, asOfDate) ?? undefined)
+      : undefined;
     return {
       resourceType: "Patient",
       id,

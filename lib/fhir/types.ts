@@ -66,8 +66,11 @@ export interface PatientBundleInput {
 }
 
 export interface BundleOptions {
-  /** Safe Harbor mode: no name, MRN or full dates; every date becomes its year. */
-  deidentified?: { studySubjectId: string };
+  /**
+   * Safe Harbor mode: no name, MRN or full dates; every date becomes its year, and the birth year
+   * is left out for a patient over 89 at enrolment or on `asOfDate` (reportableBirthYear).
+   */
+  deidentified?: { studySubjectId: string; enrolmentDate: string; asOfDate?: string };
   /** Timestamp for Bundle.timestamp; passed in so the mapping stays pure. */
   timestamp?: string;
 }

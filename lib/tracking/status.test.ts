@@ -104,3 +104,17 @@ describe("histology decides the grade", () => {
     expect(statuses([seen("2023-01-10", "lsil"), seen("2023-07-10", "lsil", histology("hsil"))])).toEqual(["new", "progressed"]);
   });
 });
+
+describe("condyloma and LSIL are one tier", () => {
+  // LAST (Darragh TM et al., Arch Pathol Lab Med 2012;136:1266-97): condyloma is a low-grade squamous
+  // intraepithelial lesion, so condyloma -> LSIL and LSIL -> condyloma are neither progression nor regression.
+  it("condyloma then LSIL is persistent, not progressed", () => {
+    expect(statuses([seen("2023-01-10", "condyloma"), seen("2023-07-10", "lsil")])).toEqual(["new", "persistent"]);
+  });
+  it("LSIL then condyloma is persistent, not regressed", () => {
+    expect(statuses([seen("2023-01-10", "lsil"), seen("2023-07-10", "condyloma")])).toEqual(["new", "persistent"]);
+  });
+  it("condyloma then HSIL is still progressed (LAST: HSIL is the higher tier)", () => {
+    expect(statuses([seen("2023-01-10", "condyloma"), seen("2023-07-10", "hsil")])).toEqual(["new", "progressed"]);
+  });
+});

@@ -5,7 +5,7 @@
 // - resolution judged at follow-up after treatment, recurrence at later visits (Richel O et al.,
 //   Lancet Oncol 2013;14:346-53);
 // - "recurrent" = found again after a documented clear visit: common practice, no single source.
-import { GRADE_RANK, type Grade, type Histology, type TrackStatus } from "@/lib/domain/vocab";
+import { GRADE_TIER, type Grade, type Histology, type TrackStatus } from "@/lib/domain/vocab";
 import { decideGrade, gradeWords, isDiseased } from "./effective-grade";
 
 export interface TrackObservation {
@@ -40,8 +40,9 @@ const nameOf = (o: TrackObservation) => o.visitLabel ?? o.visitDate;
 const gradeOrUnknown = (g: Grade | null) => (g ? gradeWords(g) : "a lesion of unrecorded grade");
 
 function compareStatus(now: Grade | null, before: Grade | null): "persistent" | "progressed" | "regressed" {
-  if (!now || !before || GRADE_RANK[now] === GRADE_RANK[before]) return "persistent";
-  return GRADE_RANK[now] > GRADE_RANK[before] ? "progressed" : "regressed";
+  // One tier per LAST grade: condyloma and LSIL are both low grade (GRADE_TIER).
+  if (!now || !before || GRADE_TIER[now] === GRADE_TIER[before]) return "persistent";
+  return GRADE_TIER[now] > GRADE_TIER[before] ? "progressed" : "regressed";
 }
 
 /** Returns one entry per observation, in date order (ties keep their given order). */

@@ -1,6 +1,6 @@
 // What changed between two visits of one patient, track by track, for the compare screen.
 // Identity comes from the track (the clinician confirmed it); geometry only decides "moved".
-import { GRADE_LABEL, GRADE_RANK, type Grade } from "@/lib/domain/vocab";
+import { GRADE_LABEL, GRADE_TIER, type Grade } from "@/lib/domain/vocab";
 import { arcMidpointH, describeSite, formatClock, toDisplayHours, type DisplayConvention } from "@/lib/geometry";
 
 export interface DiffLesion {
@@ -95,7 +95,9 @@ export function diffVisits(earlier: readonly DiffLesion[], later: readonly DiffL
     const a = after.get(key);
     if (!a) continue;
     if (a.grade !== b.grade) {
-      const dir = GRADE_RANK[a.grade] > GRADE_RANK[b.grade] ? "higher" : "lower";
+      // Same LAST tier (condyloma and LSIL): a change of word, not of grade tier.
+      const dir =
+        GRADE_TIER[a.grade] === GRADE_TIER[b.grade] ? "same tier" : GRADE_TIER[a.grade] > GRADE_TIER[b.grade] ? "higher" : "lower";
       out.push({ kind: "grade", key, trackId: a.trackId, name: a.name, before: b, after: a, words: `${a.name} changed grade from ${GRADE_LABEL[b.grade]} to ${GRADE_LABEL[a.grade]} (${dir}).` });
     }
     const dH = clockShiftH(midH(b), midH(a));

@@ -5,6 +5,7 @@ import { scopeOf } from "@/lib/auth/guard";
 import { AppError } from "@/lib/errors";
 import { buildPatientBundle } from "@/lib/fhir";
 import { idParam, json, route } from "@/lib/http/route";
+import { isoDate } from "@/lib/dates/calendar";
 import { studySubjectIdSchema } from "@/lib/validation/research";
 
 /**
@@ -19,7 +20,9 @@ export const GET = route<{ studyId: string; subjectId: string }>({ roles: ["rese
   if (!enrolment) throw new AppError("not_found");
   const input = await loadPatientBundleInput(enrolment.patientId, enrolment.siteId, { beforeDate: enrolment.withdrawnOn });
   if (!input) throw new AppError("not_found");
-  const bundle = buildPatientBundle(input, { deidentified: { studySubjectId: enrolment.studySubjectId } });
+  const bundle = buildPatientBundle(input, {
+    deidentified: { studySubjectId: enrolment.studySubjectId, enrolmentDate: enrolment.consentDate, asOfDate: isoDate(new Date()) },
+  });
   await recordAudit({ userId: user.id, ip, siteId: enrolment.siteId, patientId: enrolment.patientId, action: "fhir.export.deidentified", entityType: "enrolment", entityId: enrolment.id, detail: { studyId, resources: bundle.entry.length } });
   return json(bundle, 200, { "content-type": "application/fhir+json; charset=utf-8" });
 });
