@@ -21,7 +21,7 @@ export async function readDashboardRows(studyId: string, siteIds: string[]) {
       (SELECT count(*)::int FROM vis) AS visits,
       (SELECT count(*)::int FROM vis JOIN lesions l ON l.visit_id = vis.id) AS lesions`);
   const gradeRows = await sql.unsafe<{ quarter: string; grade: Grade; n: number }[]>(`WITH ${ctes}
-    SELECT to_char(vis.visit_date, 'YYYY "Q"Q') AS quarter, l.grade, count(*)::int AS n
+    SELECT to_char(vis.visit_date, 'YYYY "Q"Q') AS quarter, dentate_lesion_grade(l.id, l.grade) AS grade, count(*)::int AS n
     FROM vis JOIN lesions l ON l.visit_id = vis.id GROUP BY 1, 2 ORDER BY 1`);
   // A treated lesion is followed when the patient has a later exported visit; cleared when its
   // track's status there is cleared or regressed (lib/tracking decided and stored it).
