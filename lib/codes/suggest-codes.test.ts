@@ -22,16 +22,26 @@ describe("suggestCodes from histology", () => {
   });
   it("codes HSIL on perianal skin as D04.5, not D01.3", () => {
     // D01.3 excludes carcinoma in situ of anal margin / perianal skin (D04.5), CMS ICD-10-CM.
-    const s = suggestCodes({ lesions: [canal({ histology: "hsil", distanceStartCm: -1.5 })] });
+    const s = suggestCodes({ lesions: [canal({ histology: "hsil", ain: "ain3", distanceStartCm: -1.5 })] });
     expect(codes(s)).toEqual(["D04.5"]);
     expect(s[0].descriptor).toBe("Carcinoma in situ of skin of trunk"); // CMS code file (descriptor checked against a public copy)
   });
   it("codes both sites for HSIL that crosses the verge", () => {
-    expect(codes(suggestCodes({ lesions: [canal({ histology: "hsil", distanceStartCm: -1, distanceEndCm: 1 })] }))).toEqual(["D01.3", "D04.5"]);
+    expect(codes(suggestCodes({ lesions: [canal({ histology: "hsil", ain: "ain3", distanceStartCm: -1, distanceEndCm: 1 })] }))).toEqual(["D01.3", "D04.5"]);
   });
   it("follows the ICD class of AIN II even when LAST calls it HSIL", () => {
     // K62.82 covers AIN I and II; D01.3 covers AIN III (CMS ICD-10-CM).
     expect(codes(suggestCodes({ lesions: [canal({ histology: "hsil", ain: "ain2", p16: "block_positive" })] }))).toEqual(["K62.82"]);
+  });
+  it("suggests no code for HSIL without an AIN grade and asks for the grade", () => {
+    // One LAST tier, two ICD-10-CM codes: K62.82 = AIN I-II, D01.3 = AIN III (CMS ICD-10-CM), so the
+    // grade must be known before either is suggested.
+    const input = { lesions: [canal({ histology: "hsil" })] };
+    expect(suggestCodes(input)).toEqual([]);
+    expect(codingCautions(input).join(" ")).toMatch(/without an AIN grade.*AIN II or AIN III/);
+  });
+  it("still codes LSIL without an AIN grade as K62.82 (LAST LSIL = AIN I)", () => {
+    expect(codes(suggestCodes({ lesions: [canal({ grade: "lsil", histology: "lsil" })] }))).toEqual(["K62.82"]);
   });
   it("lets histology override the impression", () => {
     expect(suggestCodes({ lesions: [canal({ grade: "hsil", histology: "benign" })] })).toEqual([]);
@@ -71,7 +81,7 @@ describe("suggestCodes from cytology and HPV", () => {
   });
   it("lists a code once however many lesions lead to it", () => {
     const s = suggestCodes({
-      lesions: [canal({ histology: "hsil", ain: "ain3" }), canal({ histology: "hsil", distanceStartCm: 3 })],
+      lesions: [canal({ histology: "hsil", ain: "ain3" }), canal({ histology: "hsil", ain: "ain3", distanceStartCm: 3 })],
       cytology: "hsil",
       hpv: "hr_positive_other",
     });

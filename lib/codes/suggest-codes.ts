@@ -74,9 +74,12 @@ function lesionCodes(lesion: CodingLesion): { key: IcdCodeKey; why: string }[] {
       return canal ? [{ key: "C21.1", why: "Histology: squamous cell carcinoma in the anal canal" }] : [];
     case "lsil":
     case "hsil": {
-      // ICD-10-CM classes by the AIN grade where one is given: K62.82 covers AIN I and II,
-      // D01.3 covers AIN III (CMS ICD-10-CM). Without an AIN grade the LAST tier decides.
-      const severe = lesion.ain ? lesion.ain === "ain3" : lesion.histology === "hsil";
+      // ICD-10-CM classes by the AIN grade: K62.82 covers AIN I and II, D01.3 covers AIN III
+      // (CMS ICD-10-CM). LSIL is AIN I (or p16-negative AIN II) under LAST, so K62.82 either way;
+      // HSIL may be AIN II or AIN III, so without the AIN grade nothing is suggested and
+      // codingCautions asks for the grade.
+      if (lesion.histology === "hsil" && !lesion.ain) return [];
+      const severe = lesion.ain ? lesion.ain === "ain3" : false;
       const label = lesion.ain
         ? `${lesion.ain.toUpperCase()} (${lastFromAin(lesion.ain, lesion.p16).toUpperCase()})`
         : lesion.histology.toUpperCase();
@@ -115,6 +118,9 @@ export function codingCautions(input: CodingInput): string[] {
   for (const lesion of input.lesions) {
     if (lesion.grade === "suspected_cancer" && !lesion.histology) {
       cautions.push("Suspected cancer at examination: confirm by histology before any malignancy code (C21.-).");
+    }
+    if (lesion.histology === "hsil" && !lesion.ain) {
+      cautions.push("HSIL on histology without an AIN grade: record AIN II or AIN III to code it (K62.82 covers AIN I–II, D01.3 AIN III).");
     }
     if (lesion.histology === "scc" && sites(lesion).skin) {
       cautions.push("Squamous cell carcinoma on perianal skin: choose the skin-cancer code with the coder.");
