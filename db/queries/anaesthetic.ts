@@ -1,7 +1,7 @@
 import "server-only";
-import { and, asc, eq } from "drizzle-orm";
+import { and, asc, eq, gt, ne, sql } from "drizzle-orm";
 import { db, type Tx } from "../client";
-import { anaestheticDoses } from "../schema";
+import { anaestheticDoses, visits } from "../schema";
 
 const columns = {
   id: anaestheticDoses.id,
@@ -25,6 +25,15 @@ export function doseEntriesOfVisit(tx: Tx, visitId: string) {
     .select({ agent: anaestheticDoses.agent, concentrationPct: anaestheticDoses.concentrationPct, volumeMl: anaestheticDoses.volumeMl, withEpinephrine: anaestheticDoses.withEpinephrine })
     .from(anaestheticDoses)
     .where(eq(anaestheticDoses.visitId, visitId));
+}
+
+/** The patient's doses stored at other visits in the 24 hours before now (a daily maximum counts them). */
+export function doseEntriesOfPatientWithin24h(tx: Tx, patientId: string, exceptVisitId: string) {
+  return tx
+    .select({ agent: anaestheticDoses.agent, concentrationPct: anaestheticDoses.concentrationPct, volumeMl: anaestheticDoses.volumeMl, withEpinephrine: anaestheticDoses.withEpinephrine })
+    .from(anaestheticDoses)
+    .innerJoin(visits, eq(visits.id, anaestheticDoses.visitId))
+    .where(and(eq(visits.patientId, patientId), ne(anaestheticDoses.visitId, exceptVisitId), gt(anaestheticDoses.createdAt, sql`now() - interval '24 hours'`)));
 }
 
 export async function insertDose(tx: Tx, values: typeof anaestheticDoses.$inferInsert) {

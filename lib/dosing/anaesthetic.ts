@@ -175,3 +175,32 @@ export const doseSessionSchema = z.object({
   entries: z.array(doseEntrySchema),
   weightKg: weightKgSchema.optional(),
 });
+
+/**
+ * Most an agent may total in any 24 hours, across sessions and visits, where the label gives one.
+ * Bupivacaine: the US product label (bupivacaine hydrochloride injection, e.g. Marcaine) says a total
+ * daily dose of 400 mg should not be exceeded; from memory, confirm against the label in local use.
+ * Lidocaine's label gives single-dose maxima only, so none is set here.
+ */
+export const DAILY_LIMIT_MG: Partial<Record<AnaestheticAgent, number>> = { bupivacaine: 400 };
+
+export type DailyTotal = { agent: AnaestheticAgent; earlierMg: number; totalMg: number; limitMg: number; over: boolean };
+
+/**
+ * Per agent with a daily limit: what was given to the patient in the 24 hours before (other
+ * sessions) plus this session's entries, against the limit.
+ */
+export function dailyTotals(earlierWithin24h: readonly DoseEntry[], session: readonly DoseEntry[]): DailyTotal[] {
+  const out: DailyTotal[] = [];
+  for (const agent of ANAESTHETIC_AGENTS) {
+    const limitMg = DAILY_LIMIT_MG[agent];
+    if (limitMg === undefined) continue;
+    const sum = (xs: readonly DoseEntry[]) =>
+      xs.filter((e) => e.agent === agent).reduce((t, e) => t + mgFromPercentAndMl(e.concentrationPct, e.volumeMl), 0);
+    const earlierMg = sum(earlierWithin24h);
+    const totalMg = earlierMg + sum(session);
+    if (totalMg === 0) continue;
+    out.push({ agent, earlierMg, totalMg, limitMg, over: totalMg > limitMg + FRACTION_EPS });
+  }
+  return out;
+}

@@ -1,5 +1,5 @@
 import "server-only";
-import { deleteDoseRow, doseEntriesOfVisit, dosesOfVisit, insertDose } from "@/db/queries/anaesthetic";
+import { deleteDoseRow, doseEntriesOfPatientWithin24h, doseEntriesOfVisit, dosesOfVisit, insertDose } from "@/db/queries/anaesthetic";
 import type { SiteScope } from "@/db/queries/scope";
 import { AppError } from "@/lib/errors";
 import { assessDoses, mgFromPercentAndMl } from "@/lib/dosing";
@@ -24,7 +24,9 @@ export function addDose(scope: SiteScope, visitId: string, input: AnaestheticInp
     scope, visitId, ip,
     async (tx, v) => {
       const entry = { agent: input.agent, concentrationPct: input.concentrationPct, volumeMl: input.volumeMl, withEpinephrine: input.withEpinephrine };
-      const gate = gateDose(await doseEntriesOfVisit(tx, v.id), entry, v.patientWeightKg);
+      // A daily maximum (bupivacaine) counts the patient's doses at other visits in the last 24 hours.
+      const earlier = await doseEntriesOfPatientWithin24h(tx, v.patientId, v.id);
+      const gate = gateDose(await doseEntriesOfVisit(tx, v.id), entry, v.patientWeightKg, earlier);
       const reason = input.overrideReason?.trim() || null;
       if (gate.over && !reason) {
         throw new AppError("invalid", gate.message, { overrideReason: [`${gate.message} To record it, give the reason for going over the maximum.`] });

@@ -1,6 +1,6 @@
 import { z } from "zod";
 import { MODALITIES } from "@/lib/domain/vocab";
-import { assessDoses, assessExtent, doseEntrySchema, type DoseAssessment, type DoseEntry, type ExtentAssessment } from "@/lib/dosing";
+import { assessDoses, assessExtent, dailyTotals, doseEntrySchema, type DoseAssessment, type DoseEntry, type ExtentAssessment } from "@/lib/dosing";
 import type { Arc } from "@/lib/geometry/arcs";
 
 // Treatment and local-anaesthetic forms, shared by the client and the routes, plus the two
@@ -55,16 +55,27 @@ function mg(n: number) {
 }
 
 /** What the visit's running totals become if `added` is stored; the server refuses `over` without a reason. */
-export function gateDose(existing: readonly DoseEntry[], added: DoseEntry, weightKg?: number | null): DoseGate {
+export function gateDose(
+  existing: readonly DoseEntry[],
+  added: DoseEntry,
+  weightKg?: number | null,
+  /** The patient's doses at other sessions in the 24 hours before this one. */
+  earlierWithin24h: readonly DoseEntry[] = [],
+): DoseGate {
   const w = weightKg ?? undefined;
   const before = assessDoses(existing, w);
   const after = assessDoses([...existing, added], w);
   const overAgents = after.agents.filter((a) => a.level === "over");
-  const over = overAgents.length > 0 || after.combined.level === "over";
+  const overDaily = dailyTotals(earlierWithin24h, [...existing, added]).filter((d) => d.over && d.agent === added.agent);
+  const over = overAgents.length > 0 || after.combined.level === "over" || overDaily.length > 0;
   const near = !over && (after.agents.some((a) => a.level === "near") || after.combined.level === "near");
   let message = "Within the maximum.";
   if (overAgents.length) {
     message = overAgents.map((a) => `This brings ${a.agent} to ${mg(a.totalMg)}, over the maximum of ${mg(a.maxMg)}. ${a.explanation}`).join(" ");
+  } else if (overDaily.length) {
+    message = overDaily
+      .map((d) => `This brings ${d.agent} to ${mg(d.totalMg)} in 24 hours (${mg(d.earlierMg)} at earlier sessions), over the daily maximum of ${mg(d.limitMg)} on the product label.`)
+      .join(" ");
   } else if (over) {
     message = `Each agent is under its own maximum, but together they reach ${Math.round(after.combined.fraction * 100)}% of the combined allowance (local anaesthetic toxicity adds up).`;
   } else if (near) {

@@ -67,6 +67,27 @@ describe("local anaesthetic entries: the server computes mg and guards the runni
     expect((audits[0]!.detail as { overrideReason: string }).overrideReason).toBe("Anaesthetist present; agreed at huddle");
   });
 
+  it("counts bupivacaine over 24 hours across visits: 350 mg earlier today leaves room for 50 mg, not 75 mg", async () => {
+    // Bupivacaine US product label: a total daily dose of 400 mg should not be exceeded (from memory;
+    // DAILY_LIMIT_MG). Each session below stays under its own 225 mg ceiling with epinephrine.
+    const patient = (await makePatient(siteA)).id;
+    const visit = async () => {
+      const [v] = await db.insert(visits).values({ patientId: patient, siteId: siteA, visitDate: "2026-03-02", examinerId: clinician.userId, patientWeightKg: 90 }).returning({ id: visits.id });
+      return v!.id;
+    };
+    const bupi = (volumeMl: number, extra = {}) => ({ agent: "bupivacaine", concentrationPct: 0.5, volumeMl, withEpinephrine: true, ...extra });
+    const first = await visit();
+    expect((await post(addDose, dosePath(first), clinician, first, bupi(35))).status).toBe(201); // 175 mg
+    const second = await visit();
+    expect((await post(addDose, dosePath(second), clinician, second, bupi(35))).status).toBe(201); // 175 mg: 350 mg today
+    const third = await visit();
+    const refused = await post(addDose, dosePath(third), clinician, third, bupi(15)); // 75 mg: 425 mg in 24 h
+    expect(refused.status).toBe(400);
+    expect((await refused.json()).error.fields.overrideReason[0]).toMatch(/425 mg in 24 hours.*400 mg/);
+    expect(await rows(anaestheticDoses, third)).toBe(0);
+    expect((await post(addDose, dosePath(third), clinician, third, bupi(10))).status).toBe(201); // 50 mg: exactly 400 mg
+  });
+
   it("uses the higher limit with epinephrine: 320 mg of lidocaine for 70 kg is within 7 mg/kg = 490 mg", async () => {
     const visitId = await makeVisit(70);
     // Lidocaine label with epinephrine: ≤ 7 mg/kg, not over 500 mg (product labels).
