@@ -5,6 +5,7 @@ import type { ExportDataset } from "@/lib/validation/research";
 import { EXPORT_DATASETS } from "@/lib/validation/research";
 import { exportCsvCopy, exportRowCursor } from "@/db/queries/research/export-sql";
 import type { ExportScope } from "@/db/queries/research/export-scope";
+import { dictionaryRows } from "@/lib/exports/data-dictionary";
 
 export interface ExportAudit {
   userId: string;
@@ -109,6 +110,11 @@ export function streamWorkbookExport(scope: ExportScope, audit: ExportAudit): Re
       sheet.commit();
       rows[dataset] = n;
     }
+    // What every outcome column means, and which recurrence is which (lib/exports/data-dictionary).
+    const dictionary = wb.addWorksheet("Data dictionary");
+    dictionary.columns = [{ header: "dataset", key: "dataset" }, { header: "column", key: "column" }, { header: "meaning", key: "meaning" }];
+    for (const row of dictionaryRows()) dictionary.addRow(row).commit();
+    dictionary.commit();
     await wb.commit();
   };
   run().then(

@@ -8,6 +8,7 @@ import { db, sql } from "@/db/client";
 import * as s from "@/db/schema";
 import { GRADES, GRADE_TIER, HISTOLOGY, type Grade, type Histology } from "@/lib/domain/vocab";
 import { decideGrade } from "@/lib/tracking/effective-grade";
+import { OUTCOME_COLUMNS } from "@/lib/exports/data-dictionary";
 import { GET as getCsv } from "@/app/api/exports/[dataset]/route";
 import { actor, ctx, makePatient, makeSite, req, type Actor } from "../fixtures/factory";
 
@@ -73,5 +74,58 @@ describe("the outcomes export counts by the effective grade", () => {
   });
   it("counts SCC on histology as cancer", async () => {
     expect((await outcomes()).get("EG-4")!.progressed_to_cancer).toBe("1");
+  });
+});
+
+describe("the outcomes export offers both recurrences, each worded in the data dictionary", () => {
+  // Recurrence after a clear visit (column recurrence) vs overall recurrence = persistent +
+  // metachronous (Liu Y, Sigel K, Gaisa MM, Papillomavirus Research 2018;5:S9; column hsil_after_treatment).
+  let studyId: string;
+  let nurse: Actor;
+  let site: string;
+  let examiner: string;
+
+  /** One enrolled subject; each visit is a grade (or null = clear) and whether it was treated. */
+  async function subject(code: string, visitsSpec: { date: string; grade: Grade | null; treat?: boolean }[]) {
+    const p = await makePatient(site, { dateOfBirth: "1975-01-01", consentResearch: true });
+    const [t] = await db.insert(s.lesionTracks).values({ patientId: p.id, siteId: site, label: "#1" }).returning({ id: s.lesionTracks.id });
+    for (const v of visitsSpec) {
+      const [row] = await db.insert(s.visits).values({ patientId: p.id, siteId: site, visitDate: v.date, examinerId: examiner, status: "signed", signedAt: new Date() }).returning({ id: s.visits.id });
+      if (!v.grade) continue;
+      const [l] = await db.insert(s.lesions).values({
+        visitId: row!.id, siteId: site, trackId: t!.id, label: "L1", clockStartH: 3, clockEndH: 4, distanceStartCm: 1, distanceEndCm: 2, zone: "transformation_zone", grade: v.grade,
+      }).returning({ id: s.lesions.id });
+      if (v.treat) await db.insert(s.treatments).values({ visitId: row!.id, siteId: site, lesionId: l!.id, modality: "electrocautery", arcs: [{ startH: 3, endH: 4 }], treatedFraction: 1 / 12 });
+    }
+    await db.insert(s.enrolments).values({ studyId, patientId: p.id, siteId: site, studySubjectId: code, consentDate: visitsSpec[0]!.date });
+  }
+
+  beforeAll(async () => {
+    site = (await makeSite("Recurrence")).id;
+    nurse = await actor("research_nurse", [site]);
+    examiner = (await actor("clinician", [site])).userId;
+    const [study] = await db.insert(s.studies).values({ code: `RC-${site.slice(0, 6)}`, title: "Invented recurrence study", startDate: "2024-01-01" }).returning();
+    studyId = study!.id;
+    await db.insert(s.studySites).values({ studyId, siteId: site });
+    await subject("RC-1", [{ date: "2024-01-10", grade: "hsil", treat: true }, { date: "2024-05-10", grade: null }, { date: "2024-11-10", grade: "hsil" }]);
+    await subject("RC-2", [{ date: "2024-01-10", grade: "hsil", treat: true }, { date: "2024-05-10", grade: "hsil" }]);
+    await subject("RC-3", [{ date: "2024-01-10", grade: "hsil", treat: true }, { date: "2024-05-10", grade: "lsil" }]);
+  });
+
+  async function rows() {
+    const res = await getCsv(req("GET", `/api/exports/outcomes?studyId=${studyId}`, nurse), ctx({ dataset: "outcomes" }));
+    expect(res.status).toBe(200);
+    return parse(await res.text(), { columns: true }) as Record<string, string>[];
+  }
+
+  it("counts HSIL after a clear visit as both; HSIL at the first look (persistent) only as overall recurrence", async () => {
+    const byId = new Map((await rows()).map((r) => [r.study_id, r]));
+    expect(byId.get("RC-1")).toMatchObject({ recurrence: "1", hsil_after_treatment: "1" });
+    expect(byId.get("RC-2")).toMatchObject({ recurrence: "", hsil_after_treatment: "1" });
+    expect(byId.get("RC-3")).toMatchObject({ recurrence: "0", hsil_after_treatment: "0" });
+  });
+
+  it("words every column of the de-identified outcomes export in the data dictionary", async () => {
+    for (const column of Object.keys((await rows())[0]!)) expect(OUTCOME_COLUMNS[column], column).toBeTruthy();
   });
 });

@@ -193,7 +193,7 @@ describe("workbook export", () => {
     expectNoIdentifier(text);
     const wb = new ExcelJS.Workbook();
     await wb.xlsx.load(buf as unknown as ArrayBuffer);
-    expect(wb.worksheets.map((w) => w.name)).toEqual(["Counts per visit", "Lesions", "Outcomes"]);
+    expect(wb.worksheets.map((w) => w.name)).toEqual(["Counts per visit", "Lesions", "Outcomes", "Data dictionary"]);
     const counts = wb.getWorksheet("Counts per visit")!;
     const xRows = counts.getSheetValues().filter((r) => Array.isArray(r) && r[1] === "EXP-001");
     expect(xRows).toHaveLength(2); // the two visits before withdrawal

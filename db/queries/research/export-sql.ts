@@ -60,11 +60,17 @@ ORDER BY vis.study_subject_id, vis.visit_seq, l.label`;
 
 /**
  * Per patient: first HSIL, treatments, clearance, recurrence and progression.
- * - HSIL or worse at a visit: an impression of HSIL or suspected cancer, or histology HSIL or SCC.
+ * - HSIL or worse at a visit: a lesion whose effective grade is HSIL or worse, where histology, when
+ *   there is one, overrides the impression (dentate_lesion_grade, db/migrations/0010_effective_grade.sql;
+ *   the same rule as lib/tracking/effective-grade.ts).
  * - Clearance: the first visit after the first treatment with no HSIL or worse.
- * - Recurrence: HSIL or worse at any visit after clearance, persistent or metachronous alike
- *   (Liu, Sigel & Gaisa, Papillomavirus Research 2018;5:S9); censored at the last exported visit.
- * - Progression: suspected cancer at the exam or SCC on histology.
+ * - Recurrence (column recurrence): HSIL or worse at any visit after a clear visit, at the treated
+ *   site or elsewhere alike; censored at the last exported visit.
+ * - Overall recurrence (column hsil_after_treatment): HSIL or worse at any visit after the first
+ *   treatment, cleared in between or not = persistent + metachronous (Liu, Sigel & Gaisa,
+ *   Papillomavirus Research 2018;5:S9). lib/exports/data-dictionary.ts words every column.
+ * - Progression: a lesion whose effective grade is the top tier: SCC on histology, or suspected cancer
+ *   at the exam with no histology yet (benign histology of a suspected cancer does not count).
  */
 export function outcomesSelect(scope: ExportScope): string {
   const style = dateStyle(scope.filter);
@@ -78,10 +84,10 @@ export function outcomesSelect(scope: ExportScope): string {
   p.sex_at_birth, p.hiv_status, array_to_string(p.risk_groups, ';') AS risk_groups, dentate_zip3(p.zip) AS zip3${style === "year" ? ",\n  dentate_year_only(enr.consent_date) AS enrolment_year" : ""}`;
   return `WITH ${baseCtes(scope)}, pv AS (
   SELECT vis.patient_id, vis.visit_date,
-    EXISTS (SELECT 1 FROM lesions l LEFT JOIN biopsies b ON b.lesion_id = l.id WHERE l.visit_id = vis.id
-      AND (l.grade IN ('hsil', 'suspected_cancer') OR b.histology IN ('hsil', 'scc'))) AS hsil_plus,
-    EXISTS (SELECT 1 FROM lesions l LEFT JOIN biopsies b ON b.lesion_id = l.id WHERE l.visit_id = vis.id
-      AND (l.grade = 'suspected_cancer' OR b.histology = 'scc')) AS cancer,
+    EXISTS (SELECT 1 FROM lesions l WHERE l.visit_id = vis.id
+      AND dentate_grade_tier(dentate_lesion_grade(l.id, l.grade)) >= dentate_grade_tier('hsil')) AS hsil_plus,
+    EXISTS (SELECT 1 FROM lesions l WHERE l.visit_id = vis.id
+      AND dentate_lesion_grade(l.id, l.grade) = 'suspected_cancer') AS cancer,
     (SELECT count(*) FROM treatments t WHERE t.visit_id = vis.id) AS n_treatments
   FROM vis
 ), firsts AS (
@@ -95,6 +101,10 @@ export function outcomesSelect(scope: ExportScope): string {
   SELECT f.patient_id, min(pv.visit_date) AS cleared_on FROM firsts f
   JOIN pv ON pv.patient_id = f.patient_id AND pv.visit_date > f.first_treatment AND NOT pv.hsil_plus
   GROUP BY f.patient_id
+), after_tx AS (
+  SELECT f.patient_id, min(pv.visit_date) AS hsil_on FROM firsts f
+  JOIN pv ON pv.patient_id = f.patient_id AND pv.visit_date > f.first_treatment AND pv.hsil_plus
+  GROUP BY f.patient_id
 ), recurred AS (
   SELECT c.patient_id, min(pv.visit_date) AS recurred_on FROM cleared c
   JOIN pv ON pv.patient_id = c.patient_id AND pv.visit_date > c.cleared_on AND pv.hsil_plus
@@ -105,12 +115,14 @@ SELECT enr.study_subject_id AS study_id, ${person},
   CASE WHEN c.cleared_on IS NULL THEN NULL ELSE c.cleared_on - f.first_treatment END AS days_treatment_to_clearance,
   CASE WHEN c.cleared_on IS NULL THEN NULL ELSE coalesce(r.recurred_on, f.last_visit) - c.cleared_on END AS days_clearance_to_recurrence_or_censor,
   CASE WHEN c.cleared_on IS NULL THEN NULL WHEN r.recurred_on IS NULL THEN 0 ELSE 1 END AS recurrence,
+  CASE WHEN f.first_treatment IS NULL THEN NULL WHEN a.hsil_on IS NULL THEN 0 ELSE 1 END AS hsil_after_treatment,
   CASE WHEN f.first_cancer IS NULL THEN 0 ELSE 1 END AS progressed_to_cancer, ${d("f.first_cancer", "cancer")}
 FROM enr
 JOIN patients p ON p.id = enr.patient_id
 JOIN firsts f ON f.patient_id = enr.patient_id
 LEFT JOIN cleared c ON c.patient_id = enr.patient_id
 LEFT JOIN recurred r ON r.patient_id = enr.patient_id
+LEFT JOIN after_tx a ON a.patient_id = enr.patient_id
 ${grade ? `WHERE EXISTS (SELECT 1 FROM vis JOIN lesions g ON g.visit_id = vis.id WHERE vis.patient_id = enr.patient_id AND g.grade = ${lit(grade, "grade")})` : ""}
 ORDER BY enr.study_subject_id`;
 }
