@@ -1,15 +1,69 @@
-// Where a request came from and whether it arrived over https, from headers only.
+// Where a request came from and whether it arrived over https. Forwarding headers
+// (X-Forwarded-For/-Proto/-Host) are believed only as far as DENTATE_TRUSTED_PROXY_HOPS says: a
+// client can send any of them, and Next's own server keeps a client's X-Forwarded-For instead of
+// adding the socket's address to it. The socket's address and scheme come from PEER_HEADER, which
+// scripts/peer-address.cjs (preloaded into the server process) writes on every request, replacing
+// whatever a client sent under that name.
 
-export function clientIp(headers: Headers): string {
-  const fwd = headers.get("x-forwarded-for");
-  if (fwd) return fwd.split(",")[0]!.trim();
-  return headers.get("x-real-ip") ?? "unknown";
+export const PEER_HEADER = "x-dentate-peer";
+export const PEER_PROTO_HEADER = "x-dentate-peer-proto";
+
+/** How many proxies in front of the app are trusted to append to the forwarding headers (0–10). */
+export function trustedProxyHops(env: NodeJS.ProcessEnv = process.env): number {
+  const raw = env.DENTATE_TRUSTED_PROXY_HOPS?.trim();
+  if (!raw) return 0;
+  const n = Number(raw);
+  if (!Number.isInteger(n) || n < 0 || n > 10) throw new Error(`DENTATE_TRUSTED_PROXY_HOPS must be a whole number from 0 to 10, not "${raw}".`);
+  return n;
 }
 
-export function isHttps(headers: Headers, url?: string): boolean {
-  const proto = headers.get("x-forwarded-proto");
-  if (proto) return proto.split(",")[0]!.trim() === "https";
-  return url ? url.startsWith("https:") : false;
+function list(value: string | null): string[] {
+  return (value ?? "").split(",").map((s) => s.trim()).filter(Boolean);
+}
+
+/**
+ * The client's address: the socket's peer when no proxy is trusted; otherwise, in the chain of
+ * X-Forwarded-For entries followed by the peer, the entry `hops` places from the right (each
+ * trusted proxy appends the address it saw). Entries further left were written by the client.
+ */
+export function clientIp(headers: Headers, env: NodeJS.ProcessEnv = process.env): string {
+  const hops = trustedProxyHops(env);
+  const peer = headers.get(PEER_HEADER)?.trim() || "unknown";
+  if (hops === 0) return peer;
+  const chain = [...list(headers.get("x-forwarded-for")), peer];
+  return chain[Math.max(0, chain.length - 1 - hops)]!;
+}
+
+/** The value written by the outermost trusted proxy, or null when no proxy is trusted. */
+function forwarded(headers: Headers, name: string, hops: number): string | null {
+  if (hops === 0) return null;
+  const values = list(headers.get(name));
+  if (values.length === 0) return null;
+  return values[Math.max(0, values.length - hops)]!;
+}
+
+/** The scheme the request arrived with at the outermost trusted hop. */
+export function requestScheme(headers: Headers, env: NodeJS.ProcessEnv = process.env): "https" | "http" {
+  const proto = forwarded(headers, "x-forwarded-proto", trustedProxyHops(env)) ?? headers.get(PEER_PROTO_HEADER);
+  return proto?.trim().toLowerCase() === "https" ? "https" : "http";
+}
+
+/** The host the client addressed. */
+export function requestHost(headers: Headers, env: NodeJS.ProcessEnv = process.env): string | null {
+  return forwarded(headers, "x-forwarded-host", trustedProxyHops(env)) ?? headers.get("host");
+}
+
+/** The configured public address is https. */
+export function publicAddressIsHttps(env: NodeJS.ProcessEnv = process.env): boolean {
+  return (env.APP_BASE_URL ?? "").trim().toLowerCase().startsWith("https:");
+}
+
+/**
+ * Whether cookies must be marked Secure: whenever the public address is https (TLS may end at
+ * the app or at a proxy that does not say so), or the request itself arrived over https.
+ */
+export function isHttps(headers: Headers, env: NodeJS.ProcessEnv = process.env): boolean {
+  return publicAddressIsHttps(env) || requestScheme(headers, env) === "https";
 }
 
 export function readCookie(headers: Headers, name: string): string | null {
@@ -23,22 +77,30 @@ export function readCookie(headers: Headers, name: string): string | null {
 }
 
 /** A mutation must come from our own origin (CSRF defence in depth beside SameSite=Lax). */
-export function originAllowed(headers: Headers): boolean {
+export function originAllowed(headers: Headers, env: NodeJS.ProcessEnv = process.env): boolean {
   const origin = headers.get("origin");
   if (!origin) return false;
-  const host = headers.get("x-forwarded-host") ?? headers.get("host");
   let originUrl: URL;
   try {
     originUrl = new URL(origin);
   } catch {
     return false;
   }
-  const originHost = originUrl.host;
-  // Same host, and (behind a proxy that says how the request arrived) the same scheme: a page
-  // served over plain http on our host name is not our https origin.
-  const proto = headers.get("x-forwarded-proto")?.split(",")[0]!.trim();
-  const sameScheme = !proto || originUrl.protocol === `${proto}:`;
-  if (host && originHost === host && sameScheme) return true;
-  const extra = (process.env.DENTATE_ALLOWED_ORIGINS ?? "").split(",").map((s) => s.trim()).filter(Boolean);
+  // Same host, and the same scheme as the request arrived with: a page served over plain http
+  // on our host name is not our https origin.
+  const host = requestHost(headers, env);
+  const sameScheme = originUrl.protocol === `${requestScheme(headers, env)}:`;
+  if (host && originUrl.host === host && sameScheme) return true;
+  // The configured public address is ours whatever the proxies in front say.
+  if (env.APP_BASE_URL && safeOrigin(env.APP_BASE_URL) === originUrl.origin) return true;
+  const extra = (env.DENTATE_ALLOWED_ORIGINS ?? "").split(",").map((s) => s.trim()).filter(Boolean);
   return extra.includes(origin);
+}
+
+function safeOrigin(url: string): string | null {
+  try {
+    return new URL(url.trim()).origin;
+  } catch {
+    return null;
+  }
 }

@@ -8,8 +8,10 @@ PROJECT_HASH="$(printf '%s' "$ROOT" | sha1sum | cut -c1-10)"
 # Node flags for the app server (`next start`), here and in package.json's "serve". Young-
 # generation semi-spaces of 2 MB (Node's default grows to 16 MB) keep a streamed export's peak
 # memory near the idle figure: 200,000-row CSV export, 191 → 145 MB peak RSS, no slower
-# (npm run bench). Anything already in NODE_OPTIONS is kept.
-APP_NODE_OPTIONS="${NODE_OPTIONS:+$NODE_OPTIONS }--max-semi-space-size=2"
+# (npm run bench). scripts/peer-address.cjs hands the socket's address to the app (the client
+# address rule in lib/auth/request-info.ts); the server runs from $ROOT. Anything already in
+# NODE_OPTIONS is kept.
+APP_NODE_OPTIONS="${NODE_OPTIONS:+$NODE_OPTIONS }--max-semi-space-size=2 --require=./scripts/peer-address.cjs"
 export NEXT_TELEMETRY_DISABLED=1
 
 log() { printf '\033[36m[dentate]\033[0m %s\n' "$*" >&2; }

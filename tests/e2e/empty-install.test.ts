@@ -17,7 +17,7 @@ const URL_ = `http://127.0.0.1:${PORT}`;
 const INBOX = `${process.env.MAILDEV_WEB_URL ?? "http://127.0.0.1:1080"}/api/email`;
 const DB = `dentate_e2e_empty_${process.pid}`;
 const dbUrl = (name: string) => Object.assign(new URL(process.env.DATABASE_URL!), { pathname: `/${name}` }).toString();
-const env = () => ({ ...process.env, DATABASE_URL: dbUrl(DB), APP_BASE_URL: URL_, DENTATE_DEMO: "", NEXT_TELEMETRY_DISABLED: "1", MAIL_WORKER_INTERVAL_MS: "300" });
+const env = () => ({ ...process.env, DATABASE_URL: dbUrl(DB), APP_BASE_URL: URL_, DENTATE_DEMO: "", NEXT_TELEMETRY_DISABLED: "1", MAIL_WORKER_INTERVAL_MS: "300", NODE_OPTIONS: "--require=./scripts/peer-address.cjs" });
 const stamp = Date.now();
 const ADMIN = `lead-${stamp}@riverside.example`;
 const CLINICIAN = `np-${stamp}@riverside.example`;

@@ -34,7 +34,7 @@ async function waitUp(url: string, ms: number): Promise<void> {
 beforeAll(async () => {
   second = spawn(path.join(ROOT, "node_modules/.bin/next"), ["start", "-H", "127.0.0.1", "-p", String(SECOND_PORT)], {
     cwd: ROOT,
-    env: { ...process.env, DENTATE_DIST_DIR: process.env.DENTATE_DIST_DIR ?? ".next-test", NEXT_TELEMETRY_DISABLED: "1" },
+    env: { ...process.env, DENTATE_DIST_DIR: process.env.DENTATE_DIST_DIR ?? ".next-test", NEXT_TELEMETRY_DISABLED: "1", NODE_OPTIONS: "--require=./scripts/peer-address.cjs" },
     stdio: ["ignore", "pipe", "pipe"],
     detached: true, // its own process group, so the whole of it can be stopped at the end
   });

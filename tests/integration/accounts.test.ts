@@ -25,7 +25,7 @@ afterAll(() => fake.stop());
 const GOOD_PASSWORD = "violet tramline orchard";
 const tokenOf = (link: string) => link.split("/").pop()!;
 // Each public call comes from its own address so the per-address limit does not interfere.
-const from = () => ({ "x-forwarded-for": `10.77.${Math.floor(Math.random() * 250)}.${Math.floor(Math.random() * 250)}` });
+const from = () => ({ "x-dentate-peer": `10.77.${Math.floor(Math.random() * 250)}.${Math.floor(Math.random() * 250)}` });
 
 async function invitedMail(email: string) {
   await deliverPending();

@@ -50,7 +50,7 @@ async function send(r: RouteEntry, opts: { body?: string; params?: Record<string
   const spec = SPECS[r.key] ?? {};
   const query = opts.query ?? spec.query?.(w) ?? "";
   const actor = who(r);
-  const headers: Record<string, string> = { host: "dentate.test", origin: ORIGIN, "x-forwarded-for": `10.${Math.floor(Math.random() * 250)}.${Math.floor(Math.random() * 250)}.7` };
+  const headers: Record<string, string> = { host: "dentate.test", origin: ORIGIN, "x-dentate-peer": `10.${Math.floor(Math.random() * 250)}.${Math.floor(Math.random() * 250)}.7` };
   if (actor) headers.cookie = actor.cookie;
   if (opts.body !== undefined) headers["content-type"] = "application/json";
   const request = new Request(`${ORIGIN}${fillPath(r.pattern, params)}${query}`, { method: r.method, headers, body: opts.body });
