@@ -1,6 +1,6 @@
 import "server-only";
 import { and, count, eq, inArray, sql as dsql } from "drizzle-orm";
-import { db } from "../client";
+import { db, type Tx } from "../client";
 import { rateLimits, sessions, users, userSites } from "../schema";
 import type { DisplayConvention } from "@/lib/geometry";
 
@@ -72,6 +72,36 @@ export async function hitRateLimit(key: string, windowSeconds: number): Promise<
     })
     .returning({ count: rateLimits.count });
   return rows[0]?.count ?? 1;
+}
+
+/**
+ * Counts one attempt under `key` unless it comes too soon: within `delays[count]` seconds of the
+ * previous counted attempt (the last entry holds for larger counts), or once `hardLimit` attempts
+ * are counted. Fixed windows of `windowSeconds`. Atomic per key (the upsert locks the row), so a
+ * burst cannot slip past. Returns the count after this attempt, or null with the count that
+ * refused it.
+ */
+export async function claimAttempt(tx: Tx, a: { key: string; windowSeconds: number; delays: number[]; hardLimit: number | null; now: Date }): Promise<{ allowed: boolean; count: number }> {
+  const now = dsql`${a.now.toISOString()}::timestamptz`;
+  const expired = dsql`${rateLimits.windowStart} <= ${now} - make_interval(secs => ${a.windowSeconds})`;
+  const delays = dsql`${`{${a.delays.join(",")}}`}::int[]`;
+  const rows = await tx
+    .insert(rateLimits)
+    .values({ key: a.key, windowStart: a.now, count: 1, lastHitAt: a.now })
+    .onConflictDoUpdate({
+      target: rateLimits.key,
+      set: {
+        count: dsql`case when ${expired} then 1 else ${rateLimits.count} + 1 end`,
+        windowStart: dsql`case when ${expired} then ${now} else ${rateLimits.windowStart} end`,
+        lastHitAt: now,
+      },
+      setWhere: dsql`${expired} or (${rateLimits.count} < ${a.hardLimit ?? 2147483647}
+        and ${rateLimits.lastHitAt} + make_interval(secs => (${delays})[least(${rateLimits.count}, ${a.delays.length - 1}) + 1]) <= ${now})`,
+    })
+    .returning({ count: rateLimits.count });
+  if (rows[0]) return { allowed: true, count: rows[0].count };
+  const [held] = await tx.select({ count: rateLimits.count }).from(rateLimits).where(eq(rateLimits.key, a.key));
+  return { allowed: false, count: held?.count ?? 0 };
 }
 
 /** Staff who share at least one site with the caller. Never returns a password hash. */

@@ -48,6 +48,8 @@ export const sessions = pgTable(
     id: text("id").primaryKey(),
     userId: text("user_id").notNull().references(() => users.id, { onDelete: "cascade" }),
     expiresAt: timestamp("expires_at", { withTimezone: true, mode: "date" }).notNull(),
+    /** When the user signed in: the absolute lifetime counts from here, however often it slid. */
+    createdAt: timestamp("created_at", { withTimezone: true, mode: "date" }).notNull().defaultNow(),
   },
   (t) => [index("sessions_user_idx").on(t.userId)],
 );
@@ -57,6 +59,8 @@ export const rateLimits = pgTable("rate_limits", {
   key: text("key").primaryKey(),
   windowStart: timestamp("window_start", { withTimezone: true }).notNull(),
   count: integer("count").notNull(),
+  /** The latest counted attempt: a growing delay runs from here. */
+  lastHitAt: timestamp("last_hit_at", { withTimezone: true, mode: "date" }).notNull().defaultNow(),
 });
 
 export const invitations = pgTable("invitations", {

@@ -4,8 +4,8 @@ import { clientIp, isHttps, originAllowed, PEER_HEADER, PEER_PROTO_HEADER } from
 // Same-origin rule for mutations: an origin is scheme + host + port (RFC 6454 §4, "The Web
 // Origin Concept"); the Origin request header carries it (Fetch standard, §3.1 `Origin` header).
 const h = (entries: Record<string, string>) => new Headers(entries);
-const direct = {} as NodeJS.ProcessEnv; // no proxy trusted: the default
-const oneProxy = { DENTATE_TRUSTED_PROXY_HOPS: "1" } as NodeJS.ProcessEnv;
+const direct = {}; // no proxy trusted: the default
+const oneProxy = { DENTATE_TRUSTED_PROXY_HOPS: "1" };
 
 describe("originAllowed", () => {
   it("accepts our own origin and refuses another host or a missing Origin", () => {
@@ -39,7 +39,7 @@ describe("originAllowed", () => {
   });
 
   it("accepts the configured public address as our origin", () => {
-    const env = { APP_BASE_URL: "https://clinic.example/" } as NodeJS.ProcessEnv;
+    const env = { APP_BASE_URL: "https://clinic.example/" };
     expect(originAllowed(h({ origin: "https://clinic.example", host: "127.0.0.1:3000", [PEER_PROTO_HEADER]: "http" }), env)).toBe(true);
     expect(originAllowed(h({ origin: "https://other.example", host: "127.0.0.1:3000", [PEER_PROTO_HEADER]: "http" }), env)).toBe(false);
   });
@@ -60,21 +60,21 @@ describe("clientIp", () => {
 
   it("behind two trusted proxies, skips both of their entries", () => {
     const headers = h({ "x-forwarded-for": "203.0.113.9, 192.0.2.77, 10.0.0.3", [PEER_HEADER]: "10.0.0.2" });
-    expect(clientIp(headers, { DENTATE_TRUSTED_PROXY_HOPS: "2" } as NodeJS.ProcessEnv)).toBe("192.0.2.77");
+    expect(clientIp(headers, { DENTATE_TRUSTED_PROXY_HOPS: "2" })).toBe("192.0.2.77");
   });
 
   it("refuses a malformed hop count instead of guessing", () => {
-    expect(() => clientIp(h({}), { DENTATE_TRUSTED_PROXY_HOPS: "yes" } as NodeJS.ProcessEnv)).toThrow(/DENTATE_TRUSTED_PROXY_HOPS/);
+    expect(() => clientIp(h({}), { DENTATE_TRUSTED_PROXY_HOPS: "yes" })).toThrow(/DENTATE_TRUSTED_PROXY_HOPS/);
   });
 });
 
 describe("isHttps (the session cookie's Secure flag)", () => {
   it("is true whenever the public address is https, even when nothing in the request says so", () => {
-    expect(isHttps(h({ [PEER_PROTO_HEADER]: "http" }), { APP_BASE_URL: "https://clinic.example" } as NodeJS.ProcessEnv)).toBe(true);
+    expect(isHttps(h({ [PEER_PROTO_HEADER]: "http" }), { APP_BASE_URL: "https://clinic.example" })).toBe(true);
   });
 
   it("does not take a client's X-Forwarded-Proto when no proxy is trusted", () => {
-    expect(isHttps(h({ "x-forwarded-proto": "https", [PEER_PROTO_HEADER]: "http" }), { APP_BASE_URL: "http://127.0.0.1:3000" } as NodeJS.ProcessEnv)).toBe(false);
-    expect(isHttps(h({ "x-forwarded-proto": "https" }), { APP_BASE_URL: "http://x", DENTATE_TRUSTED_PROXY_HOPS: "1" } as NodeJS.ProcessEnv)).toBe(true);
+    expect(isHttps(h({ "x-forwarded-proto": "https", [PEER_PROTO_HEADER]: "http" }), { APP_BASE_URL: "http://127.0.0.1:3000" })).toBe(false);
+    expect(isHttps(h({ "x-forwarded-proto": "https" }), { APP_BASE_URL: "http://x", DENTATE_TRUSTED_PROXY_HOPS: "1" })).toBe(true);
   });
 });

@@ -5,11 +5,13 @@
 // scripts/peer-address.cjs (preloaded into the server process) writes on every request, replacing
 // whatever a client sent under that name.
 
+type Env = Readonly<Record<string, string | undefined>>;
+
 export const PEER_HEADER = "x-dentate-peer";
 export const PEER_PROTO_HEADER = "x-dentate-peer-proto";
 
 /** How many proxies in front of the app are trusted to append to the forwarding headers (0–10). */
-export function trustedProxyHops(env: NodeJS.ProcessEnv = process.env): number {
+export function trustedProxyHops(env: Env = process.env): number {
   const raw = env.DENTATE_TRUSTED_PROXY_HOPS?.trim();
   if (!raw) return 0;
   const n = Number(raw);
@@ -26,7 +28,7 @@ function list(value: string | null): string[] {
  * X-Forwarded-For entries followed by the peer, the entry `hops` places from the right (each
  * trusted proxy appends the address it saw). Entries further left were written by the client.
  */
-export function clientIp(headers: Headers, env: NodeJS.ProcessEnv = process.env): string {
+export function clientIp(headers: Headers, env: Env = process.env): string {
   const hops = trustedProxyHops(env);
   const peer = headers.get(PEER_HEADER)?.trim() || "unknown";
   if (hops === 0) return peer;
@@ -43,18 +45,18 @@ function forwarded(headers: Headers, name: string, hops: number): string | null 
 }
 
 /** The scheme the request arrived with at the outermost trusted hop. */
-export function requestScheme(headers: Headers, env: NodeJS.ProcessEnv = process.env): "https" | "http" {
+export function requestScheme(headers: Headers, env: Env = process.env): "https" | "http" {
   const proto = forwarded(headers, "x-forwarded-proto", trustedProxyHops(env)) ?? headers.get(PEER_PROTO_HEADER);
   return proto?.trim().toLowerCase() === "https" ? "https" : "http";
 }
 
 /** The host the client addressed. */
-export function requestHost(headers: Headers, env: NodeJS.ProcessEnv = process.env): string | null {
+export function requestHost(headers: Headers, env: Env = process.env): string | null {
   return forwarded(headers, "x-forwarded-host", trustedProxyHops(env)) ?? headers.get("host");
 }
 
 /** The configured public address is https. */
-export function publicAddressIsHttps(env: NodeJS.ProcessEnv = process.env): boolean {
+export function publicAddressIsHttps(env: Env = process.env): boolean {
   return (env.APP_BASE_URL ?? "").trim().toLowerCase().startsWith("https:");
 }
 
@@ -62,7 +64,7 @@ export function publicAddressIsHttps(env: NodeJS.ProcessEnv = process.env): bool
  * Whether cookies must be marked Secure: whenever the public address is https (TLS may end at
  * the app or at a proxy that does not say so), or the request itself arrived over https.
  */
-export function isHttps(headers: Headers, env: NodeJS.ProcessEnv = process.env): boolean {
+export function isHttps(headers: Headers, env: Env = process.env): boolean {
   return publicAddressIsHttps(env) || requestScheme(headers, env) === "https";
 }
 
@@ -77,7 +79,7 @@ export function readCookie(headers: Headers, name: string): string | null {
 }
 
 /** A mutation must come from our own origin (CSRF defence in depth beside SameSite=Lax). */
-export function originAllowed(headers: Headers, env: NodeJS.ProcessEnv = process.env): boolean {
+export function originAllowed(headers: Headers, env: Env = process.env): boolean {
   const origin = headers.get("origin");
   if (!origin) return false;
   let originUrl: URL;

@@ -1,34 +1,37 @@
 import "server-only";
 import { findUserCredentials } from "@/db/queries/users";
-import { hitRateLimit, releaseRateLimit, resetRateLimit } from "@/lib/server/rate-limit";
+import { claimAttempts, releaseRateLimit, resetRateLimit } from "@/lib/server/rate-limit";
 import { recordAudit } from "@/lib/server/audit";
 import { AppError } from "@/lib/errors";
 import type { Role } from "@/lib/domain/vocab";
+import { SIGN_IN_THROTTLE, SIGN_IN_WINDOW_SECONDS } from "@/lib/accounts/sign-in-throttle";
 import { dummyHash, verifyPassword } from "./password";
 import { createSession } from "./session";
 import { assertServable } from "./servable";
 
-// Per account and per address, fixed 15-minute windows (common practice, no source).
-export const SIGN_IN_LIMITS = { perAccount: 10, perAddress: 50, windowSeconds: 15 * 60 } as const;
+export { SIGN_IN_THROTTLE, SIGN_IN_WINDOW_SECONDS };
 
 /**
  * Checks the password and opens a new session (a new id every time, so a session id planted
  * before sign-in is never promoted). The answer is the same for an unknown address and a wrong
- * password.
+ * password. `now` is the clock the attempt counters use (tests move it; nothing else should).
  */
-export async function signIn(email: string, password: string, ip: string): Promise<{ sessionId: string; userId: string; role: Role }> {
+export async function signIn(email: string, password: string, ip: string, now = new Date()): Promise<{ sessionId: string; userId: string; role: Role }> {
   await assertServable();
-  // Counted before the password is checked, atomically, so a burst cannot slip past the limit;
-  // a successful sign-in then gives its attempt back (only failures accumulate).
-  const accountKey = `sign-in:account:${email}`;
+  // Counted before the password is checked, atomically, so a burst cannot slip past the delay;
+  // a successful sign-in then clears the account's count and gives the address its attempt back.
+  const accountKey = `sign-in:account:${email.trim().toLowerCase()}`;
   const addressKey = `sign-in:ip:${ip}`;
-  const [accountHits, addressHits] = await Promise.all([
-    hitRateLimit(accountKey, SIGN_IN_LIMITS.windowSeconds),
-    hitRateLimit(addressKey, SIGN_IN_LIMITS.windowSeconds),
-  ]);
-  if (accountHits > SIGN_IN_LIMITS.perAccount || addressHits > SIGN_IN_LIMITS.perAddress) {
-    await recordAudit({ action: "sign_in.rate_limited", ip, detail: { email } });
-    throw new AppError("rate_limited");
+  const refusal = await claimAttempts(
+    [{ key: accountKey, policy: SIGN_IN_THROTTLE.account }, { key: addressKey, policy: SIGN_IN_THROTTLE.address }],
+    SIGN_IN_WINDOW_SECONDS,
+    now,
+  );
+  if (refusal) {
+    await recordAudit({ action: "sign_in.rate_limited", ip, detail: { email, by: refusal.key === accountKey ? "account" : "address", hard: refusal.hard } });
+    throw new AppError("rate_limited", refusal.hard
+      ? "Too many failed sign-ins from this network. Try again in 15 minutes, or ask an administrator."
+      : `Too many failed attempts. Wait ${refusal.waitSeconds} second${refusal.waitSeconds === 1 ? "" : "s"}, then try again.`);
   }
   const account = await findUserCredentials(email);
   const ok = account?.passwordHash

@@ -3,7 +3,7 @@ import { eq } from "drizzle-orm";
 import { db, sql } from "@/db/client";
 import { auditEvents, sessions } from "@/db/schema";
 import { hashPassword } from "@/lib/auth/password";
-import { signIn, SIGN_IN_LIMITS } from "@/lib/auth/sign-in";
+import { signIn, SIGN_IN_THROTTLE } from "@/lib/auth/sign-in";
 import { invalidateSession, validateSession } from "@/lib/auth/session";
 import { makeSite, makeUser } from "../fixtures/factory";
 import { AppError } from "@/lib/errors";
@@ -41,34 +41,67 @@ describe("sign-in", () => {
     expect(failed.length).toBeGreaterThanOrEqual(2);
   });
 
-  it("rate-limits an account after the per-account limit, even with the right password", async () => {
-    const { email } = await account();
-    for (let i = 0; i < SIGN_IN_LIMITS.perAccount; i++) await signIn(email, "wrong", `10.1.0.${i}`).catch(() => null);
-    const err = await signIn(email, "correct horse battery", "10.1.1.1").catch((e) => e);
-    expect(err).toBeInstanceOf(AppError);
-    expect(err.code).toBe("rate_limited");
-  });
-
-  it("counts failures only: repeated successful sign-ins never lock the account out", async () => {
-    const { email } = await account();
-    for (let i = 0; i < SIGN_IN_LIMITS.perAccount + 5; i++) {
-      await expect(signIn(email, "correct horse battery", "10.2.0.1")).resolves.toHaveProperty("sessionId");
+  // OWASP Authentication Cheat Sheet, "Account Lockout" (from memory): a lockout that anyone who
+  // knows the e-mail can trigger denies the owner; a growing delay does not.
+  it("lets the owner in with the right password after ten wrong ones once the delay has passed (no account lockout)", async () => {
+    const { email, userId } = await account();
+    const t0 = Date.now();
+    // Ten guesses from ten addresses, each one minute after the previous (past every delay).
+    for (let i = 0; i < 10; i++) {
+      const err = await signIn(email, "wrong", `10.1.${Math.floor(Math.random() * 250)}.${i}`, new Date(t0 + i * 61_000)).catch((e) => e);
+      expect(err.code).toBe("unauthenticated");
     }
-    // A success clears earlier failures of the account.
-    for (let i = 0; i < SIGN_IN_LIMITS.perAccount - 1; i++) await signIn(email, "wrong", "10.2.0.2").catch(() => null);
-    await signIn(email, "correct horse battery", "10.2.0.2");
-    for (let i = 0; i < SIGN_IN_LIMITS.perAccount - 1; i++) await signIn(email, "wrong", "10.2.0.3").catch(() => null);
-    await expect(signIn(email, "correct horse battery", "10.2.0.3")).resolves.toHaveProperty("sessionId");
+    const owner = await signIn(email, "correct horse battery", "10.1.1.1", new Date(t0 + 10 * 61_000));
+    expect(owner.userId).toBe(userId);
   });
 
-  it("rate-limits an address across accounts", async () => {
+  it("refuses an attempt inside the account's delay without checking the password, then lets the right one in", async () => {
+    const { email } = await account();
+    const t0 = Date.now();
+    const free = SIGN_IN_THROTTLE.account.free;
+    for (let i = 0; i < free; i++) expect((await signIn(email, "wrong", "10.2.0.1", new Date(t0)).catch((e) => e)).code).toBe("unauthenticated");
+    const early = await signIn(email, "correct horse battery", "10.2.0.1", new Date(t0 + 500)).catch((e) => e);
+    expect(early.code).toBe("rate_limited");
+    expect(early.message).toMatch(/Wait 1 second,/);
+    await expect(signIn(email, "correct horse battery", "10.2.0.1", new Date(t0 + 1_000))).resolves.toHaveProperty("sessionId");
+  });
+
+  it("counts failures only: repeated successful sign-ins never slow the account, and a success clears its failures", async () => {
+    const { email } = await account();
+    const now = new Date();
+    for (let i = 0; i < 15; i++) {
+      await expect(signIn(email, "correct horse battery", "10.2.1.1", now)).resolves.toHaveProperty("sessionId");
+    }
+    const free = SIGN_IN_THROTTLE.account.free;
+    for (let round = 0; round < 3; round++) {
+      for (let i = 0; i < free - 1; i++) await signIn(email, "wrong", "10.2.1.2", now).catch(() => null);
+      await expect(signIn(email, "correct horse battery", "10.2.1.2", now)).resolves.toHaveProperty("sessionId");
+    }
+  });
+
+  it("locks one address outright after its hard limit across accounts, while another address still signs in", async () => {
+    const { email } = await account();
     const ip = `10.9.${Math.floor(Math.random() * 200)}.9`;
-    let limited = false;
-    for (let i = 0; i < SIGN_IN_LIMITS.perAddress + 2; i++) {
-      const err = await signIn(`x${i}-${randomUUID()}@test.example`, "wrong", ip).catch((e) => e);
-      if (err?.code === "rate_limited") limited = true;
+    const t0 = Date.now();
+    const { hardLimit, maxDelaySeconds } = SIGN_IN_THROTTLE.address;
+    for (let i = 0; i < hardLimit; i++) {
+      const err = await signIn(`x${i}-${randomUUID()}@test.example`, "wrong", ip, new Date(t0 + i * maxDelaySeconds * 1000)).catch((e) => e);
+      expect(err.code).toBe("unauthenticated");
     }
-    expect(limited).toBe(true);
+    const at = new Date(t0 + hardLimit * maxDelaySeconds * 1000);
+    const locked = await signIn(email, "correct horse battery", ip, at).catch((e) => e);
+    expect(locked.code).toBe("rate_limited");
+    expect(locked.message).toMatch(/15 minutes/);
+    await expect(signIn(email, "correct horse battery", "10.9.250.1", at)).resolves.toHaveProperty("sessionId");
+    // A new window opens the address again.
+    await expect(signIn(email, "correct horse battery", ip, new Date(t0 + 16 * 60_000 + hardLimit * maxDelaySeconds * 1000))).resolves.toHaveProperty("sessionId");
+  });
+
+  it("counts an account's failures whatever the case of the typed e-mail", async () => {
+    const { email } = await account();
+    const now = new Date();
+    for (let i = 0; i < SIGN_IN_THROTTLE.account.free; i++) await signIn(i % 2 ? email.toUpperCase() : email, "wrong", `10.3.0.${i}`, now).catch(() => null);
+    expect((await signIn(email.toUpperCase(), "wrong", "10.3.1.1", now).catch((e) => e)).code).toBe("rate_limited");
   });
 
   it("refuses to edit or delete audit events (append-only)", async () => {

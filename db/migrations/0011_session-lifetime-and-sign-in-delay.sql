@@ -1,0 +1,2 @@
+ALTER TABLE "rate_limits" ADD COLUMN "last_hit_at" timestamp with time zone DEFAULT now() NOT NULL;--> statement-breakpoint
+ALTER TABLE "sessions" ADD COLUMN "created_at" timestamp with time zone DEFAULT now() NOT NULL;
