@@ -3,6 +3,7 @@
 // (Next.js does not hand the socket to them), replacing any copy a client sent. lib/auth/
 // request-info.ts reads them; see the README's scale-out section.
 "use strict";
+// eslint-disable-next-line @typescript-eslint/no-require-imports -- a CommonJS preload for `node --require`
 const http = require("node:http");
 
 const PEER = "x-dentate-peer";
