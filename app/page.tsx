@@ -1,9 +1,9 @@
 import { redirect } from "next/navigation";
-import { getCurrentUser } from "@/lib/auth/guard";
+import { currentSession } from "@/lib/auth/guard";
 import { homeFor } from "@/components/shell/nav-links";
 
 export default async function Home() {
-  const user = await getCurrentUser();
-  if (!user) redirect("/sign-in");
+  const { user, ended } = await currentSession();
+  if (!user) redirect(ended === "lifetime" ? "/sign-in?ended=lifetime" : "/sign-in");
   redirect(homeFor(user.role));
 }

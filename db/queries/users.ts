@@ -20,6 +20,7 @@ const sessionWithUser = db
     sessionId: sessions.id,
     userId: sessions.userId,
     expiresAt: sessions.expiresAt,
+    createdAt: sessions.createdAt,
     email: users.email,
     displayName: users.displayName,
     role: users.role,

@@ -5,31 +5,43 @@ import type { SiteScope } from "@/db/queries/scope";
 import { AppError } from "@/lib/errors";
 import type { Role } from "@/lib/domain/vocab";
 import { readCookie } from "./request-info";
-import { SESSION_COOKIE, validateSession, type SessionUser } from "./session";
+import { checkSession, SESSION_COOKIE, sessionMaxHours, type SessionUser } from "./session";
 import { assertServable } from "./servable";
 
 export interface CurrentUser extends SessionUser {
   sessionId: string;
 }
 
-async function resolve(token: string | null | undefined): Promise<CurrentUser | null> {
-  if (!token) return null;
+interface Resolved {
+  user: CurrentUser | null;
+  /** Set when the cookie named a session that just reached its absolute lifetime. */
+  ended?: "lifetime";
+}
+
+async function resolve(token: string | null | undefined): Promise<Resolved> {
+  if (!token) return { user: null };
   await assertServable();
-  const valid = await validateSession(token);
-  if (!valid) return null;
-  return { ...valid.user, sessionId: valid.sessionId };
+  const check = await checkSession(token);
+  if (!check.session) return { user: null, ended: check.ended };
+  return { user: { ...check.session.user, sessionId: check.session.sessionId } };
 }
 
 /** For route handlers: the session comes from the request's own cookie header. */
-export function userFromRequest(req: Request): Promise<CurrentUser | null> {
-  return resolve(readCookie(req.headers, SESSION_COOKIE));
+export async function userFromRequest(req: Request): Promise<CurrentUser | null> {
+  const r = await resolve(readCookie(req.headers, SESSION_COOKIE));
+  if (r.ended === "lifetime") throw new AppError("unauthenticated", `Signed out after ${sessionMaxHours()} hours, the longest a sign-in lasts. Sign in again.`);
+  return r.user;
 }
 
 /** For server components and actions: resolved once per request. */
-export const getCurrentUser = cache(async (): Promise<CurrentUser | null> => {
+export const currentSession = cache(async (): Promise<Resolved> => {
   const jar = await cookies();
   return resolve(jar.get(SESSION_COOKIE)?.value);
 });
+
+export async function getCurrentUser(): Promise<CurrentUser | null> {
+  return (await currentSession()).user;
+}
 
 export function requireRole(user: CurrentUser | null, roles: readonly Role[] | "any"): CurrentUser {
   if (!user) throw new AppError("unauthenticated");

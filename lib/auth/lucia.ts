@@ -17,9 +17,9 @@ class DentateAdapter extends DrizzlePostgreSQLAdapter {
   override async getSessionAndUser(sessionId: string): Promise<[DatabaseSession | null, DatabaseUser | null]> {
     const row = await findSessionWithUser(sessionId);
     if (!row) return [null, null];
-    const { sessionId: id, userId, expiresAt, ...attributes } = row;
+    const { sessionId: id, userId, expiresAt, createdAt, ...attributes } = row;
     return [
-      { id, userId, expiresAt, attributes: {} },
+      { id, userId, expiresAt, attributes: { createdAt } },
       { id: userId, attributes },
     ];
   }
@@ -34,6 +34,7 @@ export const lucia = new Lucia(adapter, {
   // A clinic day; Lucia extends an active session when half of it has passed.
   sessionExpiresIn: new TimeSpan(12, "h"),
   sessionCookie: { name: SESSION_COOKIE, expires: false, attributes: { sameSite: "lax", secure: false } },
+  getSessionAttributes: (a) => ({ createdAt: a.createdAt }),
   getUserAttributes: (a) => ({
     email: a.email,
     displayName: a.displayName,
@@ -47,6 +48,7 @@ export const lucia = new Lucia(adapter, {
 declare module "lucia" {
   interface Register {
     Lucia: typeof lucia;
+    DatabaseSessionAttributes: { createdAt: Date };
     DatabaseUserAttributes: {
       email: string;
       displayName: string;

@@ -1,15 +1,15 @@
 import "server-only";
 import { redirect } from "next/navigation";
 import type { Role } from "@/lib/domain/vocab";
-import { getCurrentUser, type CurrentUser } from "./guard";
+import { currentSession, type CurrentUser } from "./guard";
 import { servableRefusal } from "./servable";
 
 /** For pages: no session → sign-in; a role that may not open the page → the no-access page. */
 export async function requirePageRole(roles: readonly Role[] | "any"): Promise<CurrentUser> {
   // A server that must not serve shows why on the sign-in page, not an error page.
   if (await servableRefusal()) redirect("/sign-in");
-  const user = await getCurrentUser();
-  if (!user) redirect("/sign-in");
+  const { user, ended } = await currentSession();
+  if (!user) redirect(ended === "lifetime" ? "/sign-in?ended=lifetime" : "/sign-in");
   if (roles !== "any" && !roles.includes(user.role)) redirect("/no-access");
   return user;
 }

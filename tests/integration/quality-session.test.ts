@@ -11,7 +11,7 @@ import { db } from "@/db/client";
 import { sessions } from "@/db/schema";
 import { hashPassword } from "@/lib/auth/password";
 import { signIn, SIGN_IN_THROTTLE } from "@/lib/auth/sign-in";
-import { invalidateSession, validateSession } from "@/lib/auth/session";
+import { checkSession, invalidateSession, validateSession } from "@/lib/auth/session";
 import { SESSION_COOKIE } from "@/lib/auth/lucia";
 import type { Role } from "@/lib/domain/vocab";
 import { GET as listPatients } from "@/app/api/patients/route";
@@ -104,6 +104,36 @@ describe("sessions", () => {
     // And the right password no longer opens a new one.
     const again = await signIn(email, "an invented long passphrase", "10.20.0.4").catch((e) => e);
     expect(again.code).toBe("unauthenticated");
+  });
+});
+
+// An absolute session timeout beside the idle one: OWASP Session Management Cheat Sheet,
+// "Absolute Timeout" (from memory); ASVS 4.0.3 V3.3.2 (re-authentication after a period even
+// while the session is used).
+describe("absolute session lifetime", () => {
+  it("ends a session that has kept sliding for longer than the absolute lifetime (default 7 days), with a message that says so", async () => {
+    const { email, userId } = await account();
+    const { sessionId } = await signIn(email, "an invented long passphrase", "10.21.0.1");
+    const cookie = `${SESSION_COOKIE}=${sessionId}`;
+    // Signed in 7 days and a minute ago; used recently enough that the 12-hour slide keeps it alive.
+    await db.update(sessions).set({ createdAt: new Date(Date.now() - (7 * 24 * 60 + 1) * 60_000), expiresAt: new Date(Date.now() + 6 * 3_600_000) }).where(eq(sessions.id, sessionId));
+    const res = await listPatients(req("GET", "/api/patients", { userId, role: "clinician", cookie }));
+    expect(res.status).toBe(401);
+    expect((await res.json()).error.message).toMatch(/Signed out after 168 hours/);
+    expect(await db.select().from(sessions).where(eq(sessions.id, sessionId))).toHaveLength(0);
+  });
+
+  it("keeps a session inside its absolute lifetime, and the limit is configurable (DENTATE_SESSION_MAX_HOURS)", async () => {
+    const { email } = await account();
+    const { sessionId } = await signIn(email, "an invented long passphrase", "10.21.0.2");
+    await db.update(sessions).set({ createdAt: new Date(Date.now() - 5 * 3_600_000) }).where(eq(sessions.id, sessionId));
+    expect((await checkSession(sessionId)).session).not.toBeNull();
+    process.env.DENTATE_SESSION_MAX_HOURS = "4";
+    try {
+      expect(await checkSession(sessionId)).toEqual({ session: null, ended: "lifetime" });
+    } finally {
+      delete process.env.DENTATE_SESSION_MAX_HOURS;
+    }
   });
 });
 

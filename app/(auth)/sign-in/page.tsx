@@ -4,6 +4,7 @@ import { redirect } from "next/navigation";
 import { Wordmark } from "@/components/ui/wordmark";
 import { getCurrentUser } from "@/lib/auth/guard";
 import { servableRefusal } from "@/lib/auth/servable";
+import { lifetimeNotice } from "@/lib/auth/session";
 import { SignInForm } from "./sign-in-form";
 
 export const metadata: Metadata = { title: "Sign in" };
@@ -23,7 +24,7 @@ export default async function SignInPage({ searchParams }: { searchParams: Promi
   }
   if (await getCurrentUser()) redirect("/");
   const sp = await searchParams;
-  const notice = sp.welcome ? "Your password is set. Sign in to start." : sp.reset ? "Your password was changed. Sign in with the new one." : null;
+  const notice = sp.welcome ? "Your password is set. Sign in to start." : sp.reset ? "Your password was changed. Sign in with the new one." : sp.ended === "lifetime" ? lifetimeNotice() : null;
   return (
     <main className="mx-auto flex min-h-screen max-w-md flex-col justify-center px-6">
       <div className="rounded-xl border border-rule bg-panel p-8 shadow-sm">
