@@ -1,15 +1,16 @@
 "use server";
 
-import { cookies, headers } from "next/headers";
+import { cookies } from "next/headers";
 import { redirect } from "next/navigation";
 import { getCurrentUser } from "@/lib/auth/guard";
 import { blankSessionCookie, invalidateSession } from "@/lib/auth/session";
 import { clientIp, isHttps } from "@/lib/auth/request-info";
 import { recordAudit } from "@/lib/server/audit";
+import { assertActionOrigin } from "./action-origin";
 
 export async function signOutAction(): Promise<void> {
+  const h = await assertActionOrigin();
   const user = await getCurrentUser();
-  const h = await headers();
   if (user) {
     await invalidateSession(user.sessionId);
     await recordAudit({ userId: user.id, action: "sign_out", ip: clientIp(h) });

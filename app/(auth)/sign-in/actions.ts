@@ -1,9 +1,10 @@
 "use server";
 
-import { cookies, headers } from "next/headers";
+import { cookies } from "next/headers";
 import { redirect } from "next/navigation";
 import { signIn } from "@/lib/auth/sign-in";
 import { clientIp, isHttps } from "@/lib/auth/request-info";
+import { assertActionOrigin } from "@/lib/auth/action-origin";
 import { sessionCookie } from "@/lib/auth/session";
 import { AppError, isDatabaseDown } from "@/lib/errors";
 import { signInSchema } from "@/lib/validation/auth";
@@ -17,10 +18,16 @@ export interface SignInState {
 }
 
 export async function signInAction(_prev: SignInState, form: FormData): Promise<SignInState> {
-  const parsed = signInSchema.safeParse({ email: form.get("email"), password: form.get("password") });
   const email = String(form.get("email") ?? "");
+  let h: Headers;
+  try {
+    h = await assertActionOrigin();
+  } catch (err) {
+    if (err instanceof AppError) return { message: err.message, email };
+    throw err;
+  }
+  const parsed = signInSchema.safeParse({ email: form.get("email"), password: form.get("password") });
   if (!parsed.success) return { fields: fieldErrors(parsed.error), email };
-  const h = await headers();
   let home: string;
   try {
     const { sessionId, role } = await signIn(parsed.data.email, parsed.data.password, clientIp(h));
