@@ -99,10 +99,39 @@ export async function useUpResets(tx: Tx, userId: string, now: Date): Promise<vo
 }
 
 /** A user who works at one of the sites. */
-export async function userAtSites(tx: Tx, userId: string, siteIds: string[]) {
-  if (siteIds.length === 0) return null;
-  const [user] = await tx.selectDistinct({ id: users.id, role: users.role, active: users.active }).from(users).innerJoin(userSites, eq(userSites.userId, users.id)).where(and(eq(users.id, userId), inArray(userSites.siteId, siteIds)));
+/** The user, locked for the change, with every site they work at (not only the caller's). */
+export async function userForAccountChange(tx: Tx, userId: string) {
+  const [user] = await tx
+    .select({
+      id: users.id, role: users.role, active: users.active,
+      siteIds: dsql<string[]>`array(select us.site_id::text from user_sites us where us.user_id = ${users.id} order by 1)`,
+    })
+    .from(users)
+    .where(eq(users.id, userId))
+    .for("update");
   return user ?? null;
+}
+
+/** Serialises changes of administrators per site (sorted, so two changes cannot deadlock). */
+export async function lockSiteAdministration(tx: Tx, siteIds: readonly string[]): Promise<void> {
+  for (const id of [...siteIds].sort()) await tx.execute(dsql`select pg_advisory_xact_lock(hashtext(${`dentate:site-admins:${id}`}))`);
+}
+
+/** Of the given sites, those with an active administrator other than `exceptUserId`. */
+export async function sitesWithAnotherActiveAdmin(tx: Tx, siteIds: readonly string[], exceptUserId: string): Promise<string[]> {
+  if (siteIds.length === 0) return [];
+  const rows = await tx
+    .selectDistinct({ siteId: userSites.siteId })
+    .from(userSites)
+    .innerJoin(users, eq(users.id, userSites.userId))
+    .where(and(inArray(userSites.siteId, [...siteIds]), eq(users.role, "admin"), eq(users.active, true), dsql`${users.id} <> ${exceptUserId}`));
+  return rows.map((r) => r.siteId);
+}
+
+export async function siteNames(tx: Tx, siteIds: readonly string[]): Promise<string[]> {
+  if (siteIds.length === 0) return [];
+  const rows = await tx.select({ name: sites.name }).from(sites).where(inArray(sites.id, [...siteIds])).orderBy(sites.name);
+  return rows.map((r) => r.name);
 }
 
 export async function setUserRoleAndActive(tx: Tx, userId: string, set: { role: Role; active: boolean }): Promise<void> {

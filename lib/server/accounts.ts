@@ -5,13 +5,14 @@ import { randomUUID } from "node:crypto";
 import { db, type Tx } from "@/db/client";
 import {
   displayNameOf, insertInvitation, insertPasswordReset, insertUserAtSite, invitationAtSitesForUpdate, invitationByTokenHashForUpdate, resetByTokenHashForUpdate,
-  setPasswordHash, setUserRoleAndActive, siteName, updateInvitation, usableInvitationByTokenHash, useUpResets, userAtSites, userForReset, userIdByEmail, userIdentity,
+  setPasswordHash, setUserRoleAndActive, siteName, siteNames, sitesWithAnotherActiveAdmin, userForAccountChange, lockSiteAdministration, updateInvitation, usableInvitationByTokenHash, useUpResets, userForReset, userIdByEmail, userIdentity,
 } from "@/db/queries/accounts";
 import { recordAudit } from "@/db/queries/audit-write";
 import { hashPassword } from "@/lib/auth/password";
 import { AppError } from "@/lib/errors";
 import { expiryFrom, hashToken, INVITATION_TTL_MS, issueToken, RESET_TTL_MS } from "@/lib/accounts/tokens";
 import { passwordProblem } from "@/lib/accounts/password-rules";
+import { accountChangeRefusal } from "@/lib/accounts/admin-rights";
 import { mailConfigFrom } from "@/lib/mail/config";
 import { invitationMail, resetMail } from "@/lib/mail/templates";
 import type { Role } from "@/lib/domain/vocab";
@@ -135,13 +136,28 @@ export async function completePasswordReset(a: { token: string; password: string
   });
 }
 
-/** Role or active flag of a user who shares a site with the admin; an admin cannot lock themself out. */
+/**
+ * Role or active flag of a user who shares a site with the admin. A role applies at every site
+ * the user works at, so the admin must administer all of them (403 otherwise), and no site of the
+ * user may be left without an active administrator (409). An admin may step down themself only
+ * while another active administrator remains at each of their sites.
+ */
 export async function updateUser(a: { userId: string; adminId: string; adminSiteIds: string[]; role?: Role; active?: boolean; ip: string }) {
-  if (a.userId === a.adminId) throw new AppError("invalid", "You cannot change your own role or deactivate yourself.", { _: ["Ask another administrator."] });
   return db.transaction(async (tx) => {
-    const user = await userAtSites(tx, a.userId, a.adminSiteIds);
-    if (!user) throw new AppError("not_found");
+    const user = await userForAccountChange(tx, a.userId);
+    if (!user || !user.siteIds.some((s) => a.adminSiteIds.includes(s))) throw new AppError("not_found");
+    await lockSiteAdministration(tx, user.siteIds);
     const after = { role: a.role ?? user.role, active: a.active ?? user.active };
+    const refusal = accountChangeRefusal({
+      adminSiteIds: a.adminSiteIds, target: user, after,
+      sitesWithAnotherAdmin: await sitesWithAnotherActiveAdmin(tx, user.siteIds, user.id),
+    });
+    if (refusal) {
+      const names = (await siteNames(tx, refusal.siteIds)).join(", ");
+      throw refusal.code === "forbidden"
+        ? new AppError("forbidden", `This person also works at ${names}, where you are not an administrator. A role or an active flag applies at every site, so an administrator of all of their sites must make this change.`)
+        : new AppError("conflict", `This would leave ${names} without an active administrator. Make someone else an administrator there first.`);
+    }
     await setUserRoleAndActive(tx, user.id, after);
     const action = a.active === false && user.active ? "user.deactivated" : a.active === true && !user.active ? "user.reactivated" : "user.updated";
     await recordAudit({ userId: a.adminId, action, entityType: "user", entityId: user.id, ip: a.ip, detail: { before: { role: user.role, active: user.active }, after } }, tx);

@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { randomUUID } from "node:crypto";
-import { eq } from "drizzle-orm";
+import { eq, inArray } from "drizzle-orm";
 import { db } from "@/db/client";
 import { auditEvents, invitations, users } from "@/db/schema";
 import { deliverPending } from "@/lib/server/outbox";
@@ -175,11 +175,55 @@ describe("account administration", () => {
     expect(events.find((e) => e.action === "user.updated")!.detail).toMatchObject({ before: { role: "clinician" }, after: { role: "reviewer" } });
   });
 
-  it("an admin cannot deactivate themself, nor touch a user of another site", async () => {
+  it("a site's only admin cannot deactivate themself, nor touch a user of another site", async () => {
     const site = await makeSite();
     const admin = await actor("admin", [site.id]);
     const stranger = await actor("clinician", [(await makeSite()).id]);
-    expect((await userPatch(req("PATCH", `/api/admin/users/${admin.userId}`, admin, { active: false }), ctx({ userId: admin.userId }))).status).toBe(400);
+    expect((await userPatch(req("PATCH", `/api/admin/users/${admin.userId}`, admin, { active: false }), ctx({ userId: admin.userId }))).status).toBe(409);
     expect((await userPatch(req("PATCH", `/api/admin/users/${stranger.userId}`, admin, { active: false }), ctx({ userId: stranger.userId }))).status).toBe(404);
+  });
+});
+
+describe("administrators across sites", () => {
+  const patch = (by: Awaited<ReturnType<typeof actor>>, userId: string, body: object) => userPatch(req("PATCH", `/api/admin/users/${userId}`, by, body), ctx({ userId }));
+
+  it("an administrator of one site cannot change the role or active flag of someone who also works at another site", async () => {
+    const north = await makeSite("North");
+    const south = await makeSite("South");
+    const northAdmin = await actor("admin", [north.id]);
+    const both = await actor("clinician", [north.id, south.id]);
+    for (const body of [{ role: "reviewer" }, { active: false }]) {
+      const res = await patch(northAdmin, both.userId, body);
+      expect(res.status).toBe(403);
+      expect((await res.json()).error.message).toContain(south.name);
+    }
+    const [row] = await db.select({ role: users.role, active: users.active }).from(users).where(eq(users.id, both.userId));
+    expect(row).toEqual({ role: "clinician", active: true });
+    // An administrator of both sites may.
+    const bothAdmin = await actor("admin", [north.id, south.id]);
+    expect((await patch(bothAdmin, both.userId, { role: "reviewer" })).status).toBe(200);
+  });
+
+  it("an administrator may step down while another active administrator remains at each of their sites, never leaving a site without one (409)", async () => {
+    const north = await makeSite("North");
+    const south = await makeSite("South");
+    const a = await actor("admin", [north.id]);
+    const b = await actor("admin", [north.id]);
+    expect((await patch(a, a.userId, { role: "clinician" })).status).toBe(200);
+    for (const body of [{ role: "clinician" }, { active: false }]) {
+      const res = await patch(b, b.userId, body);
+      expect(res.status).toBe(409);
+      expect((await res.json()).error.message).toContain(north.name);
+    }
+    // Over two sites: North has b and c, South only c.
+    const c = await actor("admin", [north.id, south.id]);
+    expect((await patch(b, c.userId, { active: false })).status).toBe(403);
+    const res = await patch(c, c.userId, { active: false });
+    expect(res.status).toBe(409);
+    const message = (await res.json()).error.message as string;
+    expect(message).toContain(south.name);
+    expect(message).not.toContain(north.name);
+    const rows = await db.select({ id: users.id, role: users.role, active: users.active }).from(users).where(inArray(users.id, [b.userId, c.userId]));
+    expect(rows.every((r) => r.role === "admin" && r.active)).toBe(true);
   });
 });
