@@ -1,5 +1,6 @@
 import type { Metadata, Viewport } from "next";
 import localFont from "next/font/local";
+import { connection } from "next/server";
 import "./globals.css";
 
 // Shipped with the app from the npm font package: nothing is fetched at build or run time.
@@ -19,7 +20,10 @@ export const metadata: Metadata = {
 
 export const viewport: Viewport = { width: "device-width", initialScale: 1 };
 
-export default function RootLayout({ children }: { children: React.ReactNode }) {
+export default async function RootLayout({ children }: { children: React.ReactNode }) {
+  // Every page is rendered per request, so Next can put that request's CSP nonce (proxy.ts) on
+  // its scripts; a page prerendered at build time would carry none and its scripts would be blocked.
+  await connection();
   return (
     <html lang="en" className={dentateFont.variable}>
       <body className="min-h-screen font-sans antialiased">{children}</body>

@@ -3,10 +3,11 @@ import "server-only";
 // password reset). They still check the Origin of mutations and are rate-limited per client
 // address; the access matrix lists them through the `dentateRoles = "public"` marker.
 import { hitRateLimit } from "@/lib/server/rate-limit";
-import { clientIp, originAllowed } from "@/lib/auth/request-info";
+import { clientIp, isHttps, originAllowed } from "@/lib/auth/request-info";
 import { assertServable } from "@/lib/auth/servable";
 import { AppError, errorToBody } from "@/lib/errors";
 import { json } from "./route";
+import { withApiHeaders } from "./security-headers";
 
 export interface PublicRouteOptions {
   /** A name for the limiter bucket, e.g. "forgot-password". */
@@ -45,7 +46,7 @@ export function publicRoute(opts: PublicRouteOptions, handler: (args: PublicRout
     }
     const wait = (opts.minDurationMs ?? 0) - (Date.now() - started);
     if (wait > 0) await new Promise((r) => setTimeout(r, wait));
-    return response;
+    return withApiHeaders(response, { https: isHttps(req.headers) });
   };
   (wrapped as unknown as { dentateRoles: "public" }).dentateRoles = "public";
   return wrapped;

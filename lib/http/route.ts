@@ -1,7 +1,8 @@
 import "server-only";
 import { z } from "zod";
 import { userFromRequest, requireRole, type CurrentUser } from "@/lib/auth/guard";
-import { clientIp, originAllowed } from "@/lib/auth/request-info";
+import { clientIp, isHttps, originAllowed } from "@/lib/auth/request-info";
+import { withApiHeaders } from "./security-headers";
 import { AppError, errorToBody } from "@/lib/errors";
 import type { Role } from "@/lib/domain/vocab";
 
@@ -30,7 +31,9 @@ export function json(body: unknown, status = 200, headers?: HeadersInit): Respon
  * then the handler; every failure becomes the same JSON error shape.
  */
 export function route<P = Record<string, never>>(opts: RouteOptions, handler: Handler<P>) {
-  const wrapped = async (req: Request, ctx?: { params?: Promise<P> }): Promise<Response> => {
+  const wrapped = async (req: Request, ctx?: { params?: Promise<P> }): Promise<Response> =>
+    withApiHeaders(await answer(req, ctx), { https: isHttps(req.headers) });
+  const answer = async (req: Request, ctx?: { params?: Promise<P> }): Promise<Response> => {
     try {
       if (MUTATING.has(req.method) && !originAllowed(req.headers)) {
         throw new AppError("forbidden", "This request did not come from a Dentate page.");
