@@ -15,7 +15,7 @@ import { hashPassword } from "@/lib/auth/password";
 import { createSession, SESSION_COOKIE } from "@/lib/auth/session";
 import { makePatient, makeSite, makeUser } from "../fixtures/factory";
 
-const request = vi.hoisted(() => ({ headers: new Headers(), set: [] as string[] }));
+const request = vi.hoisted(() => ({ headers: new Headers(), set: [] as string[], attributes: [] as unknown[] }));
 vi.mock("next/headers", () => ({
   headers: async () => request.headers,
   cookies: async () => ({
@@ -23,7 +23,10 @@ vi.mock("next/headers", () => ({
       const m = (request.headers.get("cookie") ?? "").match(new RegExp(`${name}=([^;]+)`));
       return m ? { name, value: m[1] } : undefined;
     },
-    set: (name: string) => void request.set.push(name),
+    set: (name: string, _value: string, attributes: unknown) => {
+      request.set.push(name);
+      request.attributes.push(attributes);
+    },
   }),
 }));
 vi.mock("next/navigation", () => ({ redirect: (to: string) => { throw Object.assign(new Error(`redirect ${to}`), { redirectTo: to }); } }));
@@ -55,6 +58,7 @@ beforeEach(async () => {
   cookie = `${SESSION_COOKIE}=${await createSession(userId)}`;
   patientId = (await makePatient(site.id)).id;
   request.set = [];
+  request.attributes = [];
 });
 
 function form() {
@@ -105,5 +109,21 @@ describe("server actions", () => {
     expect(request.set).toEqual([SESSION_COOKIE]);
     const rows = await db.select().from(auditEvents).where(eq(auditEvents.action, "sign_in.succeeded"));
     expect(rows.length).toBeGreaterThan(0);
+  });
+
+  // The Secure attribute keeps the cookie off plain http (RFC 6265 §4.1.2.5). With TLS ended at a
+  // proxy that sends no X-Forwarded-Proto, only the configured public address can tell.
+  it("marks the session cookie Secure whenever APP_BASE_URL is https, though the request itself says nothing of TLS", async () => {
+    const saved = process.env.APP_BASE_URL;
+    process.env.APP_BASE_URL = "https://dentate.clinic.example";
+    try {
+      request.headers = new Headers({ host: "dentate.test", origin: "http://dentate.test", "x-dentate-peer": "10.50.0.3", "x-dentate-peer-proto": "http" });
+      const { signInAction } = await import("@/app/(auth)/sign-in/actions");
+      await signInAction({}, form()).catch(() => null);
+      expect(request.set).toEqual([SESSION_COOKIE]);
+      expect(request.attributes[0]).toMatchObject({ secure: true, httpOnly: true });
+    } finally {
+      process.env.APP_BASE_URL = saved;
+    }
   });
 });
