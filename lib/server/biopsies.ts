@@ -2,6 +2,7 @@ import "server-only";
 import { db } from "@/db/client";
 import { biopsyInScope, deleteBiopsyRow, insertBiopsy, lesionPlaceOnVisit, specimenLabelsOfVisit, updateBiopsyResult } from "@/db/queries/biopsies";
 import { lockDraftVisit } from "@/db/queries/visit-access";
+import { lockPatientStatusesOfBiopsy, lockPatientStatusesOfVisit } from "@/db/queries/patient-lock";
 import { recordAudit } from "@/db/queries/audit-write";
 import type { SiteScope } from "@/db/queries/scope";
 import { AppError } from "@/lib/errors";
@@ -13,7 +14,7 @@ const LABELS = "ABCDEFGHIJKLMNOPQRSTUVWXYZ";
 /** Specimen labels run A, B, C… per visit, as printed on the requisition. */
 export async function createBiopsy(scope: SiteScope, visitId: string, input: CreateBiopsyInput, ip: string) {
   return db.transaction(async (tx) => {
-    const visit = await lockDraftVisit(tx, scope, visitId);
+    const [, visit] = await Promise.all([lockPatientStatusesOfVisit(tx, scope, visitId), lockDraftVisit(tx, scope, visitId)]);
     let place: { lesionId: string | null; clockH: number; distanceCm: number };
     if ("lesionId" in input) {
       const l = await lesionPlaceOnVisit(tx, input.lesionId, visit.id);
@@ -34,7 +35,7 @@ export async function createBiopsy(scope: SiteScope, visitId: string, input: Cre
 
 export async function deleteBiopsy(scope: SiteScope, biopsyId: string, ip: string) {
   await db.transaction(async (tx) => {
-    const b = await biopsyInScope(tx, scope, biopsyId);
+    const [, b] = await Promise.all([lockPatientStatusesOfBiopsy(tx, scope, biopsyId), biopsyInScope(tx, scope, biopsyId)]);
     if (!b) throw new AppError("not_found");
     const visit = await lockDraftVisit(tx, scope, b.visitId);
     await deleteBiopsyRow(tx, biopsyId);
@@ -50,7 +51,7 @@ export async function deleteBiopsy(scope: SiteScope, biopsyId: string, ip: strin
  */
 export async function enterHistology(scope: SiteScope, biopsyId: string, input: HistologyResultInput, ip: string) {
   return db.transaction(async (tx) => {
-    const b = await biopsyInScope(tx, scope, biopsyId, { forUpdate: true });
+    const [, b] = await Promise.all([lockPatientStatusesOfBiopsy(tx, scope, biopsyId), biopsyInScope(tx, scope, biopsyId, { forUpdate: true })]);
     if (!b) throw new AppError("not_found");
     const row = await updateBiopsyResult(tx, biopsyId, { histology: input.histology, ainGrade: input.ainGrade ?? null, p16: input.p16 ?? null, resultEnteredAt: new Date(), resultEnteredBy: scope.userId });
     await refreshTrackStatuses(tx, b.patientId, b.siteId);

@@ -5,6 +5,7 @@ import {
   deleteLesionRow, deleteTrackIfUnused, fetchLesion, insertLesion, insertTrack, lesionByClientKey, lesionOnVisit, trackOfPatient, updateLesionRow, type LesionRow,
 } from "@/db/queries/lesions";
 import { lockDraftVisit, lockDraftVisitForLesion } from "@/db/queries/visit-access";
+import { lockPatientStatusesOfVisit } from "@/db/queries/patient-lock";
 import { recordAudit } from "@/db/queries/audit-write";
 import type { SiteScope } from "@/db/queries/scope";
 import { AppError } from "@/lib/errors";
@@ -33,7 +34,9 @@ export async function createLesion(scope: SiteScope, visitId: string, input: Cre
     // is held, with a fresh snapshot (READ COMMITTED), so of two such requests the second sees the
     // first's row. (Inside the locking statement it would read the snapshot from before the wait.)
     // Its answer is used only once the lock has found the visit in the caller's scope.
-    const [{ visit }, made] = await Promise.all([
+    // First of all, the patient's status lock (db/queries/patient-lock.ts), in the same round trip.
+    const [, { visit }, made] = await Promise.all([
+      lockPatientStatusesOfVisit(tx, scope, visitId),
       lockDraftVisitForLesion(tx, scope, visitId, { lockPatient: true }),
       input.clientKey ? lesionByClientKey(tx, { visitId, clientKey: input.clientKey }).then((rows) => rows[0]) : undefined,
     ]);
@@ -75,7 +78,7 @@ export async function createLesion(scope: SiteScope, visitId: string, input: Cre
 
 export async function updateLesion(scope: SiteScope, visitId: string, lesionId: string, input: UpdateLesionInput, ip: string): Promise<LesionDto> {
   return db.transaction(async (tx) => {
-    const { visit, current } = await lockDraftVisitForLesion(tx, scope, visitId, { lesionId });
+    const [, { visit, current }] = await Promise.all([lockPatientStatusesOfVisit(tx, scope, visitId), lockDraftVisitForLesion(tx, scope, visitId, { lesionId })]);
     if (!current) throw new AppError("not_found");
     if (current.version !== input.version) throw new AppError("conflict");
     const { version, trackId, ...fields } = input;
@@ -108,7 +111,7 @@ export async function updateLesion(scope: SiteScope, visitId: string, lesionId: 
 
 export async function deleteLesion(scope: SiteScope, visitId: string, lesionId: string, version: number, ip: string): Promise<void> {
   await db.transaction(async (tx) => {
-    const visit = await lockDraftVisit(tx, scope, visitId);
+    const [, visit] = await Promise.all([lockPatientStatusesOfVisit(tx, scope, visitId), lockDraftVisit(tx, scope, visitId)]);
     const current = await lesionOnVisit(tx, lesionId, visit.id);
     if (!current) throw new AppError("not_found");
     if (current.version !== version) throw new AppError("conflict");

@@ -7,6 +7,7 @@ import {
   moveTrack, setLesionTrack, sightingsOfTracks, trackChecksOfVisit, trackIsPatients, upsertTrackCheck,
 } from "@/db/queries/track-links";
 import { loadVisit, lockDraftVisit } from "@/db/queries/visit-access";
+import { lockPatientStatusesOfVisit } from "@/db/queries/patient-lock";
 import { recordAudit } from "@/db/queries/audit-write";
 import type { SiteScope } from "@/db/queries/scope";
 import { AppError } from "@/lib/errors";
@@ -46,7 +47,7 @@ export async function loadFollowUpContext(scope: SiteScope, visitId: string) {
 /** Confirm, relink, split or merge tracks, or mark an earlier track not found; every change audited. */
 export async function applyTrackAction(scope: SiteScope, visitId: string, action: TrackAction, ip: string) {
   return db.transaction(async (tx) => {
-    const visit = await lockDraftVisit(tx, scope, visitId);
+    const [, visit] = await Promise.all([lockPatientStatusesOfVisit(tx, scope, visitId), lockDraftVisit(tx, scope, visitId)]);
     await lockPatientRow(tx, visit.patientId);
     const trackOfPatient = async (trackId: string) => {
       if (!(await trackIsPatients(tx, trackId, visit.patientId))) throw new AppError("invalid", undefined, { trackId: ["That track does not belong to this patient."] });

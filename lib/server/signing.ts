@@ -1,6 +1,7 @@
 import "server-only";
 import { db } from "@/db/client";
 import { insertAddendum, listAddenda, markVisitSigned, visitForAddendum, visitForSigning } from "@/db/queries/signing";
+import { lockPatientStatusesOfVisit } from "@/db/queries/patient-lock";
 import { recordAudit } from "@/db/queries/audit-write";
 import type { SiteScope } from "@/db/queries/scope";
 import type { Role } from "@/lib/domain/vocab";
@@ -14,7 +15,7 @@ import { refreshTrackStatuses } from "./track-statuses";
  */
 export async function signVisit(scope: SiteScope, signer: { id: string; role: Role }, visitId: string, ip: string) {
   return db.transaction(async (tx) => {
-    const v = await visitForSigning(tx, scope, visitId);
+    const [, v] = await Promise.all([lockPatientStatusesOfVisit(tx, scope, visitId), visitForSigning(tx, scope, visitId)]);
     if (!v) throw new AppError("not_found");
     if (signer.role !== "admin" && v.examinerId !== signer.id) {
       throw new AppError("forbidden", "Only the examining clinician or an admin can sign this visit.");

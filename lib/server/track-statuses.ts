@@ -2,12 +2,26 @@ import "server-only";
 import type { Db, Tx } from "@/db/client";
 import { deleteTrackStatuses, readTrackHistory, writeTrackStatuses, type StoredStatus } from "@/db/queries/tracking";
 import { trackStatuses as computeStatuses, withMetachronousContext } from "@/lib/tracking";
-import { trackHistoriesOf } from "@/lib/tracking/histories";
+import { trackHistoriesOf, type HistoryRows } from "@/lib/tracking/histories";
 
 type Runner = Db | Tx;
 
 const sameRow = (a: StoredStatus, b: StoredStatus) =>
   a.status === b.status && (a.effectiveGrade ?? null) === (b.effectiveGrade ?? null) && a.reason === b.reason && a.siteId === b.siteId;
+
+/** Every track status of one patient worked out from scratch from its history rows, by track. */
+export function recomputeTrackStatuses(read: HistoryRows, siteId: string): Map<string, StoredStatus[]> {
+  const computed = new Map<string, StoredStatus[]>();
+  for (const h of withMetachronousContext(trackHistoriesOf(read))) {
+    computed.set(
+      h.trackId,
+      computeStatuses(h.observations, { earlierDiseaseElsewhere: h.earlierDiseaseElsewhere })
+        .filter((s) => s.status !== null)
+        .map((s) => ({ trackId: h.trackId, visitId: s.visitId, siteId, status: s.status!, effectiveGrade: s.effectiveGrade, reason: s.reason })),
+    );
+  }
+  return computed;
+}
 
 /**
  * Recomputes every track status of one patient (lib/tracking decides; a track's status can depend
@@ -18,15 +32,7 @@ const sameRow = (a: StoredStatus, b: StoredStatus) =>
  */
 export async function refreshTrackStatuses(run: Runner, patientId: string, siteId: string): Promise<void> {
   const read = await readTrackHistory(run, patientId);
-  const computed = new Map<string, StoredStatus[]>();
-  for (const h of withMetachronousContext(trackHistoriesOf(read))) {
-    computed.set(
-      h.trackId,
-      computeStatuses(h.observations, { earlierDiseaseElsewhere: h.earlierDiseaseElsewhere })
-        .filter((s) => s.status !== null)
-        .map((s) => ({ trackId: h.trackId, visitId: s.visitId, siteId, status: s.status!, effectiveGrade: s.effectiveGrade, reason: s.reason })),
-    );
-  }
+  const computed = recomputeTrackStatuses(read, siteId);
   const stored = new Map<string, StoredStatus>();
   for (const r of read.statuses) stored.set(`${r.trackId}|${r.visitId}`, r);
   // Rows that are new or differ are written; stored rows of a recomputed track that the

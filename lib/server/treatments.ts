@@ -2,6 +2,7 @@ import "server-only";
 import { db, type Db, type Tx } from "@/db/client";
 import { deleteTreatmentRow, insertTreatment, lesionIsOnVisit, siteCautionFraction, stampVisitTreatedFraction, treatedArcsOfVisit, treatmentsOfVisit } from "@/db/queries/treatments";
 import { loadVisit, lockDraftVisit } from "@/db/queries/visit-access";
+import { lockPatientStatusesOfVisit } from "@/db/queries/patient-lock";
 import { recordAudit } from "@/db/queries/audit-write";
 import type { SiteScope } from "@/db/queries/scope";
 import { AppError } from "@/lib/errors";
@@ -36,7 +37,7 @@ const EXTENT_REASON_FIELD = "extentOverrideReason";
 /** The server computes the treated union itself; a reason is required from the caution level up. */
 export async function addTreatment(scope: SiteScope, visitId: string, input: TreatmentInput, ip: string) {
   return db.transaction(async (tx) => {
-    const v = await lockDraftVisit(tx, scope, visitId);
+    const [, v] = await Promise.all([lockPatientStatusesOfVisit(tx, scope, visitId), lockDraftVisit(tx, scope, visitId)]);
     if (input.lesionId && !(await lesionIsOnVisit(tx, input.lesionId, v.id))) {
       throw new AppError("invalid", undefined, { lesionId: ["Choose a lesion mapped at this visit."] });
     }
@@ -72,7 +73,7 @@ export async function addTreatment(scope: SiteScope, visitId: string, input: Tre
 
 export async function deleteTreatment(scope: SiteScope, visitId: string, treatmentId: string, ip: string) {
   return db.transaction(async (tx) => {
-    const v = await lockDraftVisit(tx, scope, visitId);
+    const [, v] = await Promise.all([lockPatientStatusesOfVisit(tx, scope, visitId), lockDraftVisit(tx, scope, visitId)]);
     if (!(await deleteTreatmentRow(tx, treatmentId, v.id))) throw new AppError("not_found");
     const extent = await restampUnion(tx, v.id, await cautionFractionOf(tx, v.siteId));
     await refreshTrackStatuses(tx, v.patientId, v.siteId);

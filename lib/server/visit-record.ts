@@ -2,6 +2,7 @@ import "server-only";
 import { db } from "@/db/client";
 import { getVisitRecord, readVisitRecord, saveExam, type VisitRecord } from "@/db/queries/visit-record";
 import { lockDraftVisit } from "@/db/queries/visit-access";
+import { lockPatientStatusesOfVisit } from "@/db/queries/patient-lock";
 import { recordAudit } from "@/db/queries/audit-write";
 import type { SiteScope } from "@/db/queries/scope";
 import { AppError } from "@/lib/errors";
@@ -22,7 +23,8 @@ export async function readVisit(scope: SiteScope, visitId: string, ip: string): 
  */
 export async function updateExamDetails(scope: SiteScope, visitId: string, input: ExamDetailsInput, ip: string): Promise<VisitRecord> {
   return db.transaction(async (tx) => {
-    const v = await lockDraftVisit(tx, scope, visitId);
+    // The patient's status lock first (a changed date re-orders the visits), in the same round trip.
+    const [, v] = await Promise.all([lockPatientStatusesOfVisit(tx, scope, visitId), lockDraftVisit(tx, scope, visitId)]);
     if (v.version !== input.version) throw new AppError("conflict");
     const { version, ...fields } = input;
     const saved = { version: version + 1 };
