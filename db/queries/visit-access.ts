@@ -70,7 +70,12 @@ function lockForLesion(opts: { lockPatient: boolean; withLesion: boolean }) {
     const base = run
       .select({
         visit: { ...visitColumns, zoneBounds: sites.zoneBounds },
-        current: { id: lesions.id, version: lesions.version, distanceStartCm: lesions.distanceStartCm, distanceEndCm: lesions.distanceEndCm, grade: lesions.grade, trackId: lesions.trackId },
+        // Every field a lesion update may change, so the service can tell an update that changes nothing.
+        current: {
+          id: lesions.id, version: lesions.version, trackId: lesions.trackId, clockStartH: lesions.clockStartH, clockEndH: lesions.clockEndH,
+          distanceStartCm: lesions.distanceStartCm, distanceEndCm: lesions.distanceEndCm, grade: lesions.grade, morphology: lesions.morphology,
+          acetowhite: lesions.acetowhite, lugol: lesions.lugol, vessels: lesions.vessels, sizeMm: lesions.sizeMm, note: lesions.note,
+        },
       })
       .from(visits)
       .innerJoin(sites, eq(sites.id, visits.siteId))

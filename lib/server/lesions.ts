@@ -76,12 +76,20 @@ export async function createLesion(scope: SiteScope, visitId: string, input: Cre
   });
 }
 
+/** Whether every value an update sends equals the stored one (a field left out is unchanged). */
+function unchanged(input: UpdateLesionInput, current: Record<string, unknown>): boolean {
+  return Object.entries(input).every(([field, value]) => field === "version" || value === undefined || JSON.stringify(value) === JSON.stringify(current[field] ?? null));
+}
+
 export async function updateLesion(scope: SiteScope, visitId: string, lesionId: string, input: UpdateLesionInput, ip: string): Promise<LesionDto> {
   return db.transaction(async (tx) => {
     const [, { visit, current }] = await Promise.all([lockPatientStatusesOfVisit(tx, scope, visitId), lockDraftVisitForLesion(tx, scope, visitId, { lesionId })]);
     if (!current) throw new AppError("not_found");
     if (current.version !== input.version) throw new AppError("conflict");
     const { version, trackId, ...fields } = input;
+    // An update whose values all equal the stored ones (a form saved again, a tap that moved
+    // nothing) changes nothing: no new version, no audit row, no status work.
+    if (unchanged(input, current)) return fetchLesion(tx, lesionId);
     if (trackId !== undefined && trackId !== null) {
       if (!(await trackOfPatient(tx, trackId, visit.patientId))) throw new AppError("invalid", undefined, { trackId: ["That track does not belong to this patient."] });
     }
