@@ -1,8 +1,8 @@
 import "server-only";
 // Statements of track statuses: a patient's track history as rows, and the stored statuses
 // written or removed. What the statuses are is decided in lib/tracking, by lib/server/track-statuses.ts.
-import { and, eq, inArray, isNotNull, sql as dsql } from "drizzle-orm";
-import { biopsies, lesions, trackChecks, trackStatuses, treatments, visits, lesionTracks } from "../schema";
+import { and, eq, inArray, isNotNull, sql as dsql, type SQL } from "drizzle-orm";
+import { biopsies, lesions, trackChecks, trackStatuses, trackSummaries, treatments, visits, lesionTracks } from "../schema";
 import { prepared, type Db, type Tx } from "../client";
 import { rowsOf } from "./json-rows";
 import { pgArrayLiteral } from "./scope";
@@ -16,30 +16,42 @@ type Lesion = typeof lesions.$inferSelect;
 
 const patientParam = dsql.placeholder("patientId");
 const ofPatient = eq(visits.patientId, patientParam);
+// The tracks read: all of the patient's when the `trackIds` parameter is null, else only those.
+const tracksParam = dsql`${dsql.placeholder("trackIds")}::uuid[]`;
+const ofTracks = (trackColumn: SQL) => dsql`(${tracksParam} is null or ${trackColumn} = any(${tracksParam}))`;
+const lesionOfTracks = (lesionColumn: SQL) => dsql`(${tracksParam} is null or ${lesionColumn} in (select ${lesions.id} from ${lesions} where ${lesions.trackId} = any(${tracksParam})))`;
 
-// A patient's whole track history and its stored statuses in one statement, built once (every
-// lesion write runs it): each part is a JSON array of rows, so the driver parses one value per part.
+// A patient's track history (all tracks, or only some), the stored statuses of those tracks and the
+// stored summary of every track, in one statement built once (every lesion write runs it): each
+// part is a JSON array of rows, so the driver parses one value per part.
 const historyOfPatient = prepared((run) =>
   run
     .select({
       visits: rowsOf<[string, Visit["visitDate"], Visit["status"]]>([visits.id, visits.visitDate, visits.status], dsql`from ${visits} where ${ofPatient}`, dsql`${visits.visitDate}, ${visits.createdAt}`),
-      tracks: rowsOf<[string, string]>([lesionTracks.id, lesionTracks.label], dsql`from ${lesionTracks} where ${eq(lesionTracks.patientId, patientParam)}`),
+      tracks: rowsOf<[string, string]>([lesionTracks.id, lesionTracks.label], dsql`from ${lesionTracks} where ${and(eq(lesionTracks.patientId, patientParam), ofTracks(dsql`${lesionTracks.id}`))}`),
       lesions: rowsOf<[string, string, string, Lesion["grade"]]>(
         [lesions.id, lesions.visitId, lesions.trackId, lesions.grade],
-        dsql`from ${lesions} inner join ${visits} on ${eq(visits.id, lesions.visitId)} where ${and(ofPatient, isNotNull(lesions.trackId))}`,
+        dsql`from ${lesions} inner join ${visits} on ${eq(visits.id, lesions.visitId)} where ${and(ofPatient, isNotNull(lesions.trackId), ofTracks(dsql`${lesions.trackId}`))}`,
       ),
       biopsies: rowsOf<[string | null, Histology]>(
         [biopsies.lesionId, biopsies.histology],
-        dsql`from ${biopsies} inner join ${visits} on ${eq(visits.id, biopsies.visitId)} where ${and(ofPatient, isNotNull(biopsies.histology))}`,
+        dsql`from ${biopsies} inner join ${visits} on ${eq(visits.id, biopsies.visitId)} where ${and(ofPatient, isNotNull(biopsies.histology), lesionOfTracks(dsql`${biopsies.lesionId}`))}`,
       ),
-      treatments: rowsOf<[string | null, string]>([treatments.lesionId, treatments.visitId], dsql`from ${treatments} inner join ${visits} on ${eq(visits.id, treatments.visitId)} where ${ofPatient}`),
+      treatments: rowsOf<[string | null, string]>(
+        [treatments.lesionId, treatments.visitId],
+        dsql`from ${treatments} inner join ${visits} on ${eq(visits.id, treatments.visitId)} where ${and(ofPatient, lesionOfTracks(dsql`${treatments.lesionId}`))}`,
+      ),
       checks: rowsOf<[string, string, (typeof trackChecks.$inferSelect)["outcome"]]>(
         [trackChecks.visitId, trackChecks.trackId, trackChecks.outcome],
-        dsql`from ${trackChecks} inner join ${visits} on ${eq(visits.id, trackChecks.visitId)} where ${ofPatient}`,
+        dsql`from ${trackChecks} inner join ${visits} on ${eq(visits.id, trackChecks.visitId)} where ${and(ofPatient, ofTracks(dsql`${trackChecks.trackId}`))}`,
       ),
       statuses: rowsOf<[string, string, string, StoredStatus["status"], StoredStatus["effectiveGrade"], StoredStatus["reason"]]>(
         [trackStatuses.trackId, trackStatuses.visitId, trackStatuses.siteId, trackStatuses.status, trackStatuses.effectiveGrade, trackStatuses.reason],
-        dsql`from ${trackStatuses} inner join ${lesionTracks} on ${eq(lesionTracks.id, trackStatuses.trackId)} where ${eq(lesionTracks.patientId, patientParam)}`,
+        dsql`from ${trackStatuses} inner join ${lesionTracks} on ${eq(lesionTracks.id, trackStatuses.trackId)} where ${and(eq(lesionTracks.patientId, patientParam), ofTracks(dsql`${trackStatuses.trackId}`))}`,
+      ),
+      summaries: rowsOf<[string, boolean, string | null, string | null, boolean | null]>(
+        [lesionTracks.id, dsql`${trackSummaries.trackId} is not null`, trackSummaries.firstSeen, trackSummaries.firstDiseased, trackSummaries.earlierDiseaseElsewhere],
+        dsql`from ${lesionTracks} left join ${trackSummaries} on ${eq(trackSummaries.trackId, lesionTracks.id)} where ${eq(lesionTracks.patientId, patientParam)}`,
       ),
     })
     .from(dsql`(select) as one`),
@@ -47,9 +59,20 @@ const historyOfPatient = prepared((run) =>
 
 export type StoredStatus = Pick<typeof trackStatuses.$inferSelect, "trackId" | "visitId" | "siteId" | "status" | "effectiveGrade" | "reason">;
 
-/** A patient's track history (the rows lib/tracking reads) and the statuses stored now. */
-export async function readTrackHistory(run: Runner, patientId: string): Promise<HistoryRows & { statuses: StoredStatus[] }> {
-  const [h] = await historyOfPatient(run, { patientId });
+/** What is stored of a track's summary; null when the track has none yet. */
+export interface StoredSummary {
+  trackId: string;
+  stored: { firstSeen: string | null; firstDiseased: string | null; earlierDiseaseElsewhere: boolean } | null;
+}
+
+export type TrackHistoryRead = HistoryRows & { statuses: StoredStatus[]; summaries: StoredSummary[] };
+
+/**
+ * A patient's track history (the rows lib/tracking reads) and the statuses stored now, of every
+ * track or only of `trackIds`; and every track's stored summary.
+ */
+export async function readTrackHistory(run: Runner, patientId: string, trackIds: readonly string[] | null = null): Promise<TrackHistoryRead> {
+  const [h] = await historyOfPatient(run, { patientId, trackIds: trackIds ? pgArrayLiteral(trackIds) : null });
   return {
     visits: h!.visits.map(([id, visitDate, status]) => ({ id, visitDate, status })),
     tracks: h!.tracks.map(([id, label]) => ({ id, label })),
@@ -58,6 +81,10 @@ export async function readTrackHistory(run: Runner, patientId: string): Promise<
     treatments: h!.treatments.map(([lesionId, visitId]) => ({ lesionId, visitId })),
     checks: h!.checks.map(([visitId, trackId, outcome]) => ({ visitId, trackId, outcome })),
     statuses: h!.statuses.map(([trackId, visitId, siteId, status, effectiveGrade, reason]) => ({ trackId, visitId, siteId, status, effectiveGrade, reason })),
+    summaries: h!.summaries.map(([trackId, has, firstSeen, firstDiseased, earlierDiseaseElsewhere]) => ({
+      trackId,
+      stored: has ? { firstSeen, firstDiseased, earlierDiseaseElsewhere: earlierDiseaseElsewhere! } : null,
+    })),
   };
 }
 
@@ -89,4 +116,33 @@ export function writeTrackStatuses(run: Runner, rows: StoredStatus[]) {
 
 export function deleteTrackStatuses(run: Runner, trackId: string, visitIds: string[]) {
   return run.delete(trackStatuses).where(and(eq(trackStatuses.trackId, trackId), inArray(trackStatuses.visitId, visitIds))).execute();
+}
+
+export interface TrackSummaryRow {
+  trackId: string;
+  siteId: string;
+  firstSeen: string | null;
+  firstDiseased: string | null;
+  earlierDiseaseElsewhere: boolean;
+}
+
+// Track summaries written, however many, as one statement built once (as upsertStatuses).
+const upsertSummaries = prepared((run) =>
+  run
+    .insert(trackSummaries)
+    .select(dsql`select * from unnest(${ph("trackIds")}::uuid[], ${ph("siteIds")}::uuid[], ${ph("firstSeen")}::date[], ${ph("firstDiseased")}::date[], ${ph("flags")}::boolean[])`)
+    .onConflictDoUpdate({
+      target: trackSummaries.trackId,
+      set: { siteId: dsql`excluded.site_id`, firstSeen: dsql`excluded.first_seen`, firstDiseased: dsql`excluded.first_diseased`, earlierDiseaseElsewhere: dsql`excluded.earlier_disease_elsewhere` },
+    }),
+);
+
+export function writeTrackSummaries(run: Runner, rows: TrackSummaryRow[]) {
+  return upsertSummaries(run, {
+    trackIds: pgArrayLiteral(rows.map((r) => r.trackId)),
+    siteIds: pgArrayLiteral(rows.map((r) => r.siteId)),
+    firstSeen: pgArrayLiteral(rows.map((r) => r.firstSeen)),
+    firstDiseased: pgArrayLiteral(rows.map((r) => r.firstDiseased)),
+    flags: pgArrayLiteral(rows.map((r) => String(r.earlierDiseaseElsewhere))),
+  });
 }

@@ -68,7 +68,8 @@ export async function createLesion(scope: SiteScope, visitId: string, input: Cre
         note: input.note ?? null,
         clientKey: input.clientKey ?? null,
       }),
-      refreshTrackStatuses(tx, visit.patientId, visit.siteId),
+      // Only the new track's statuses (and any other track whose metachronous flag it turns).
+      refreshTrackStatuses(tx, visit.patientId, visit.siteId, [trackId]),
       recordAudit({ userId: scope.userId, siteId: visit.siteId, patientId: visit.patientId, action: "lesion.create", entityType: "lesion", entityId: lesionId, ip, detail: { ...input } }, tx),
     ]);
     // A lesion created just now has no biopsy and no treatment yet.
@@ -108,7 +109,7 @@ export async function updateLesion(scope: SiteScope, visitId: string, lesionId: 
     // Should the update match no row, the transaction is rolled back with the rest.
     const [updated, , , lesion] = await Promise.all([
       updateLesionRow(tx, lesionId, version, { ...fields, ...(trackId !== undefined ? { trackId } : {}), zone }),
-      statusesMayChange ? refreshTrackStatuses(tx, visit.patientId, visit.siteId) : null,
+      statusesMayChange ? refreshTrackStatuses(tx, visit.patientId, visit.siteId, [current.trackId, trackId]) : null,
       recordAudit({ userId: scope.userId, siteId: visit.siteId, patientId: visit.patientId, action: "lesion.update", entityType: "lesion", entityId: lesionId, ip, detail: { ...input } }, tx),
       fetchLesion(tx, lesionId),
     ]);
@@ -126,7 +127,7 @@ export async function deleteLesion(scope: SiteScope, visitId: string, lesionId: 
     await deleteLesionRow(tx, lesionId);
     // A track left with no lesion anywhere was only this lesion's: remove it too.
     if (current.trackId) await deleteTrackIfUnused(tx, current.trackId);
-    await refreshTrackStatuses(tx, visit.patientId, visit.siteId);
+    await refreshTrackStatuses(tx, visit.patientId, visit.siteId, [current.trackId]);
     await recordAudit({ userId: scope.userId, siteId: visit.siteId, patientId: visit.patientId, action: "lesion.delete", entityType: "lesion", entityId: lesionId, ip }, tx);
   });
 }

@@ -12,8 +12,11 @@ export {
   type TrackMatch,
 } from "./matcher";
 export {
+  metachronousFlags,
   summarizePatient,
+  trackMarks,
   withMetachronousContext,
+  type TrackMarks,
   type PatientSummary,
   type TrackHistory,
   type TrackNow,

@@ -31,42 +31,57 @@ export interface PatientSummary {
   statusesByTrack: Record<string, TrackVisitStatus[]>;
 }
 
-function diseasedDates(track: TrackHistory): string[] {
-  return track.observations
-    .filter((o) => o.seen)
-    .filter((o) => {
-      const g = decideGrade(o.impressionGrade, o.histology).grade;
-      return g === null || isDiseased(g);
-    })
-    .map((o) => o.visitDate);
+/**
+ * What the metachronous rule needs of one track, kept per track so a write can work out the other
+ * tracks' flags without reading their histories: the date it was first seen, and the date of its
+ * earliest non-benign sighting (histology deciding; an ungraded sighting counts as disease).
+ */
+export interface TrackMarks {
+  firstSeen: string | null;
+  firstDiseased: string | null;
 }
 
-function firstSeenDate(track: TrackHistory): string | null {
-  const dates = track.observations.filter((o) => o.seen).map((o) => o.visitDate).sort();
-  return dates[0] ?? null;
+export function trackMarks(track: TrackHistory): TrackMarks {
+  let firstSeen: string | null = null;
+  let firstDiseased: string | null = null;
+  for (const o of track.observations) {
+    if (!o.seen) continue;
+    if (firstSeen === null || o.visitDate < firstSeen) firstSeen = o.visitDate;
+    const g = decideGrade(o.impressionGrade, o.histology).grade;
+    if ((g === null || isDiseased(g)) && (firstDiseased === null || o.visitDate < firstDiseased)) firstDiseased = o.visitDate;
+  }
+  return { firstSeen, firstDiseased };
 }
 
 /**
- * Fills in the metachronous flag (Liu 2018: disease in a different region after earlier disease):
- * true when another track had a non-benign sighting strictly before this track first appeared.
- * Any grade above benign counts as disease here, matching the rest of the tracking rules.
+ * The metachronous flag of each track (Liu 2018: disease in a different region after earlier
+ * disease): true when another track had a non-benign sighting strictly before this track first
+ * appeared. Any grade above benign counts as disease here, matching the rest of the tracking rules.
  */
+export function metachronousFlags(marks: ReadonlyMap<string, TrackMarks>): Map<string, boolean> {
+  // The two earliest first-diseased dates (of different tracks): for any track, the earliest of
+  // the others is the first unless the first is its own.
+  let best: { trackId: string; date: string } | null = null;
+  let second: string | null = null;
+  for (const [trackId, m] of marks) {
+    if (m.firstDiseased === null) continue;
+    if (best === null || m.firstDiseased < best.date) {
+      if (best) second = best.date;
+      best = { trackId, date: m.firstDiseased };
+    } else if (second === null || m.firstDiseased < second) second = m.firstDiseased;
+  }
+  const flags = new Map<string, boolean>();
+  for (const [trackId, m] of marks) {
+    const elsewhere = best && best.trackId !== trackId ? best.date : second;
+    flags.set(trackId, m.firstSeen !== null && elsewhere !== null && elsewhere < m.firstSeen);
+  }
+  return flags;
+}
+
+/** Fills in each track's metachronous flag (metachronousFlags) where it is left undefined. */
 export function withMetachronousContext(tracks: readonly TrackHistory[]): TrackHistory[] {
-  // Each track's earliest diseased sighting, worked out once (not once per pair of tracks): some
-  // sighting of another track lies before this one's first exactly when its earliest one does.
-  const earliestDisease = tracks.map((t) => {
-    let min: string | null = null;
-    for (const d of diseasedDates(t)) if (min === null || d < min) min = d;
-    return min;
-  });
-  return tracks.map((track) => {
-    if (track.earlierDiseaseElsewhere !== undefined) return track;
-    const first = firstSeenDate(track);
-    const earlier =
-      first !== null &&
-      tracks.some((other, i) => other.trackId !== track.trackId && earliestDisease[i] !== null && earliestDisease[i]! < first);
-    return { ...track, earlierDiseaseElsewhere: earlier };
-  });
+  const flags = metachronousFlags(new Map(tracks.map((t) => [t.trackId, trackMarks(t)])));
+  return tracks.map((track) => (track.earlierDiseaseElsewhere !== undefined ? track : { ...track, earlierDiseaseElsewhere: flags.get(track.trackId)! }));
 }
 
 export function summarizePatient(tracks: readonly TrackHistory[]): PatientSummary {
