@@ -102,6 +102,9 @@ wait_http "$BASE/api/ping" 60
 SERVER_PID="$(ss -ltnpH "sport = :$APP_PORT" | sed -n 's/.*pid=\([0-9]*\).*/\1/p' | head -1)"
 [ -n "$SERVER_PID" ] || SERVER_PID="$APP_PID"
 export SERVER_PID
+# PostgreSQL's postmaster (its children are the backends): CPU per request counts theirs too.
+PG_POSTMASTER_PID="$(ss -ltnpH "sport = :$PG_PORT" | sed -n 's/.*pid=\([0-9]*\).*/\1/p' | head -1)"
+export PG_POSTMASTER_PID
 
 # Export first, on a server that has done nothing else yet, so its VmHWM (peak RSS since start)
 # belongs to the export and not to the load test.
@@ -123,4 +126,5 @@ part pages node scripts/bench/pages.mjs "$BASE" "$OUT/prepare.json" "$DENTATE_DI
 part patient-import env DENTATE_BASE_URL="$BASE" $TSX --conditions=react-server scripts/bench/patient-import.ts
 
 mkdir -p bench
+# The report exits non-zero when a load pass left connections idle or requests unanswered.
 node scripts/bench/report.mjs "$PARTS" bench/results.json "$(( $(date +%s) - T0 ))"

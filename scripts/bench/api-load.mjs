@@ -3,7 +3,13 @@
 // open a patient timeline, list a visit's lesions, create a lesion, update it, save the visit.
 // Between them, for context, the authenticated floor: GET /api/me/preferences, which does nothing
 // but the session check every signed-in request makes (one database round trip) and answers the
-// user's display setting from it. No route of the mix can be cheaper than that.
+// user's display setting from it. No route of the mix can be cheaper than that. And the write
+// floor: POST /api/bench/write-floor, the session check, a lesion-sized JSON body through zod and
+// BEGIN; SELECT 1; COMMIT: what every write pays before its own work; the mix's targets are set
+// against it. Last, lesion creates alone and updates alone, with the CPU the server process and
+// PostgreSQL used per answered request (/proc, SERVER_PID and PG_POSTMASTER_PID from bench.sh).
+// Every pass must keep (nearly) all connections busy and see no timeout: `health` lists the
+// passes that did not, and the report then fails the run.
 // Every request in flight works on its own draft visit (prepared by prepare.ts), so the versions
 // it sends are the latest and a 409 would mean a real lost-update bug, not contention we staged;
 // 409s are still counted apart from other errors.
@@ -11,6 +17,7 @@
 import { readFileSync } from "node:fs";
 import { randomUUID } from "node:crypto";
 import autocannon from "autocannon";
+import { cpuNow, cpuPerRequest } from "./proc-cpu.mjs";
 
 const [base, prepFile, secs = "10", conns = "50"] = process.argv.slice(2);
 const prep = JSON.parse(readFileSync(prepFile, "utf8"));
@@ -154,23 +161,79 @@ const mix = [
 
 // A short warm-up of each (route code loaded, pool connections open, JIT warm) before the timed pass.
 const warm = { duration: 3, connections: 10 };
+// A pause before each timed pass, so requests a previous pass left in flight (autocannon stops
+// without waiting for them) are answered before the next pass opens its connections.
+const settle = () => new Promise((r) => setTimeout(r, 1000));
+const timed = async (opts) => {
+  await settle();
+  return run(opts);
+};
 await run({ ...warm, requests: [{ method: "GET", path: "/api/ping" }] });
-const floor = await run({ requests: [{ method: "GET", path: "/api/ping" }] });
+const floor = await timed({ requests: [{ method: "GET", path: "/api/ping" }] });
 // A new request list for each pass, as for the floor (autocannon writes into the objects it is given).
-// In three full `npm run bench` runs this pass showed only 10–11 of 50 connections busy (see
-// busyConnections; the report then flags it rather than print its figures); not in a fourth, nor
-// when this script ran alone against the same server and data, even straight after the export
-// bench. A request unanswered for 5 s now counts as a timeout (an error) in every pass.
 const sessionOnly = () => [{ method: "GET", path: "/api/me/preferences", headers: { cookie: prep.cookie } }];
 await run({ ...warm, requests: sessionOnly() });
-const signedIn = await run({ requests: sessionOnly() });
+const signedIn = await timed({ requests: sessionOnly() });
+const floorBody = JSON.stringify({ clockStartH: 1, clockEndH: 1.8, distanceStartCm: 1, distanceEndCm: 2.5, grade: "lsil", vessels: [], clientKey: randomUUID() });
+const writeFloorReq = () => [{ method: "POST", path: "/api/bench/write-floor", headers: { ...headers }, body: floorBody }];
+await run({ ...warm, requests: writeFloorReq() });
+const writeFloor = await timed({ requests: writeFloorReq() });
 takeSlots(0, 20);
 await run({ ...warm, requests: mix });
 takeSlots(20, prep.slots.length);
 for (const k of Object.keys(statusCounts)) delete statusCounts[k];
 conflicts = 0;
-const real = await run({ requests: mix });
+const real = await timed({ requests: mix });
+
+// Creates alone, then updates alone (each a real change: the grade turns between HSIL and LSIL),
+// with the CPU used per answered request.
+const serverPid = Number(process.env.SERVER_PID);
+const postmasterPid = Number(process.env.PG_POSTMASTER_PID) || 0;
+const onePass = (step) => [
+  {
+    setupRequest: (req, ctx) => {
+      ctx.slot = answered ? pool[cursor++ % pool.length] : pool[0];
+      ctx.current = answered ? step : steps[1];
+      return { ...req, ...ctx.current.build(ctx), headers: { ...headers } };
+    },
+    onResponse: (status, body, ctx) => {
+      answered = true;
+      note(status, ctx.current.name);
+      ctx.current.after?.(status, body, ctx);
+    },
+  },
+];
+const toggle = {
+  name: "update",
+  build: (ctx) => {
+    const l = ctx.slot.lesion;
+    return { method: "PATCH", path: `/api/visits/${ctx.slot.visitId}/lesions/${l.id}`, body: JSON.stringify({ version: l.version, grade: l.grade === "hsil" ? "lsil" : "hsil" }) };
+  },
+  after: steps[3].after,
+};
+async function cpuPass(step) {
+  takeSlots(20, prep.slots.length);
+  await settle();
+  const ok = () => Object.entries(statusCounts).filter(([k]) => k.startsWith(`${step.name} 2`)).reduce((a, [, n]) => a + n, 0);
+  const okBefore = ok();
+  const before = cpuNow(serverPid, postmasterPid);
+  const res = await run({ requests: onePass(step) });
+  const after = cpuNow(serverPid, postmasterPid);
+  return { ...summary(res), cpu: serverPid ? cpuPerRequest(before, after, ok() - okBefore) : null };
+}
+const createOnly = await cpuPass(steps[2]);
+const updateOnly = await cpuPass(toggle);
+
 const f = summary(floor);
 const a = summary(signedIn);
+const wf = summary(writeFloor);
 const r = summary(real, { conflicts409: conflicts, byStep: statusCounts });
-console.log(JSON.stringify({ connections, durationS: duration, floor: f, sessionFloor: { ...a, ...against(a, f) }, mix: r, ...against(r, f) }));
+// Every pass: at least 90% of the connections busy on average, and no request left unanswered.
+const passes = { floor: f, sessionFloor: a, writeFloor: wf, mix: r, createOnly, updateOnly };
+const health = Object.entries(passes)
+  .filter(([, p]) => p.busyConnections < 0.9 * connections || p.timeouts > 0)
+  .map(([name, p]) => `${name}: ${p.busyConnections} of ${connections} connections busy, ${p.timeouts} timeouts, ${p.socketErrors} socket errors`);
+console.log(JSON.stringify({
+  connections, durationS: duration, floor: f, sessionFloor: { ...a, ...against(a, f) }, writeFloor: { ...wf, ...against(wf, f) }, mix: r, ...against(r, f),
+  againstWriteFloor: against(r, wf), cpu: { create: createOnly.cpu, update: updateOnly.cpu }, createOnly, updateOnly, health,
+}));

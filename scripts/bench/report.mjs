@@ -20,6 +20,8 @@ const load = (name) => {
 };
 
 const rows = [];
+// Conditions that fail the whole run (exit code 1), printed after the table.
+const failures = [];
 const row = (what, figure, floor, ratio, target, ok) => rows.push({ what, figure, floor, ratio, target, ok: ok === undefined ? "" : ok ? "yes" : "NO" });
 const missing = (what, why) => rows.push({ what, figure: `not measured: ${why}`, floor: "", ratio: "", target: "", ok: "" });
 const ms = (x) => (x === null || x === undefined ? "?" : `${x} ms`);
@@ -31,7 +33,7 @@ if (api.data) {
   // A pass where far fewer than all connections were busy (throughput × mean latency) had requests
   // left unanswered: its latencies describe only the rest, so it is flagged instead of shown.
   const suspect = (name, pass) => {
-    if (pass?.busyConnections === undefined || pass.busyConnections >= 0.8 * connections) return false;
+    if (pass?.busyConnections === undefined || pass.busyConnections >= 0.9 * connections) return false;
     missing(`API ${name} pass`, `only ${pass.busyConnections} of ${connections} connections had a request answered on average: its figures are suspect`);
     return true;
   };
@@ -49,7 +51,31 @@ if (api.data) {
     row("Session check only: p95 latency", ms(s.p95Ms), ms(f.p95Ms), s.p95Ratio, "(reported)", undefined);
     row("API mix against the session-check route: throughput / p95", "", "", `${r2(m.reqPerSec, s.reqPerSec)} / ${r2(m.p95Ms, s.p95Ms)}`, "(reported)", undefined);
   }
-} else missing("API under load", api.why);
+  // The write floor: session check + JSON body + zod + BEGIN; SELECT 1; COMMIT. The mix's targets.
+  const wf = api.data.writeFloor;
+  if (wf && !suspect("write floor", wf)) {
+    const t = api.data.againstWriteFloor;
+    row("Write floor (POST /api/bench/write-floor): throughput / p95", `${wf.reqPerSec} req/s / ${ms(wf.p95Ms)}`, `${f.reqPerSec} req/s / ${ms(f.p95Ms)}`, `${wf.throughputRatio} / ${wf.p95Ratio}`, "(reported)", undefined);
+    if (!suspect("mix", m)) {
+      row("API mix against the write floor: throughput", `${m.reqPerSec} req/s`, `${wf.reqPerSec} req/s`, t.throughputRatio, "≥ 0.8", t.throughputRatio >= 0.8);
+      row("API mix against the write floor: p95 latency", ms(m.p95Ms), ms(wf.p95Ms), t.p95Ratio, "≤ 1.5", t.p95Ratio <= 1.5);
+    }
+    row("Write floor: errors", `${wf.errors} of ${wf.requests}`, "", "", "0", wf.errors === 0);
+  }
+  // Server CPU per answered request (/proc: the server process, PostgreSQL's processes).
+  for (const [name, c] of Object.entries(api.data.cpu ?? {})) {
+    if (!c || c.totalMs === null) missing(`Server CPU per request: lesion ${name}`, "no CPU reading (SERVER_PID / PG_POSTMASTER_PID unset, or nothing answered)");
+    else row(`Server CPU per request: lesion ${name} (server + PostgreSQL)`, `${c.totalMs} ms (server ${c.serverMs}, PostgreSQL ${c.postgresMs})`, "", "", "≤ 3.0 ms, PostgreSQL ≤ 1.5 ms", c.totalMs <= 3 && c.postgresMs <= 1.5);
+  }
+  for (const p of ["createOnly", "updateOnly"]) if (api.data[p]) row(`Lesion ${p === "createOnly" ? "creates" : "updates"} alone: errors`, `${api.data[p].errors} of ${api.data[p].requests}`, "", "", "0", api.data[p].errors === 0);
+  // Every load pass: ≥ 90% of the connections busy and no timeout, or the run fails (exit 1).
+  const health = api.data.health ?? ["no health record from api-load.mjs"];
+  row("API load passes: all connections busy, no timeouts", health.length ? health.join("; ") : "every pass", "", "", `≥ ${Math.ceil(0.9 * connections)} of ${connections} busy, 0 timeouts`, health.length === 0);
+  if (health.length) failures.push(`API load passes: ${health.join("; ")}`);
+} else {
+  missing("API under load", api.why);
+  failures.push(`API under load did not run: ${api.why}`);
+}
 
 const map = load("map");
 if (map.data) {
@@ -124,3 +150,7 @@ console.log("\n" + fmt(head));
 console.log(cols.map((c) => "-".repeat(width[c])).join("-|-"));
 for (const r of rows) console.log(fmt(r));
 console.log(`\n${results.host.cores} cores, Node ${process.version}, ${elapsed} s in all. Written to ${outFile}.`);
+if (failures.length) {
+  console.error(`\nBENCH RUN FAILED:\n${failures.map((x) => `  - ${x}`).join("\n")}`);
+  process.exit(1);
+}

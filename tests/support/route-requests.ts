@@ -29,6 +29,11 @@ export const SPECS: Record<string, RequestSpec> = {
   "GET /api/admin/invitations": { noSiteRecord: "a list scoped to the admin's sites; checked for leaks below" },
   "GET /api/admin/followup-rules": { noSiteRecord: "a list scoped to the admin's sites; checked for leaks below" },
   "GET /api/me/preferences": { noSiteRecord: "the caller's own setting" },
+  // The bench's transactional floor (app/api/bench/write-floor): a lesion-shaped body, no record.
+  "POST /api/bench/write-floor": {
+    noSiteRecord: "the benchmark's write floor: reads and changes no record",
+    body: () => ({ clockStartH: 1, clockEndH: 2, distanceStartCm: 1, distanceEndCm: 2.5, grade: "lsil", vessels: [] }),
+  },
   "PATCH /api/me/preferences": { noSiteRecord: "the caller's own setting", body: () => ({ displayConvention: "left_lateral" }) },
   "GET /api/exports/[dataset]": { query: (w) => `?studyId=${w.ids.studyId}` },
   "GET /api/exports/workbook": { query: (w) => `?studyId=${w.ids.studyId}` },
