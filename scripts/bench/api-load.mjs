@@ -25,11 +25,35 @@ const duration = Number(secs);
 const connections = Number(conns);
 const headers = { cookie: prep.cookie, origin: base, "content-type": "application/json" };
 
-/** Runs one autocannon pass; keeps every response time, since its summary has no p95. */
-function run(opts) {
+/**
+ * Runs one autocannon pass; keeps every response time, since its summary has no p95. Beside it, a
+ * probe on a connection of its own asks for the session-check route every 250 ms: if autocannon
+ * reports requests unanswered while the probe is answered promptly, the load tool is at fault; if
+ * the probe waits too, the server is (`probe` in each pass's figures).
+ */
+function run({ noProbe = false, ...opts }) {
   return new Promise((resolve, reject) => {
     const times = [];
-    const inst = autocannon({ url: base, connections, duration, timeout: 5, ...opts }, (err, res) => (err ? reject(err) : resolve({ ...res, times })));
+    const probe = { sent: 0, maxMs: 0, unanswered: 0 };
+    let probing = !noProbe;
+    const probeLoop = (async () => {
+      while (probing) {
+        const t0 = performance.now();
+        probe.sent++;
+        try {
+          const res = await fetch(`${base}/api/me/preferences`, { headers: { cookie: prep.cookie }, signal: AbortSignal.timeout(5000) });
+          await res.arrayBuffer();
+          probe.maxMs = Math.max(probe.maxMs, Math.round(performance.now() - t0));
+        } catch {
+          probe.unanswered++;
+        }
+        await new Promise((r) => setTimeout(r, 250));
+      }
+    })();
+    const inst = autocannon({ url: base, connections, duration, timeout: 5, ...opts }, (err, res) => {
+      probing = false;
+      probeLoop.then(() => (err ? reject(err) : resolve({ ...res, times, probe })));
+    });
     inst.on("response", (_client, _status, _bytes, ms) => times.push(ms));
     inst.on("error", reject);
   });
@@ -59,6 +83,7 @@ function summary(res, extra = {}) {
     socketErrors: res.errors,
     timeouts: res.timeouts,
     errors: non2xx - (extra.conflicts409 ?? 0) + res.errors + res.timeouts,
+    probe: res.probe,
     ...extra,
   };
 }
@@ -217,7 +242,8 @@ async function cpuPass(step) {
   const ok = () => Object.entries(statusCounts).filter(([k]) => k.startsWith(`${step.name} 2`)).reduce((a, [, n]) => a + n, 0);
   const okBefore = ok();
   const before = cpuNow(serverPid, postmasterPid);
-  const res = await run({ requests: onePass(step) });
+  // No probe here: its requests would be counted in the CPU but not in the answers.
+  const res = await run({ noProbe: true, requests: onePass(step) });
   const after = cpuNow(serverPid, postmasterPid);
   return { ...summary(res), cpu: serverPid ? cpuPerRequest(before, after, ok() - okBefore) : null };
 }
