@@ -16,46 +16,58 @@ type Lesion = typeof lesions.$inferSelect;
 
 const patientParam = dsql.placeholder("patientId");
 const ofPatient = eq(visits.patientId, patientParam);
-// The tracks read: all of the patient's when the `trackIds` parameter is null, else only those.
+// The tracks read: all of the patient's, or only those in the `trackIds` parameter. Two statements
+// rather than one with "parameter is null or …", so each gets a plan that uses the track indexes.
 const tracksParam = dsql`${dsql.placeholder("trackIds")}::uuid[]`;
-const ofTracks = (trackColumn: SQL) => dsql`(${tracksParam} is null or ${trackColumn} = any(${tracksParam}))`;
-const lesionOfTracks = (lesionColumn: SQL) => dsql`(${tracksParam} is null or ${lesionColumn} in (select ${lesions.id} from ${lesions} where ${lesions.trackId} = any(${tracksParam})))`;
+type Filter = (column: SQL) => SQL;
+const allTracks: Filter = () => dsql`true`;
+const someTracks: Filter = (trackColumn) => dsql`${trackColumn} = any(${tracksParam})`;
+const lesionOf = (filter: Filter): Filter => (filter === allTracks ? allTracks : (lesionColumn) => dsql`${lesionColumn} in (select ${lesions.id} from ${lesions} where ${lesions.trackId} = any(${tracksParam}))`);
 
 // A patient's track history (all tracks, or only some), the stored statuses of those tracks and the
 // stored summary of every track, in one statement built once (every lesion write runs it): each
-// part is a JSON array of rows, so the driver parses one value per part.
-const historyOfPatient = prepared((run) =>
-  run
-    .select({
-      visits: rowsOf<[string, Visit["visitDate"], Visit["status"]]>([visits.id, visits.visitDate, visits.status], dsql`from ${visits} where ${ofPatient}`, dsql`${visits.visitDate}, ${visits.createdAt}`),
-      tracks: rowsOf<[string, string]>([lesionTracks.id, lesionTracks.label], dsql`from ${lesionTracks} where ${and(eq(lesionTracks.patientId, patientParam), ofTracks(dsql`${lesionTracks.id}`))}`),
-      lesions: rowsOf<[string, string, string, Lesion["grade"]]>(
-        [lesions.id, lesions.visitId, lesions.trackId, lesions.grade],
-        dsql`from ${lesions} inner join ${visits} on ${eq(visits.id, lesions.visitId)} where ${and(ofPatient, isNotNull(lesions.trackId), ofTracks(dsql`${lesions.trackId}`))}`,
-      ),
-      biopsies: rowsOf<[string | null, Histology]>(
-        [biopsies.lesionId, biopsies.histology],
-        dsql`from ${biopsies} inner join ${visits} on ${eq(visits.id, biopsies.visitId)} where ${and(ofPatient, isNotNull(biopsies.histology), lesionOfTracks(dsql`${biopsies.lesionId}`))}`,
-      ),
-      treatments: rowsOf<[string | null, string]>(
-        [treatments.lesionId, treatments.visitId],
-        dsql`from ${treatments} inner join ${visits} on ${eq(visits.id, treatments.visitId)} where ${and(ofPatient, lesionOfTracks(dsql`${treatments.lesionId}`))}`,
-      ),
-      checks: rowsOf<[string, string, (typeof trackChecks.$inferSelect)["outcome"]]>(
-        [trackChecks.visitId, trackChecks.trackId, trackChecks.outcome],
-        dsql`from ${trackChecks} inner join ${visits} on ${eq(visits.id, trackChecks.visitId)} where ${and(ofPatient, ofTracks(dsql`${trackChecks.trackId}`))}`,
-      ),
-      statuses: rowsOf<[string, string, string, StoredStatus["status"], StoredStatus["effectiveGrade"], StoredStatus["reason"]]>(
-        [trackStatuses.trackId, trackStatuses.visitId, trackStatuses.siteId, trackStatuses.status, trackStatuses.effectiveGrade, trackStatuses.reason],
-        dsql`from ${trackStatuses} inner join ${lesionTracks} on ${eq(lesionTracks.id, trackStatuses.trackId)} where ${and(eq(lesionTracks.patientId, patientParam), ofTracks(dsql`${trackStatuses.trackId}`))}`,
-      ),
-      summaries: rowsOf<[string, boolean, string | null, string | null, boolean | null]>(
-        [lesionTracks.id, dsql`${trackSummaries.trackId} is not null`, trackSummaries.firstSeen, trackSummaries.firstDiseased, trackSummaries.earlierDiseaseElsewhere],
-        dsql`from ${lesionTracks} left join ${trackSummaries} on ${eq(trackSummaries.trackId, lesionTracks.id)} where ${eq(lesionTracks.patientId, patientParam)}`,
-      ),
-    })
-    .from(dsql`(select) as one`),
-);
+// part is a JSON array of rows, so the driver parses one value per part. The summaries are looked
+// up track by track (a correlated subquery on the primary key), whatever the table's size.
+const historyStatement = (ofTracks: Filter) => {
+  const lesionOfTracks = lesionOf(ofTracks);
+  return prepared((run) =>
+    run
+      .select({
+        visits: rowsOf<[string, Visit["visitDate"], Visit["status"]]>([visits.id, visits.visitDate, visits.status], dsql`from ${visits} where ${ofPatient}`, dsql`${visits.visitDate}, ${visits.createdAt}`),
+        tracks: rowsOf<[string, string]>([lesionTracks.id, lesionTracks.label], dsql`from ${lesionTracks} where ${and(eq(lesionTracks.patientId, patientParam), ofTracks(dsql`${lesionTracks.id}`))}`),
+        lesions: rowsOf<[string, string, string, Lesion["grade"]]>(
+          [lesions.id, lesions.visitId, lesions.trackId, lesions.grade],
+          dsql`from ${lesions} inner join ${visits} on ${eq(visits.id, lesions.visitId)} where ${and(ofPatient, isNotNull(lesions.trackId), ofTracks(dsql`${lesions.trackId}`))}`,
+        ),
+        biopsies: rowsOf<[string | null, Histology]>(
+          [biopsies.lesionId, biopsies.histology],
+          dsql`from ${biopsies} inner join ${visits} on ${eq(visits.id, biopsies.visitId)} where ${and(ofPatient, isNotNull(biopsies.histology), lesionOfTracks(dsql`${biopsies.lesionId}`))}`,
+        ),
+        treatments: rowsOf<[string | null, string]>(
+          [treatments.lesionId, treatments.visitId],
+          dsql`from ${treatments} inner join ${visits} on ${eq(visits.id, treatments.visitId)} where ${and(ofPatient, lesionOfTracks(dsql`${treatments.lesionId}`))}`,
+        ),
+        checks: rowsOf<[string, string, (typeof trackChecks.$inferSelect)["outcome"]]>(
+          [trackChecks.visitId, trackChecks.trackId, trackChecks.outcome],
+          dsql`from ${trackChecks} inner join ${visits} on ${eq(visits.id, trackChecks.visitId)} where ${and(ofPatient, ofTracks(dsql`${trackChecks.trackId}`))}`,
+        ),
+        statuses: rowsOf<[string, string, string, StoredStatus["status"], StoredStatus["effectiveGrade"], StoredStatus["reason"]]>(
+          [trackStatuses.trackId, trackStatuses.visitId, trackStatuses.siteId, trackStatuses.status, trackStatuses.effectiveGrade, trackStatuses.reason],
+          dsql`from ${trackStatuses} inner join ${lesionTracks} on ${eq(lesionTracks.id, trackStatuses.trackId)} where ${and(eq(lesionTracks.patientId, patientParam), ofTracks(dsql`${trackStatuses.trackId}`))}`,
+        ),
+        summaries: rowsOf<[string, [string | null, string | null, boolean] | null]>(
+          [
+            lesionTracks.id,
+            dsql`(select json_build_array(${trackSummaries.firstSeen}, ${trackSummaries.firstDiseased}, ${trackSummaries.earlierDiseaseElsewhere}) from ${trackSummaries} where ${eq(trackSummaries.trackId, lesionTracks.id)})`,
+          ],
+          dsql`from ${lesionTracks} where ${eq(lesionTracks.patientId, patientParam)}`,
+        ),
+      })
+      .from(dsql`(select) as one`),
+  );
+};
+const historyOfPatient = historyStatement(allTracks);
+const historyOfTracks = historyStatement(someTracks);
 
 export type StoredStatus = Pick<typeof trackStatuses.$inferSelect, "trackId" | "visitId" | "siteId" | "status" | "effectiveGrade" | "reason">;
 
@@ -72,7 +84,7 @@ export type TrackHistoryRead = HistoryRows & { statuses: StoredStatus[]; summari
  * track or only of `trackIds`; and every track's stored summary.
  */
 export async function readTrackHistory(run: Runner, patientId: string, trackIds: readonly string[] | null = null): Promise<TrackHistoryRead> {
-  const [h] = await historyOfPatient(run, { patientId, trackIds: trackIds ? pgArrayLiteral(trackIds) : null });
+  const [h] = await (trackIds ? historyOfTracks(run, { patientId, trackIds: pgArrayLiteral(trackIds) }) : historyOfPatient(run, { patientId }));
   return {
     visits: h!.visits.map(([id, visitDate, status]) => ({ id, visitDate, status })),
     tracks: h!.tracks.map(([id, label]) => ({ id, label })),
@@ -81,9 +93,9 @@ export async function readTrackHistory(run: Runner, patientId: string, trackIds:
     treatments: h!.treatments.map(([lesionId, visitId]) => ({ lesionId, visitId })),
     checks: h!.checks.map(([visitId, trackId, outcome]) => ({ visitId, trackId, outcome })),
     statuses: h!.statuses.map(([trackId, visitId, siteId, status, effectiveGrade, reason]) => ({ trackId, visitId, siteId, status, effectiveGrade, reason })),
-    summaries: h!.summaries.map(([trackId, has, firstSeen, firstDiseased, earlierDiseaseElsewhere]) => ({
+    summaries: h!.summaries.map(([trackId, stored]) => ({
       trackId,
-      stored: has ? { firstSeen, firstDiseased, earlierDiseaseElsewhere: earlierDiseaseElsewhere! } : null,
+      stored: stored ? { firstSeen: stored[0], firstDiseased: stored[1], earlierDiseaseElsewhere: stored[2] } : null,
     })),
   };
 }
