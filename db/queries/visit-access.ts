@@ -23,6 +23,12 @@ const visitInScope = and(eq(visits.id, dsql.placeholder("visitId")), inScopePara
 // Built once: every visit page and every change to a visit starts with one of these.
 const visitHeader = prepared((run) => run.select(visitColumns).from(visits).where(visitInScope).limit(1));
 const visitHeaderForUpdate = prepared((run) => run.select(visitColumns).from(visits).where(visitInScope).for("update").limit(1));
+// The same with every field the exam form saves, so a save that changes nothing can be told.
+const examColumns = {
+  ...visitColumns, indication: visits.indication, cytology: visits.cytology, hpvResult: visits.hpvResult, adequacy: visits.adequacy,
+  examStartedAt: visits.examStartedAt, examEndedAt: visits.examEndedAt, anaesthesia: visits.anaesthesia, plan: visits.plan,
+};
+const examForUpdate = prepared((run) => run.select(examColumns).from(visits).where(visitInScope).for("update").limit(1));
 
 // The same, also writing the read's audit row (auditOfRead) when the visit is in scope.
 const visitHeaderAudited = prepared((run) =>
@@ -59,6 +65,14 @@ export async function loadVisitAudited(run: Db | Tx, scope: SiteScope, visitId: 
  */
 export async function lockDraftVisit(tx: Tx, scope: SiteScope, visitId: string) {
   const [v] = await visitHeaderForUpdate(tx, { visitId, siteIds: siteIdsParam(scope) });
+  if (!v) throw new AppError("not_found");
+  if (v.status === "signed") throw new AppError("locked");
+  return v;
+}
+
+/** lockDraftVisit, with the exam details as stored. */
+export async function lockDraftVisitForExam(tx: Tx, scope: SiteScope, visitId: string) {
+  const [v] = await examForUpdate(tx, { visitId, siteIds: siteIdsParam(scope) });
   if (!v) throw new AppError("not_found");
   if (v.status === "signed") throw new AppError("locked");
   return v;

@@ -1,7 +1,7 @@
 import "server-only";
 import { db } from "@/db/client";
 import { getVisitRecord, readVisitRecord, saveExam, type VisitRecord } from "@/db/queries/visit-record";
-import { lockDraftVisit } from "@/db/queries/visit-access";
+import { lockDraftVisitForExam } from "@/db/queries/visit-access";
 import { lockPatientStatusesOfVisit } from "@/db/queries/patient-lock";
 import { recordAudit } from "@/db/queries/audit-write";
 import type { SiteScope } from "@/db/queries/scope";
@@ -16,6 +16,20 @@ export async function readVisit(scope: SiteScope, visitId: string, ip: string): 
   return visit;
 }
 
+type StoredExam = Awaited<ReturnType<typeof lockDraftVisitForExam>>;
+const same = (a: unknown, b: unknown) => (a ?? null) === (b ?? null);
+// Instants compare as instants: the form sends an ISO time with its offset, the row holds a timestamptz.
+const sameInstant = (a: string | null | undefined, b: Date | string | null) => (a == null || b == null ? same(a, b) : Date.parse(a) === new Date(b).getTime());
+
+/** Whether saving these exam details would store exactly what is stored (a field left out is stored as empty). */
+function unchangedExam(f: Omit<ExamDetailsInput, "version">, v: StoredExam): boolean {
+  return (
+    f.visitDate === v.visitDate && f.patientPosition === v.patientPosition && f.cytology === v.cytology && f.hpvResult === v.hpvResult &&
+    same(f.indication, v.indication) && same(f.adequacy, v.adequacy) && same(f.anaesthesia, v.anaesthesia) && same(f.patientWeightKg, v.patientWeightKg) &&
+    same(f.plan, v.plan) && sameInstant(f.examStartedAt, v.examStartedAt) && sameInstant(f.examEndedAt, v.examEndedAt)
+  );
+}
+
 /**
  * Saves the exam details if nobody saved since the caller loaded them (optimistic version).
  * A changed date re-orders the patient's visits, so track statuses are recomputed. The change is
@@ -24,9 +38,12 @@ export async function readVisit(scope: SiteScope, visitId: string, ip: string): 
 export async function updateExamDetails(scope: SiteScope, visitId: string, input: ExamDetailsInput, ip: string): Promise<VisitRecord> {
   return db.transaction(async (tx) => {
     // The patient's status lock first (a changed date re-orders the visits), in the same round trip.
-    const [, v] = await Promise.all([lockPatientStatusesOfVisit(tx, scope, visitId), lockDraftVisit(tx, scope, visitId)]);
+    const [, v] = await Promise.all([lockPatientStatusesOfVisit(tx, scope, visitId), lockDraftVisitForExam(tx, scope, visitId)]);
     if (v.version !== input.version) throw new AppError("conflict");
     const { version, ...fields } = input;
+    // A save whose values all equal the stored ones changes nothing: no new version, no audit row,
+    // no status work; the record is answered as it is.
+    if (unchangedExam(fields, v)) return readVisitRecord(tx, scope, v.id);
     const saved = { version: version + 1 };
     // Sent together, in the order they are started here on the transaction's one connection: the
     // update, then (seeing it) the audit and the record as saved.
