@@ -5,8 +5,10 @@
 source "$(dirname "$0")/lib/common.sh"
 source "$(dirname "$0")/lib/fake-s3.sh"
 source "$(dirname "$0")/lib/fake-mail.sh"
+source "$(dirname "$0")/lib/replica.sh"
 
 PG_PORT="${DENTATE_TEST_PG_PORT:-54339}"
+REPLICA_PORT="${DENTATE_TEST_REPLICA_PORT:-$((PG_PORT + 1))}"
 APP_PORT="${DENTATE_TEST_PORT:-3100}"
 S3_PORT="${DENTATE_TEST_S3_PORT:-4579}"
 SMTP_TEST_PORT="${DENTATE_TEST_SMTP_PORT:-1035}"
@@ -26,6 +28,9 @@ cluster_running test && CLUSTER_WAS_UP=1
 start_cluster test "$PG_PORT" fast
 ensure_role "$PG_PORT" dentate_test dentate_test
 psql_super "$PG_PORT" -d postgres -c "create database $DB owner dentate_test"
+# A streaming replica of the test cluster (made afresh each run): the replica test reads from it.
+start_replica test "$PG_PORT" "$REPLICA_PORT" fast
+export DENTATE_TEST_REPLICA_PORT="$REPLICA_PORT" DENTATE_TEST_REPLICA_SOCKET="$REPLICA_SOCK_DIR"
 
 use_cluster_database "$PG_PORT" dentate_test "$DB"
 export DENTATE_TEST_PG_PORT="$PG_PORT" DENTATE_TEST_PG_SOCKET="$PGSOCK_DIR" DENTATE_TEST_PG_DATA="$PGDATA_DIR" PGBIN
@@ -44,6 +49,7 @@ cleanup() {
   stop_s3_fake
   stop_mail_fake
   psql_super "$PG_PORT" -d postgres -c "drop database if exists $DB with (force)" >/dev/null 2>&1 || true
+  stop_replica test
   [ "$CLUSTER_WAS_UP" = 1 ] || stop_cluster test
   exit "$rc"
 }

@@ -1,5 +1,5 @@
 import "server-only";
-import { sql } from "../../client";
+import { researchSql } from "../../replica";
 import type { Grade } from "@/lib/domain/vocab";
 import { exportFilterSchema } from "@/lib/validation/research";
 import { baseCtes, type ExportScope } from "./export-scope";
@@ -14,6 +14,7 @@ function scopeFor(studyId: string, siteIds: string[]): ExportScope {
 
 /** The figures the study dashboard is made of, read with the exports' own CTEs and outcome definitions. */
 export async function readDashboardRows(studyId: string, siteIds: string[]) {
+  const sql = await researchSql();
   const scope = scopeFor(studyId, siteIds);
   const ctes = baseCtes(scope);
   const [totals] = await sql.unsafe<{ patients: number; visits: number; lesions: number }[]>(`WITH ${ctes}

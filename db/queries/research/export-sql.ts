@@ -2,7 +2,7 @@
 // SQL (db/migrations/0002_deidentify_functions.sql), so rows can stream out of PostgreSQL with COPY and no row ever
 // passes through JavaScript. Identified columns appear only when the filter asks for them, which
 // the route allows for admins with a reason.
-import { sql } from "../../client";
+import { researchSql } from "../../replica";
 import { GRADES, HISTOLOGY, TRACK_STATUSES } from "@/lib/domain/vocab";
 import type { ExportDataset } from "@/lib/validation/research";
 import { IDENTITY_COLUMNS, baseCtes, dateColumn, dateStyle, lit, type ExportScope } from "./export-scope";
@@ -135,11 +135,13 @@ export function exportSelect(dataset: ExportDataset, scope: ExportScope): string
  * One dataset as CSV straight out of PostgreSQL: COPY … TO STDOUT (FORMAT csv, HEADER) quotes
  * fields the RFC 4180 way and writes UTF-8; Node only forwards the bytes.
  */
-export function exportCsvCopy(dataset: ExportDataset, scope: ExportScope) {
+export async function exportCsvCopy(dataset: ExportDataset, scope: ExportScope) {
+  const sql = await researchSql();
   return sql.unsafe(`COPY (${exportSelect(dataset, scope)}) TO STDOUT WITH (FORMAT csv, HEADER, ENCODING 'UTF8')`).readable();
 }
 
 /** The same rows in batches of 500, for writers that need values (the workbook). */
-export function exportRowCursor(dataset: ExportDataset, scope: ExportScope) {
-  return sql.unsafe(exportSelect(dataset, scope)).cursor(500);
+export async function* exportRowCursor(dataset: ExportDataset, scope: ExportScope): AsyncGenerator<Record<string, unknown>[]> {
+  const sql = await researchSql();
+  yield* sql.unsafe<Record<string, unknown>[]>(exportSelect(dataset, scope)).cursor(500);
 }

@@ -1,5 +1,5 @@
 import "server-only";
-import { sql } from "../../client";
+import { researchSql } from "../../replica";
 import type { PatientBundleInput } from "@/lib/fhir";
 import type { AinGrade, Grade, Histology, Modality, P16 } from "@/lib/domain/vocab";
 import type { SexAtBirth } from "@/lib/deidentify";
@@ -13,6 +13,7 @@ export interface FhirLoadOptions {
 }
 
 export async function loadPatientBundleInput(patientId: string, siteId: string, opts: FhirLoadOptions = {}): Promise<PatientBundleInput | null> {
+  const sql = await researchSql();
   const before = opts.beforeDate ?? null;
   const [patient] = await sql<{ id: string; sex_at_birth: SexAtBirth; date_of_birth: string; given_name: string; family_name: string; mrn: string }[]>`
     SELECT id, sex_at_birth, to_char(date_of_birth, 'YYYY-MM-DD') AS date_of_birth, given_name, family_name, mrn

@@ -1,5 +1,5 @@
 import "server-only";
-import { sql } from "../../client";
+import { researchSql } from "../../replica";
 import type { QualityVisit, Severity } from "@/lib/quality";
 import type { Cytology } from "@/lib/domain/vocab";
 import type { SiteScope } from "../scope";
@@ -26,6 +26,7 @@ interface VisitRow {
  */
 export async function loadQualityVisits(scope: SiteScope, year: number): Promise<(QualityVisit & { siteId: string; siteCode: string; examinerName: string })[]> {
   if (scope.siteIds.length === 0) return [];
+  const sql = await researchSql();
   const rows = await sql<VisitRow[]>`
     SELECT v.site_id, s.code AS site_code, v.examiner_id, u.display_name AS examiner_name, v.patient_id,
       to_char(v.visit_date, 'YYYY-MM-DD') AS visit_date, v.cytology,
