@@ -4,11 +4,11 @@ import Link from "next/link";
 import { useEffect, useMemo, useState } from "react";
 import useSWR from "swr";
 import { MapLegend } from "@/components/canal-map";
-import { fetcher, type ApiError } from "@/components/data/fetcher";
+import type { ApiError } from "@/components/data/fetcher";
 import { SuspectedCancerCaution } from "@/components/timeline/summary-panel";
 import { summarizeTimeline } from "@/components/timeline/timeline-summary";
 import { LoadState, lesionCountWords, lesionsByVisit } from "@/components/timeline/timeline-view";
-import { timelineUrl, type Timeline, type TimelineVisit } from "@/components/timeline/timeline-types";
+import { timelineFetcher, timelineUrl, type Timeline, type TimelineVisit } from "@/components/timeline/timeline-types";
 import { TrackMap } from "@/components/timeline/track-map";
 import type { Role } from "@/lib/domain/vocab";
 import type { DisplayConvention } from "@/lib/geometry";
@@ -37,7 +37,7 @@ export function CompareView(props: {
   initial: { a?: string; b?: string; track?: string };
 }) {
   const { patientId, convention, user, reviewers } = props;
-  const { data, error, mutate } = useSWR<Timeline, ApiError>(timelineUrl(patientId), fetcher);
+  const { data, error, mutate } = useSWR<Timeline, ApiError>(timelineUrl(patientId), timelineFetcher);
   const [picked, setPicked] = useState({ a: props.initial.a ?? null, b: props.initial.b ?? null } as { a: string | null; b: string | null });
   const [selectedTrackId, setSelectedTrackId] = useState<string | null>(props.initial.track ?? null);
   const [hoveredTrackId, setHoveredTrackId] = useState<string | null>(null);

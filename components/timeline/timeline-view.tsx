@@ -4,14 +4,14 @@ import Link from "next/link";
 import { useMemo, useState } from "react";
 import useSWR from "swr";
 import { MapLegend } from "@/components/canal-map";
-import { fetcher, type ApiError } from "@/components/data/fetcher";
+import type { ApiError } from "@/components/data/fetcher";
 import type { DisplayConvention } from "@/lib/geometry";
 import { VisitGradeChart } from "./visit-grade-chart";
 import { StatusGrid } from "./status-grid";
 import { StatusLegend } from "./status-glyph";
 import { SummaryPanel, SuspectedCancerCaution } from "./summary-panel";
 import { summarizeTimeline } from "./timeline-summary";
-import { timelineUrl, trackLabelOf, type Timeline } from "./timeline-types";
+import { timelineFetcher, timelineUrl, trackLabelOf, type Timeline } from "./timeline-types";
 import { TrackMap, type TrackLesion } from "./track-map";
 
 export function lesionsByVisit(t: Timeline): Map<string, TrackLesion[]> {
@@ -30,7 +30,7 @@ export function LoadState({ error }: { error?: ApiError }) {
 }
 
 export function TimelineView({ patientId, convention, todayIso }: { patientId: string; convention: DisplayConvention; todayIso: string }) {
-  const { data, error } = useSWR<Timeline, ApiError>(timelineUrl(patientId), fetcher);
+  const { data, error } = useSWR<Timeline, ApiError>(timelineUrl(patientId), timelineFetcher);
   const [selectedTrackId, setSelectedTrackId] = useState<string | null>(null);
   const byVisit = useMemo(() => (data ? lesionsByVisit(data) : new Map<string, TrackLesion[]>()), [data]);
   const summary = useMemo(() => (data ? summarizeTimeline(data) : null), [data]);

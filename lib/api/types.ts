@@ -8,8 +8,9 @@ export type { ImportEvent, ImportReport, ImportResult } from "@/lib/patient-impo
 
 export type Wire<T> = T extends Date ? string : T extends (infer U)[] ? Wire<U>[] : T extends object ? { [K in keyof T]: Wire<T[K]> } : T;
 
-/** GET /api/patients/:id/timeline */
+/** GET /api/patients/:id/timeline answers a TimelineWire (columns, lib/timeline/wire); screens read it decoded, as Timeline. */
 export type Timeline = Wire<TimelineDto>;
+export type { TimelineWire } from "@/lib/timeline/wire";
 
 /** A visit's exam record as the server reads it (GET /api/visits/:id answers `Wire<VisitRecord>`). */
 export interface VisitRecord {

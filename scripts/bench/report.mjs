@@ -91,7 +91,8 @@ if (seq.data) {
   const { floor: f, create: c, move: mv, timeline: t } = seq.data;
   row("Lesion create round trip p50 / p95", `${c.p50Ms} / ${c.p95Ms} ms`, `${f.p50Ms} / ${f.p95Ms} ms`, r2(c.p50Ms, f.p50Ms), "", undefined);
   row("Lesion extent edit round trip p50 / p95", `${mv.p50Ms} / ${mv.p95Ms} ms`, `${f.p50Ms} / ${f.p95Ms} ms`, r2(mv.p50Ms, f.p50Ms), "", undefined);
-  row("Timeline 30×40 GET p50 / p95", `${t.p50Ms} / ${t.p95Ms} ms`, `${f.p50Ms} / ${f.p95Ms} ms`, r2(t.p50Ms, f.p50Ms), "", undefined);
+  row("Timeline 30×40 GET p50 / p95", `${t.p50Ms} / ${t.p95Ms} ms`, `${f.p50Ms} / ${f.p95Ms} ms`, `p95 ${r2(t.p95Ms, f.p95Ms)}`, "p95 ≤ 4× floor", r2(t.p95Ms, f.p95Ms) <= 4);
+  if (t.bodyBytes !== undefined) row("Timeline 30×40: answer size (JSON / gzip)", `${(t.bodyBytes / 1024).toFixed(1)} KB / ${(t.gzipBytes / 1024).toFixed(1)} KB`, "", "", "< 150 KB JSON", t.bodyBytes < 150 * 1024);
   const bad = Object.keys(c.statuses).some((s) => s !== "201") || [mv, t].some((x) => Object.keys(x.statuses).some((s) => s !== "200"));
   if (bad) missing("Sequential statuses", `unexpected statuses create ${JSON.stringify(c.statuses)} extent edit ${JSON.stringify(mv.statuses)} timeline ${JSON.stringify(t.statuses)}`);
 } else missing("Round trips (create, timeline)", seq.why);

@@ -4,6 +4,7 @@
 // and 50 GETs of the constant-JSON floor for the same client and connection handling.
 // Run: node scripts/bench/sequential.mjs <base-url> <prepare.json>
 import { readFileSync } from "node:fs";
+import { gzipSync } from "node:zlib";
 
 const [base, prepFile] = process.argv.slice(2);
 const prep = JSON.parse(readFileSync(prepFile, "utf8"));
@@ -53,5 +54,10 @@ const move = await timed(N, (i) =>
     },
   ),
 );
-const timeline = await timed(N, () => call(`/api/patients/${prep.timeline.patientId}/timeline`));
+// The answer's size as JSON (what the tablet parses) and gzipped (about what crosses the network).
+let bodyBytes = 0;
+const timeline = await timed(N, () => call(`/api/patients/${prep.timeline.patientId}/timeline`, undefined, (_status, text) => (bodyBytes = Buffer.byteLength(text))));
+const lastBody = await (await fetch(`${base}/api/patients/${prep.timeline.patientId}/timeline`, { headers })).text();
+timeline.bodyBytes = bodyBytes;
+timeline.gzipBytes = gzipSync(lastBody).length;
 console.log(JSON.stringify({ floor, create, move, timeline }));
