@@ -12,6 +12,7 @@ import { trackStatuses, withMetachronousContext, type TrackHistory } from "@/lib
 import { runScript } from "@/db/client";
 
 const PATIENTS = Number(process.env.SCALE_PATIENTS ?? 10_000);
+const CHUNK = 10_000;
 const url = process.env.DATABASE_URL;
 if (!url) throw new Error("DATABASE_URL is not set");
 const sql = postgres(url, { max: 2, onnotice: () => {} });
@@ -78,67 +79,71 @@ async function main() {
     await tx`INSERT INTO study_sites (study_id, site_id) VALUES (${studyId}, ${siteId})`;
   });
 
-  const patients: Row[] = [], visits: Row[] = [], tracks: Row[] = [], lesions: Row[] = [], biopsies: Row[] = [], treatments: Row[] = [], statuses: Row[] = [], enrolments: Row[] = [];
   const grades: Grade[] = ["benign", "condyloma", "lsil", "lsil", "hsil", "hsil"];
-  for (let p = 0; p < PATIENTS; p++) {
-    const pid = randomUUID();
-    const dob = iso(dayOf("1940-01-01") + int(0, 365 * 55));
-    patients.push([pid, siteId, `SCL-${String(p + 1).padStart(6, "0")}`, word(2), word(2), dob, pick(["male", "male", "female"]), pick(["positive", "negative", "unknown"]), "{other}", String(int(10000, 99999)), true]);
-    let day = dayOf("2022-01-01") + int(0, 700);
-    const nVisits = int(3, 9);
-    const trackDefs = Array.from({ length: int(3, 6) }, (_, t) => {
-      const start = int(0, 23) / 2;
-      const d0 = pick([-2, -1, 0, 0.5, 1, 1.5, 2]);
-      return { id: randomUUID(), label: `T${t + 1}`, start, end: (start + pick([0.5, 1, 2])) % 12, d0, d1: d0 + pick([0.5, 1]), grade: pick(grades), cleared: false };
-    });
-    for (const t of trackDefs) tracks.push([t.id, pid, siteId, t.label]);
-    const histories: TrackHistory[] = trackDefs.map((t) => ({ trackId: t.id, label: t.label, observations: [] }));
-    for (let v = 0; v < nVisits; v++) {
-      const vid = randomUUID();
-      const date = iso(day);
-      const examiner = pick(examiners);
-      const startedAt = `${date}T09:00:00Z`;
-      visits.push([vid, pid, siteId, date, examiner, v === 0 ? "hsil" : "not_done", "signed", `${date}T11:00:00Z`, examiner, startedAt, `${date}T09:${String(int(8, 25)).padStart(2, "0")}:00Z`]);
-      let label = 0, specimen = 0;
-      trackDefs.forEach((t, ti) => {
-        const obs = { visitId: vid, visitDate: date, lookedFor: true } as const;
-        const seen = !t.cleared ? rand() < 0.97 : rand() < 0.15;
-        if (!seen) return void histories[ti]!.observations.push({ ...obs, seen: false, treatedAtVisit: false });
-        t.cleared = false;
-        if (rand() < 0.1) t.grade = pick(grades);
-        const lid = randomUUID();
-        lesions.push([lid, vid, siteId, t.id, `L${++label}`, t.start, t.end, t.d0, t.d1, zoneForDistance((t.d0 + t.d1) / 2) ?? "distal_canal", t.grade, t.grade === "condyloma" ? "papillary" : "flat", t.grade === "hsil" ? "dense" : "faint", "partial", t.grade === "hsil" ? "{punctation,mosaic}" : "{}", 3 + label]);
-        let histology: Histology | null = null;
-        if (specimen < 26 && (t.grade === "hsil" || rand() < 0.2)) {
-          histology = t.grade === "hsil" ? (rand() < 0.85 ? "hsil" : "lsil") : t.grade === "benign" ? "benign" : "lsil";
-          biopsies.push([randomUUID(), vid, siteId, lid, String.fromCharCode(65 + specimen++), t.start, t.d0, histology, histology === "hsil" ? "block_positive" : "not_done"]);
-        }
-        const treat = t.grade === "hsil" && v < nVisits - 1 && rand() < 0.6;
-        if (treat) {
-          const arcs = [{ startH: t.start, endH: t.end }];
-          treatments.push([randomUUID(), vid, siteId, lid, pick(["electrocautery", "infrared_coagulation"]), JSON.stringify(arcs), treatedFraction(arcs)]);
-          t.cleared = true;
-        }
-        histories[ti]!.observations.push({ ...obs, seen: true, impressionGrade: t.grade, histology, treatedAtVisit: treat });
-      });
-      day += int(90, 200);
-    }
-    for (const h of withMetachronousContext(histories)) {
-      for (const s of trackStatuses(h.observations, { earlierDiseaseElsewhere: h.earlierDiseaseElsewhere })) {
-        if (s.status !== null) statuses.push([h.trackId, s.visitId, siteId, s.status, s.effectiveGrade ?? null, s.reason]);
-      }
-    }
-    enrolments.push([randomUUID(), studyId, pid, siteId, `SCL-${String(p + 1).padStart(5, "0")}`, String(visits.at(-nVisits)![3])]);
-  }
   const counts: Record<string, number> = {};
-  counts.patients = await copyRows("patients", ["id", "site_id", "mrn", "family_name", "given_name", "date_of_birth", "sex_at_birth", "hiv_status", "risk_groups", "zip", "consent_research"], patients);
-  counts.visits = await copyRows("visits", ["id", "patient_id", "site_id", "visit_date", "examiner_id", "cytology", "status", "signed_at", "signed_by", "exam_started_at", "exam_ended_at"], visits);
-  counts.tracks = await copyRows("lesion_tracks", ["id", "patient_id", "site_id", "label"], tracks);
-  counts.lesions = await copyRows("lesions", ["id", "visit_id", "site_id", "track_id", "label", "clock_start_h", "clock_end_h", "distance_start_cm", "distance_end_cm", "zone", "grade", "morphology", "acetowhite", "lugol", "vessels", "size_mm"], lesions);
-  counts.biopsies = await copyRows("biopsies", ["id", "visit_id", "site_id", "lesion_id", "specimen_label", "clock_h", "distance_cm", "histology", "p16"], biopsies);
-  counts.treatments = await copyRows("treatments", ["id", "visit_id", "site_id", "lesion_id", "modality", "arcs", "treated_fraction"], treatments);
-  counts.trackStatuses = await copyRows("track_statuses", ["track_id", "visit_id", "site_id", "status", "effective_grade", "reason"], statuses);
-  counts.enrolments = await copyRows("enrolments", ["id", "study_id", "patient_id", "site_id", "study_subject_id", "consent_date"], enrolments);
+  const add = (k: string, n: number) => (counts[k] = (counts[k] ?? 0) + n);
+  // Built and copied 10,000 patients at a time, so 100,000 (SCALE_PATIENTS) fit in memory.
+  for (let from = 0; from < PATIENTS; from += CHUNK) {
+    const patients: Row[] = [], visits: Row[] = [], tracks: Row[] = [], lesions: Row[] = [], biopsies: Row[] = [], treatments: Row[] = [], statuses: Row[] = [], enrolments: Row[] = [];
+    for (let p = from; p < Math.min(PATIENTS, from + CHUNK); p++) {
+      const pid = randomUUID();
+      const dob = iso(dayOf("1940-01-01") + int(0, 365 * 55));
+      patients.push([pid, siteId, `SCL-${String(p + 1).padStart(6, "0")}`, word(2), word(2), dob, pick(["male", "male", "female"]), pick(["positive", "negative", "unknown"]), "{other}", String(int(10000, 99999)), true]);
+      let day = dayOf("2022-01-01") + int(0, 700);
+      const nVisits = int(3, 9);
+      const trackDefs = Array.from({ length: int(3, 6) }, (_, t) => {
+        const start = int(0, 23) / 2;
+        const d0 = pick([-2, -1, 0, 0.5, 1, 1.5, 2]);
+        return { id: randomUUID(), label: `T${t + 1}`, start, end: (start + pick([0.5, 1, 2])) % 12, d0, d1: d0 + pick([0.5, 1]), grade: pick(grades), cleared: false };
+      });
+      for (const t of trackDefs) tracks.push([t.id, pid, siteId, t.label]);
+      const histories: TrackHistory[] = trackDefs.map((t) => ({ trackId: t.id, label: t.label, observations: [] }));
+      for (let v = 0; v < nVisits; v++) {
+        const vid = randomUUID();
+        const date = iso(day);
+        const examiner = pick(examiners);
+        const startedAt = `${date}T09:00:00Z`;
+        visits.push([vid, pid, siteId, date, examiner, v === 0 ? "hsil" : "not_done", "signed", `${date}T11:00:00Z`, examiner, startedAt, `${date}T09:${String(int(8, 25)).padStart(2, "0")}:00Z`]);
+        let label = 0, specimen = 0;
+        trackDefs.forEach((t, ti) => {
+          const obs = { visitId: vid, visitDate: date, lookedFor: true } as const;
+          const seen = !t.cleared ? rand() < 0.97 : rand() < 0.15;
+          if (!seen) return void histories[ti]!.observations.push({ ...obs, seen: false, treatedAtVisit: false });
+          t.cleared = false;
+          if (rand() < 0.1) t.grade = pick(grades);
+          const lid = randomUUID();
+          lesions.push([lid, vid, siteId, t.id, `L${++label}`, t.start, t.end, t.d0, t.d1, zoneForDistance((t.d0 + t.d1) / 2) ?? "distal_canal", t.grade, t.grade === "condyloma" ? "papillary" : "flat", t.grade === "hsil" ? "dense" : "faint", "partial", t.grade === "hsil" ? "{punctation,mosaic}" : "{}", 3 + label]);
+          let histology: Histology | null = null;
+          if (specimen < 26 && (t.grade === "hsil" || rand() < 0.2)) {
+            histology = t.grade === "hsil" ? (rand() < 0.85 ? "hsil" : "lsil") : t.grade === "benign" ? "benign" : "lsil";
+            biopsies.push([randomUUID(), vid, siteId, lid, String.fromCharCode(65 + specimen++), t.start, t.d0, histology, histology === "hsil" ? "block_positive" : "not_done"]);
+          }
+          const treat = t.grade === "hsil" && v < nVisits - 1 && rand() < 0.6;
+          if (treat) {
+            const arcs = [{ startH: t.start, endH: t.end }];
+            treatments.push([randomUUID(), vid, siteId, lid, pick(["electrocautery", "infrared_coagulation"]), JSON.stringify(arcs), treatedFraction(arcs)]);
+            t.cleared = true;
+          }
+          histories[ti]!.observations.push({ ...obs, seen: true, impressionGrade: t.grade, histology, treatedAtVisit: treat });
+        });
+        day += int(90, 200);
+      }
+      for (const h of withMetachronousContext(histories)) {
+        for (const s of trackStatuses(h.observations, { earlierDiseaseElsewhere: h.earlierDiseaseElsewhere })) {
+          if (s.status !== null) statuses.push([h.trackId, s.visitId, siteId, s.status, s.effectiveGrade ?? null, s.reason]);
+        }
+      }
+      enrolments.push([randomUUID(), studyId, pid, siteId, `SCL-${String(p + 1).padStart(5, "0")}`, String(visits.at(-nVisits)![3])]);
+    }
+    add("patients", await copyRows("patients", ["id", "site_id", "mrn", "family_name", "given_name", "date_of_birth", "sex_at_birth", "hiv_status", "risk_groups", "zip", "consent_research"], patients));
+    add("visits", await copyRows("visits", ["id", "patient_id", "site_id", "visit_date", "examiner_id", "cytology", "status", "signed_at", "signed_by", "exam_started_at", "exam_ended_at"], visits));
+    add("tracks", await copyRows("lesion_tracks", ["id", "patient_id", "site_id", "label"], tracks));
+    add("lesions", await copyRows("lesions", ["id", "visit_id", "site_id", "track_id", "label", "clock_start_h", "clock_end_h", "distance_start_cm", "distance_end_cm", "zone", "grade", "morphology", "acetowhite", "lugol", "vessels", "size_mm"], lesions));
+    add("biopsies", await copyRows("biopsies", ["id", "visit_id", "site_id", "lesion_id", "specimen_label", "clock_h", "distance_cm", "histology", "p16"], biopsies));
+    add("treatments", await copyRows("treatments", ["id", "visit_id", "site_id", "lesion_id", "modality", "arcs", "treated_fraction"], treatments));
+    add("trackStatuses", await copyRows("track_statuses", ["track_id", "visit_id", "site_id", "status", "effective_grade", "reason"], statuses));
+    add("enrolments", await copyRows("enrolments", ["id", "study_id", "patient_id", "site_id", "study_subject_id", "consent_date"], enrolments));
+  }
   await sql`ANALYZE`;
   console.log(JSON.stringify({ site: "SCL", study: "SCL-REG-01", seconds: Math.round((Date.now() - started) / 1000), ...counts }));
 }

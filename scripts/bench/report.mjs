@@ -114,6 +114,25 @@ if (ex.data) {
   row("Export workbook (all rows): time / peak RSS", e.workbookStatus === 200 ? `${ms(e.workbookMs)} / ${e.serverPeakRssMbWorkbook} MB` : `status ${e.workbookStatus}`, `VmHWM ${hwmMb ?? "?"} MB`, "", "report", undefined);
 } else missing("Export 200,000 rows", ex.why);
 
+// Research reads (scripts/bench/research-bench.ts): p95 on the primary and on the replica.
+for (const [name, dashTarget, qualityTarget] of [["research-10k", 150, null], ["research-100k", 1000, 500]]) {
+  const r = load(name);
+  if (!r.data) {
+    missing(`Study dashboard / quality panel (${name.slice(9)})`, r.why);
+    continue;
+  }
+  const d = r.data;
+  const size = `${d.patients.toLocaleString("en")} patients, ${d.lesions.toLocaleString("en")} lesions`;
+  for (const [mode, m] of [["primary", d.primary], ["replica", d.replica]]) {
+    if (!m) {
+      missing(`Study dashboard ${d.label} (${mode})`, "no replica");
+      continue;
+    }
+    row(`Study dashboard ${d.label} (${size}), ${mode}: p50 / p95`, `${m.dashboard.p50Ms} / ${m.dashboard.p95Ms} ms`, "", "", `p95 ≤ ${dashTarget} ms`, m.dashboard.p95Ms <= dashTarget);
+    row(`Quality panel ${d.label} (year ${d.year}), ${mode}: p50 / p95`, `${m.quality.p50Ms} / ${m.quality.p95Ms} ms`, "", "", qualityTarget ? `p95 ≤ ${qualityTarget} ms` : "(reported)", qualityTarget ? m.quality.p95Ms <= qualityTarget : undefined);
+  }
+}
+
 const imp = load("patient-import");
 if (imp.data) {
   const i = imp.data;
@@ -136,7 +155,7 @@ if (pages.data) {
 } else missing("Pages (first-load JS, Lighthouse)", pages.why);
 
 const results = { when: new Date().toISOString(), elapsedSeconds: Number(elapsed), host: { cores: (await import("node:os")).cpus().length, node: process.version } };
-for (const n of ["api", "map", "sequential", "timeline-queries", "export", "patient-import", "pages", "prepare"]) {
+for (const n of ["api", "map", "sequential", "timeline-queries", "export", "research-10k", "research-100k", "patient-import", "pages", "prepare"]) {
   const p = load(n);
   results[n] = n === "prepare" ? (p.data ? { slots: p.data.slots.length } : { notMeasured: p.why }) : p.data ?? { notMeasured: p.why };
 }
