@@ -1,0 +1,118 @@
+// The study dashboard's figures must be the figures a statistician gets from the exports of the
+// same study: here every dashboard figure is worked out again from the three CSV exports (counts,
+// lesions, outcomes) as a reader of those files would, and compared. A signed visit added
+// afterwards shows on the dashboard at once (the dashboard reads the records themselves).
+import { beforeAll, describe, expect, it } from "vitest";
+import { parse } from "csv-parse/sync";
+import { and, eq } from "drizzle-orm";
+import { db } from "@/db/client";
+import * as s from "@/db/schema";
+import { refreshTrackStatuses } from "@/lib/server/track-statuses";
+import { loadRegistryDashboard } from "@/lib/server/research";
+import { GET as getCsv } from "@/app/api/exports/[dataset]/route";
+import { GRADES, type Grade } from "@/lib/domain/vocab";
+import { actor, ctx, makePatient, makeSite, req, type Actor } from "../fixtures/factory";
+
+let siteId: string, studyId: string;
+let nurse: Actor, clinician: Actor;
+
+type Plan = { date: string; lesions: { track: number; grade: Grade; histology?: "lsil" | "hsil"; treat?: boolean }[] }[];
+
+async function patientWith(subject: string, plan: Plan, withdrawnOn: string | null = null) {
+  const p = await makePatient(siteId, { consentResearch: true });
+  const tracks = await db.insert(s.lesionTracks).values([1, 2].map((i) => ({ patientId: p.id, siteId, label: `T${i}` }))).returning({ id: s.lesionTracks.id });
+  for (const visit of plan) {
+    const [v] = await db.insert(s.visits).values({ patientId: p.id, siteId, visitDate: visit.date, examinerId: clinician.userId, status: "signed", signedAt: new Date() }).returning({ id: s.visits.id });
+    let n = 0;
+    for (const l of visit.lesions) {
+      const [row] = await db.insert(s.lesions).values({ visitId: v!.id, siteId, trackId: tracks[l.track]!.id, label: `L${++n}`, clockStartH: 1 + l.track * 4, clockEndH: 2 + l.track * 4, distanceStartCm: 1, distanceEndCm: 2, zone: "transformation_zone", grade: l.grade }).returning({ id: s.lesions.id });
+      if (l.histology) await db.insert(s.biopsies).values({ visitId: v!.id, siteId, lesionId: row!.id, specimenLabel: "A", clockH: 1, distanceCm: 1, histology: l.histology });
+      if (l.treat) await db.insert(s.treatments).values({ visitId: v!.id, siteId, lesionId: row!.id, modality: "electrocautery", arcs: [{ startH: 1, endH: 2 }], treatedFraction: 1 / 12 });
+    }
+  }
+  await refreshTrackStatuses(db, p.id, siteId);
+  await db.insert(s.enrolments).values({ studyId, patientId: p.id, siteId, studySubjectId: subject, consentDate: plan[0]!.date, withdrawnOn });
+  return p.id;
+}
+
+async function csv(dataset: string): Promise<Record<string, string>[]> {
+  const res = await getCsv(req("GET", `/api/exports/${dataset}?studyId=${studyId}`, nurse), ctx({ dataset }));
+  expect(res.status).toBe(200);
+  return parse(await res.text(), { columns: true }) as Record<string, string>[];
+}
+
+beforeAll(async () => {
+  siteId = (await makeSite("Figures")).id;
+  nurse = await actor("research_nurse", [siteId]);
+  clinician = await actor("clinician", [siteId]);
+  const [study] = await db.insert(s.studies).values({ code: `F-${siteId.slice(0, 6)}`, title: "Invented figures study", startDate: "2023-01-01" }).returning();
+  studyId = study!.id;
+  await db.insert(s.studySites).values({ studyId, siteId });
+  // Treated, then clear, then back: clearance and a recurrence.
+  await patientWith("FIG-1", [
+    { date: "2023-03-01", lesions: [{ track: 0, grade: "hsil", treat: true }, { track: 1, grade: "lsil" }] },
+    { date: "2023-09-01", lesions: [{ track: 1, grade: "lsil" }] },
+    { date: "2024-03-01", lesions: [{ track: 0, grade: "hsil", histology: "hsil" }] },
+  ]);
+  // Treated, never clear; histology that outranks the impression.
+  await patientWith("FIG-2", [
+    { date: "2023-05-10", lesions: [{ track: 0, grade: "lsil", histology: "hsil", treat: true }] },
+    { date: "2023-11-10", lesions: [{ track: 0, grade: "hsil" }] },
+  ]);
+  // Treated at the last visit: not followed.
+  await patientWith("FIG-3", [{ date: "2024-01-20", lesions: [{ track: 0, grade: "hsil", treat: true }, { track: 1, grade: "condyloma" }] }]);
+  // Withdrawn: the visit on the withdrawal day is never exported.
+  await patientWith("FIG-4", [
+    { date: "2023-06-01", lesions: [{ track: 0, grade: "hsil", treat: true }] },
+    { date: "2024-06-01", lesions: [] },
+  ], "2024-06-01");
+});
+
+describe("study dashboard against the exports", () => {
+  it("every figure equals the one worked out from the CSV exports of the same study", async () => {
+    const [counts, lesions, outcomes] = [await csv("counts"), await csv("lesions"), await csv("outcomes")];
+    const dash = await loadRegistryDashboard(studyId, [siteId]);
+
+    expect(dash.visits).toBe(counts.length);
+    expect(dash.lesions).toBe(counts.reduce((n, r) => n + Number(r.lesions), 0));
+    expect(dash.lesions).toBe(lesions.length);
+    for (const g of GRADES) {
+      const onScreen = dash.gradeByQuarter.reduce((n, q) => n + q[g], 0);
+      expect(onScreen, g).toBe(counts.reduce((n, r) => n + Number(r[`impression_${g}`]), 0));
+    }
+    // Patients still in the study: enrolled subjects minus the withdrawn one (FIG-4).
+    expect(dash.patients).toBe(outcomes.length - 1);
+
+    // A treated lesion is followed when its patient has a later exported visit, cleared when its
+    // track's status at that next visit is cleared or regressed. The lesions file has no row for a
+    // track nobody saw at a visit, so the next visit's status counts come from the counts file
+    // (in this registry only treated tracks ever clear or regress, so the counts are theirs).
+    const lastSeq = new Map<string, number>();
+    for (const r of counts) lastSeq.set(r.study_id!, Math.max(lastSeq.get(r.study_id!) ?? 0, Number(r.visit_seq)));
+    const visitRow = new Map(counts.map((r) => [`${r.study_id}@${r.visit_seq}`, r]));
+    const treated = [...new Set(lesions.filter((r) => r.treatment_modality && !r.track_id!.endsWith("untracked")).map((r) => `${r.study_id}|${r.track_id}|${r.visit_seq}`))];
+    const followed = treated.filter((t) => { const [sid, , seq] = t.split("|"); return Number(seq) < lastSeq.get(sid!)!; });
+    const nextVisits = new Set(followed.map((t) => { const [sid, , seq] = t.split("|"); return `${sid}@${Number(seq) + 1}`; }));
+    const cleared = [...nextVisits].reduce((n, k) => n + Number(visitRow.get(k)!.tracks_cleared) + Number(visitRow.get(k)!.tracks_regressed), 0);
+    expect(dash.clearance.lesionsTreatedFollowed).toBe(followed.length);
+    expect(dash.clearance.lesionsCleared).toBe(cleared);
+    expect(cleared).toBeGreaterThan(0);
+    expect(followed.length).toBeGreaterThan(0);
+
+    // Per patient, from the outcomes file.
+    expect(dash.clearance.patientsCleared).toBe(outcomes.filter((r) => r.days_treatment_to_clearance !== "").length);
+    const inKm = outcomes.filter((r) => r.recurrence !== "");
+    expect(dash.recurrence.patients).toBe(inKm.length);
+    expect(dash.recurrence.events).toBe(inKm.filter((r) => r.recurrence === "1").length);
+    expect(dash.recurrence.events).toBeGreaterThan(0);
+  });
+
+  it("a newly signed visit shows on the dashboard at once", async () => {
+    const before = await loadRegistryDashboard(studyId, [siteId]);
+    const [e] = await db.select({ patientId: s.enrolments.patientId }).from(s.enrolments).where(and(eq(s.enrolments.studyId, studyId), eq(s.enrolments.studySubjectId, "FIG-3")));
+    await db.insert(s.visits).values({ patientId: e!.patientId, siteId, visitDate: "2024-07-20", examinerId: clinician.userId, status: "signed", signedAt: new Date() });
+    const after = await loadRegistryDashboard(studyId, [siteId]);
+    expect(after.visits).toBe(before.visits + 1);
+    expect(after.clearance.patientsTreatedFollowed).toBe(before.clearance.patientsTreatedFollowed + 1);
+  });
+});
