@@ -5,14 +5,15 @@ const none = { lesions: [], treatedHsil: false };
 
 describe("default intervals", () => {
   it("schedules treated HSIL within the published 3-6 month window", () => {
-    // Goldstone SE, Dis Colon Rectum 2005: follow-up every 3-6 months after treatment (Liu Y et al., Papillomavirus Res 2018).
+    // Goldstone SE, Dis Colon Rectum 2005: follow-up every 3-6 months after treatment.
     expect(DEFAULT_FOLLOWUP_MONTHS.after_hsil_treatment).toBeGreaterThanOrEqual(3);
     expect(DEFAULT_FOLLOWUP_MONTHS.after_hsil_treatment).toBeLessThanOrEqual(6);
   });
   it("never waits longer than the guidance allows", () => {
     // ANCHOR (Palefsky JM, N Engl J Med 2022): HRA at least every 6 months with HSIL in either arm.
     expect(DEFAULT_FOLLOWUP_MONTHS.hsil_untreated).toBeLessThanOrEqual(6);
-    // Liu Y et al., Papillomavirus Res 2018: surveillance HRA within 12 months.
+    // Liu Y et al., Papillomavirus Res 2018: surveillance HRA within 12 months after treatment (the outer
+    // bound there); for the other situations a yearly ceiling is a local default, from memory.
     for (const months of Object.values(DEFAULT_FOLLOWUP_MONTHS)) expect(months).toBeLessThanOrEqual(12);
   });
 });

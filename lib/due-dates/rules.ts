@@ -22,7 +22,8 @@ export const DEFAULT_FOLLOWUP_MONTHS: FollowupRuleTable = {
   suspected_cancer: 1,
   // Follow-up every 3-6 months after treatment is common (Goldstone SE, Dis Colon Rectum 2005);
   // histological resolution is judged weeks after treatment (Richel O, Lancet Oncol 2013).
-  // The lower bound is the default. Range from Liu Y et al., Papillomavirus Res 2018; the choice of 3 is ours.
+  // The lower bound is the default; the choice of 3 is ours. Liu Y et al. (Papillomavirus Res 2018;5:S9)
+  // give surveillance HRA within 12 months after treatment: the outer bound for this rule.
   after_hsil_treatment: 3,
   // ANCHOR examined both arms at least every 6 months (Palefsky JM, N Engl J Med 2022);
   // an untreated HSIL usually waits for treatment, so we default tighter. Common practice, no source.
@@ -31,8 +32,8 @@ export const DEFAULT_FOLLOWUP_MONTHS: FollowupRuleTable = {
   lsil_only: 12,
   // Abnormal cytology with a normal HRA is re-examined sooner than a clear result: from memory.
   abnormal_cytology_normal_exam: 6,
-  // Surveillance HRA within 12 months (Liu Y, Sigel K, Gaisa MM, Papillomavirus Res 2018;5:S9,
-  // a post-treatment series; used here as the outer bound). From memory for untreated patients.
+  // Local default, from memory. Liu 2018's "within 12 months" is surveillance after treatment and
+  // is not a source for an untreated clear examination.
   clear_exam: 12,
 };
 

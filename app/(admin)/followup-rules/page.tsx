@@ -2,23 +2,16 @@ import { AppShell } from "@/components/shell/app-shell";
 import { listSiteRules } from "@/lib/server/due-dates";
 import { requirePageRole } from "@/lib/auth/page-guard";
 import { DEFAULT_FOLLOWUP_MONTHS, FOLLOWUP_RULE_KEYS } from "@/lib/due-dates/rules";
+import { FOLLOWUP_RULE_SOURCES } from "@/lib/due-dates/rule-sources";
 import { RulesForm } from "./rules-form";
 
 export const metadata = { title: "Follow-up rules" };
 
-const LABEL: Record<(typeof FOLLOWUP_RULE_KEYS)[number], { title: string; source: string }> = {
-  suspected_cancer: { title: "Suspected or confirmed cancer", source: "Common practice, no source" },
-  after_hsil_treatment: { title: "After treatment of HSIL (first year)", source: "Every 3–6 months is common (Goldstone 2005)" },
-  hsil_untreated: { title: "HSIL not yet treated", source: "At least every 6 months in ANCHOR (Palefsky 2022); tighter by default" },
-  lsil_only: { title: "Low-grade findings only", source: "Yearly, from memory" },
-  abnormal_cytology_normal_exam: { title: "Abnormal cytology, normal examination", source: "From memory" },
-  clear_exam: { title: "Clear examination", source: "Within 12 months (Liu, Sigel, Gaisa 2018)" },
-};
 
 export default async function FollowupRulesPage() {
   const user = await requirePageRole(["admin"]);
   const sites = await listSiteRules(user.siteIds);
-  const rules = FOLLOWUP_RULE_KEYS.map((key) => ({ key, ...LABEL[key], defaultMonths: DEFAULT_FOLLOWUP_MONTHS[key] }));
+  const rules = FOLLOWUP_RULE_KEYS.map((key) => ({ key, ...FOLLOWUP_RULE_SOURCES[key], defaultMonths: DEFAULT_FOLLOWUP_MONTHS[key] }));
   return (
     <AppShell user={user}>
       <h1 className="text-2xl font-bold">Follow-up rules</h1>
