@@ -5,7 +5,7 @@ import { useEffect, useMemo, useState } from "react";
 import useSWR from "swr";
 import { MapLegend } from "@/components/canal-map";
 import type { ApiError } from "@/components/data/fetcher";
-import { SuspectedCancerCaution } from "@/components/timeline/summary-panel";
+import { CancerCautions } from "@/components/timeline/summary-panel";
 import { summarizeTimeline } from "@/components/timeline/timeline-summary";
 import { LoadState, lesionCountWords, lesionsByVisit } from "@/components/timeline/timeline-view";
 import { timelineFetcher, timelineUrl, type Timeline, type TimelineVisit } from "@/components/timeline/timeline-types";
@@ -70,7 +70,10 @@ export function CompareView(props: {
     .filter((s) => s.visitId === later.id)
     .map((s) => ({ trackId: s.trackId, label: labelOf.get(s.trackId) ?? "?", status: s.status, effectiveGrade: s.effectiveGrade, reason: s.reason }))
     .sort((x, y) => x.label.localeCompare(y.label, "en", { numeric: true }));
-  const cancer = new Set([...summarizeTimeline(data).suspectedCancer, ...[...before, ...after].filter((l) => l.effectiveGrade === "suspected_cancer").map((l) => l.trackLabel ?? l.label)]);
+  const overall = summarizeTimeline(data);
+  const shown = [...before, ...after].filter((l) => l.effectiveGrade === "suspected_cancer");
+  const confirmed = new Set([...overall.confirmedCancer, ...shown.filter((l) => l.histology === "scc").map((l) => l.trackLabel ?? l.label)]);
+  const cancer = new Set([...overall.suspectedCancer, ...shown.filter((l) => l.histology !== "scc").map((l) => l.trackLabel ?? l.label)]);
   const review = reviewForPair(data.reviews, earlier.id, later.id);
 
   const mapCard = (v: TimelineVisit, side: string, lesions: typeof before) => (
@@ -99,7 +102,7 @@ export function CompareView(props: {
         </div>
       </header>
 
-      <SuspectedCancerCaution labels={[...cancer].sort()} />
+      <CancerCautions confirmed={[...confirmed].sort()} suspected={[...cancer].sort()} />
 
       <div className="flex flex-col gap-3 lg:flex-row">
         {mapCard(earlier, "Earlier", before)}

@@ -3,7 +3,7 @@ import { GRADE_LABEL, TRACK_STATUSES } from "@/lib/domain/vocab";
 import { StatusMark } from "./status-glyph";
 import { timeSinceWords, type TimelineSummary } from "./timeline-summary";
 
-/** Shown wherever a track's effective grade is suspected cancer (timeline and compare). */
+/** Shown wherever a track's effective grade is suspected cancer on the impression alone (timeline and compare). */
 export function SuspectedCancerCaution({ labels }: { labels: readonly string[] }) {
   if (!labels.length) return null;
   return (
@@ -11,6 +11,27 @@ export function SuspectedCancerCaution({ labels }: { labels: readonly string[] }
       This needs urgent histological confirmation according to your local protocol. The grade shown comes from the exam
       impression unless a biopsy result is recorded; the clinician decides what happens next.
     </Caution>
+  );
+}
+
+/** Squamous cell carcinoma on histology: the diagnosis is made, so the caution is about referral. */
+export function ConfirmedCancerCaution({ labels }: { labels: readonly string[] }) {
+  if (!labels.length) return null;
+  return (
+    <Caution tone="danger" title={`Squamous cell carcinoma on histology: ${labels.join(", ")}`}>
+      Confirmed by biopsy. Refer without delay to the team that treats anal cancer, following your local cancer pathway;
+      office ablation of precancer is not its treatment. The clinician decides what happens next.
+    </Caution>
+  );
+}
+
+/** Both cautions, confirmed first; a track appears in one of them only. */
+export function CancerCautions({ confirmed, suspected }: { confirmed: readonly string[]; suspected: readonly string[] }) {
+  return (
+    <>
+      <ConfirmedCancerCaution labels={confirmed} />
+      <SuspectedCancerCaution labels={suspected.filter((l) => !confirmed.includes(l))} />
+    </>
   );
 }
 
@@ -62,7 +83,7 @@ export function SummaryPanel({ summary, todayIso }: { summary: TimelineSummary; 
               return (
                 <li key={t.trackId}>
                   <span className="font-bold">{t.label}</span> treated {t.visitDates.join(", ")}
-                  {now ? <span className="text-ink-soft"> · now {now.status}{now.effectiveGrade ? `, ${GRADE_LABEL[now.effectiveGrade]}` : ""}</span> : null}
+                  {now ? <span className="text-ink-soft"> · now {now.status}{summary.confirmedCancer.includes(now.label) ? ", squamous cell carcinoma on histology" : now.effectiveGrade ? `, ${GRADE_LABEL[now.effectiveGrade]}` : ""}</span> : null}
                 </li>
               );
             })}

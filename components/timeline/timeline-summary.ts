@@ -18,8 +18,10 @@ export interface TimelineSummary {
   current: TrackNowRow[];
   lastHsilOrWorse: { visitDate: string; trackLabels: string[] } | null;
   treated: { trackId: string; label: string; visitDates: string[] }[];
-  /** Tracks whose latest effective grade is suspected cancer (histology deciding). */
+  /** Tracks whose latest effective grade is suspected cancer on the impression alone. */
   suspectedCancer: string[];
+  /** Tracks whose latest sighting has squamous cell carcinoma on histology: confirmed, not suspected. */
+  confirmedCancer: string[];
 }
 
 export function summarizeTimeline(t: Timeline): TimelineSummary {
@@ -60,8 +62,13 @@ export function summarizeTimeline(t: Timeline): TimelineSummary {
   const treated = [...treatedDates].map(([trackId, dates]) => ({ trackId, label: labelOf.get(trackId) ?? "?", visitDates: [...dates].sort() }))
     .sort((a, b) => a.label.localeCompare(b.label, "en", { numeric: true }));
 
-  const suspectedCancer = current.filter((c) => c.effectiveGrade === "suspected_cancer").map((c) => c.label);
-  return { countsByStatus, current, lastHsilOrWorse, treated, suspectedCancer };
+  // Histology decides (LAST): SCC on a biopsy of the track's latest sighting confirms the cancer.
+  const sccAt = new Set(t.lesions.filter((l) => l.histology === "scc" && l.trackId).map((l) => `${l.trackId}|${l.visitId}`));
+  const cancer = current.filter((c) => c.effectiveGrade === "suspected_cancer");
+  const isConfirmed = (c: TrackNowRow) => sccAt.has(`${c.trackId}|${latest.get(c.trackId)?.visitId}`);
+  const confirmedCancer = cancer.filter(isConfirmed).map((c) => c.label);
+  const suspectedCancer = cancer.filter((c) => !isConfirmed(c)).map((c) => c.label);
+  return { countsByStatus, current, lastHsilOrWorse, treated, suspectedCancer, confirmedCancer };
 }
 
 /**

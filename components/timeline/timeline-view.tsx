@@ -9,7 +9,7 @@ import type { DisplayConvention } from "@/lib/geometry";
 import { VisitGradeChart } from "./visit-grade-chart";
 import { StatusGrid } from "./status-grid";
 import { StatusLegend } from "./status-glyph";
-import { SummaryPanel, SuspectedCancerCaution } from "./summary-panel";
+import { CancerCautions, SummaryPanel } from "./summary-panel";
 import { summarizeTimeline } from "./timeline-summary";
 import { timelineFetcher, timelineUrl, trackLabelOf, type Timeline } from "./timeline-types";
 import { TrackMap, type TrackLesion } from "./track-map";
@@ -54,7 +54,7 @@ export function TimelineView({ patientId, convention, todayIso }: { patientId: s
         </div>
       </header>
 
-      <SuspectedCancerCaution labels={summary.suspectedCancer} />
+      <CancerCautions confirmed={summary.confirmedCancer} suspected={summary.suspectedCancer} />
       <SummaryPanel summary={summary} todayIso={todayIso} />
 
       <section aria-labelledby="maps-h">

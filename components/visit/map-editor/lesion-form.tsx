@@ -79,7 +79,11 @@ export function LesionForm({ lesion, convention, readOnly, saveInfo, onCommit, o
         <Controller control={control} name="grade" render={({ field }) => (
           <Choices legend="Impression grade" value={field.value} options={GRADES.map((g) => [g, GRADE_LABEL[g]] as const)} onPick={(v) => { field.onChange(v); void save(); }} swatch />
         )} />
-        {grade === "suspected_cancer" ? (
+        {lesion.histology === "scc" ? (
+          <Caution tone="danger" title="Squamous cell carcinoma on histology">
+            Confirmed by biopsy. Refer without delay following your local cancer pathway; the clinician decides.
+          </Caution>
+        ) : grade === "suspected_cancer" ? (
           <Caution tone="danger" title="Suspected cancer: needs urgent histological confirmation">
             Arrange biopsy and onward referral according to local protocol. The impression alone does not diagnose; the clinician decides.
           </Caution>
