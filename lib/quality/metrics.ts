@@ -16,7 +16,10 @@ export interface QualityVisit {
   bleeding?: Severity | null;
   /** Histological HSIL was found on a biopsy from this visit. */
   histologyHsil?: boolean;
-  /** For HSIL cytology: did histology confirm HSIL? Leave unset while pathology is pending. */
+  /**
+   * For HSIL cytology: did histology confirm HSIL? Leave unset while pathology is pending. The
+   * biopsy may come from a later visit of the same patient, within CYTOLOGY_CONFIRMATION_WINDOW_DAYS.
+   */
   cytologyHsilConfirmed?: boolean;
 }
 
@@ -104,3 +107,10 @@ export function qualityMetrics(input: QualityInput): Metric[] {
     share("problematic_pain_or_bleeding", "Moderate or severe pain or bleeding", problematic, visits.length, "<=", 0.1),
   ];
 }
+
+/**
+ * How long after an HSIL cytology a biopsy still counts as its histological check (the referral
+ * cytology is usually taken before the HRA that biopsies). 180 days is a local default, from memory:
+ * IANS 2016 (Hillman RJ et al., J Low Genit Tract Dis 2016) names the metric, not a window, as recalled.
+ */
+export const CYTOLOGY_CONFIRMATION_WINDOW_DAYS = 180;

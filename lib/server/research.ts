@@ -21,8 +21,8 @@ export interface SiteQuality {
 }
 
 /** IANS 2016 metrics (lib/quality) per site and per examiner at that site, for one calendar year. */
-export async function loadQualityPanel(scope: SiteScope, year: number): Promise<SiteQuality[]> {
-  const visits = await loadQualityVisits(scope, year);
+export async function loadQualityPanel(scope: SiteScope, year: number, cytologyWindowDays?: number): Promise<SiteQuality[]> {
+  const visits = await loadQualityVisits(scope, year, cytologyWindowDays);
   const from = `${year}-01-01`;
   const to = `${year + 1}-01-01`;
   const bySite = new Map<string, typeof visits>();
