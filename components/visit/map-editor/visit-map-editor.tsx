@@ -23,6 +23,7 @@ import type { LookAgain } from "@/components/visit/refind/use-look-again";
 import { FollowUpPanel, GhostCard } from "@/components/visit/refind/follow-up-panel";
 import { TrackTools } from "@/components/visit/refind/track-tools";
 import { TreatedSummary } from "@/components/visit/refind/treated-summary";
+import { HsilExtentNote } from "./hsil-extent-note";
 import { useFollowUp } from "@/components/visit/refind/use-follow-up";
 import { useLookAgain } from "@/components/visit/refind/use-look-again";
 import { useTreatedArcs } from "@/components/visit/refind/use-treated-arcs";
@@ -295,6 +296,7 @@ interface BelowMapProps {
 const BelowMap = memo(function BelowMap({ treated, fu, look, lesions, conv, readOnly, selectedTrack, onSelectTrack, selectedId, status, onSelect, showGhostKey }: BelowMapProps) {
   return (
     <>
+      <HsilExtentNote lesions={lesions} />
       <TreatedSummary extent={treated.extent} cautionFraction={treated.cautionFraction} />
       <FollowUpPanel fu={fu} look={look} lesions={lesions} conv={conv} readOnly={readOnly} selectedTrackId={selectedTrack} onSelectTrack={onSelectTrack} />
       {/* Below the fold on a tablet: the browser skips its layout and paint until it scrolls near. */}
