@@ -29,7 +29,7 @@ export const OUTCOME_COLUMNS: Record<string, string> = {
 };
 
 export const TRACK_STATUS_NOTE =
-  "Track statuses (lesions.track_status, counts.tracks_*): new; persistent = disease at the same site at the next look (same grade tier; condyloma and LSIL are one tier); progressed / regressed = a higher / lower tier; cleared = not found or benign after treatment; recurrent = found again after a clear visit that followed treatment.";
+  "Track statuses (lesions.track_status, counts.tracks_*): new; persistent = disease at the same site at the next look at the same grade tier (condyloma and LSIL are one tier), or at a lower tier at the first look after treatment (treatment response, not regression); progressed = a higher tier; regressed = a lower tier or gone at an untreated site; cleared = not found or benign after treatment; recurrent = found again after a clear visit that followed treatment.";
 
 /** Rows for the workbook's dictionary sheet. */
 export function dictionaryRows(): { dataset: string; column: string; meaning: string }[] {

@@ -118,3 +118,18 @@ describe("condyloma and LSIL are one tier", () => {
     expect(statuses([seen("2023-01-10", "condyloma"), seen("2023-07-10", "hsil")])).toEqual(["new", "progressed"]);
   });
 });
+
+describe("a treated lesion seen at a lower grade at the first look", () => {
+  // Liu Y, Sigel K, Gaisa MM, Papillomavirus Research 2018;5:S9: disease at the treated site at the
+  // first look after treatment is persistence. A lower grade there is not the untreated regression
+  // the word "regressed" means, so the status stays persistent and the reason names the lower grade.
+  it("treated HSIL, LSIL at the first look = persistent (lower grade), not regressed", () => {
+    const out = trackStatuses([seen("2023-01-10", "hsil", treated), seen("2023-05-02", "lsil")]);
+    expect(out.map((s) => s.status)).toEqual(["new", "persistent"]);
+    expect(out[1].effectiveGrade).toBe("lsil");
+    expect(out[1].reason).toContain("persistent at a lower grade than the HSIL treated");
+  });
+  it("untreated HSIL then LSIL is still regressed", () => {
+    expect(statuses([seen("2023-01-10", "hsil"), seen("2023-05-02", "lsil")])).toEqual(["new", "regressed"]);
+  });
+});

@@ -116,8 +116,13 @@ export function trackStatuses(observations: readonly TrackObservation[], context
         } else {
           // Liu 2018: found at the first look after treatment = persistent (higher grade: progressed).
           status = compareStatus(grade, ref.grade);
+          // Disease still at the treated site at a lower tier is not untreated regression: it stays
+          // "persistent" (Liu 2018 counts disease at the treated site at the first look as
+          // persistence), and the reason names the lower grade. "regressed" is kept for untreated sites.
+          const lowerAfterTreatment = treatedAt !== null && status === "regressed";
+          if (lowerAfterTreatment) status = "persistent";
           const situation = treatedAt
-            ? `first look after ${afterTreatment}`
+            ? `first look after ${afterTreatment}${lowerAfterTreatment ? `; persistent at a lower grade than the ${gradeOrUnknown(ref.grade)} treated` : ""}`
             : missedAt
               ? `untreated; not found at ${missedAt}, counted as missed; before that ${since}`
               : `untreated since ${since}`;
