@@ -10,6 +10,7 @@ import { zoneForDistance } from "@/lib/geometry/zones";
 import { treatedFraction } from "@/lib/dosing/extent";
 import { trackStatuses, withMetachronousContext, type TrackHistory } from "@/lib/tracking";
 import { runScript } from "@/db/client";
+import { trackLabel } from "@/lib/domain/track-label";
 
 const PATIENTS = Number(process.env.SCALE_PATIENTS ?? 10_000);
 const CHUNK = 10_000;
@@ -94,7 +95,7 @@ async function main() {
       const trackDefs = Array.from({ length: int(3, 6) }, (_, t) => {
         const start = int(0, 23) / 2;
         const d0 = pick([-2, -1, 0, 0.5, 1, 1.5, 2]);
-        return { id: randomUUID(), label: `T${t + 1}`, start, end: (start + pick([0.5, 1, 2])) % 12, d0, d1: d0 + pick([0.5, 1]), grade: pick(grades), cleared: false };
+        return { id: randomUUID(), label: trackLabel(t + 1), start, end: (start + pick([0.5, 1, 2])) % 12, d0, d1: d0 + pick([0.5, 1]), grade: pick(grades), cleared: false };
       });
       for (const t of trackDefs) tracks.push([t.id, pid, siteId, t.label]);
       const histories: TrackHistory[] = trackDefs.map((t) => ({ trackId: t.id, label: t.label, observations: [] }));

@@ -17,32 +17,20 @@ export function GradePattern({ id, grade }: { id: string; grade: Grade }) {
           <rect width="8" height="8" fill={enc.hue} fillOpacity={0.1} />
         </pattern>
       );
-    case "stipple":
-      return (
-        <pattern id={id} patternUnits="userSpaceOnUse" width="9" height="9">
-          {base}
-          <rect width="9" height="9" fill={enc.hue} fillOpacity={0.16} />
-          <circle cx="2.25" cy="2.25" r="1.6" fill={enc.strokeHue} />
-          <circle cx="6.75" cy="6.75" r="1.6" fill={enc.strokeHue} />
-        </pattern>
-      );
+    case "bands":
     case "hatch":
+    case "bars": {
+      // One line per tile, turned to the texture's angle: parallel lines, never dots or a grid.
+      const { angleDeg, spacing, width } = enc.lines!;
+      const mid = spacing / 2;
       return (
-        <pattern id={id} patternUnits="userSpaceOnUse" width="10" height="10" patternTransform="rotate(45)">
+        <pattern id={id} patternUnits="userSpaceOnUse" width={spacing} height={spacing} patternTransform={`rotate(${angleDeg})`}>
           {base}
-          <rect width="10" height="10" fill={enc.hue} fillOpacity={0.2} />
-          <line x1="0" y1="5" x2="10" y2="5" stroke={enc.strokeHue} strokeWidth="2" />
+          <rect width={spacing} height={spacing} fill={enc.hue} fillOpacity={0.2} />
+          <line x1="0" y1={mid} x2={spacing} y2={mid} stroke={enc.strokeHue} strokeWidth={width} />
         </pattern>
       );
-    case "crosshatch":
-      return (
-        <pattern id={id} patternUnits="userSpaceOnUse" width="6" height="6" patternTransform="rotate(45)">
-          {base}
-          <rect width="6" height="6" fill={enc.hue} fillOpacity={0.3} />
-          <line x1="0" y1="3" x2="6" y2="3" stroke={enc.strokeHue} strokeWidth="1.6" />
-          <line x1="3" y1="0" x2="3" y2="6" stroke={enc.strokeHue} strokeWidth="1.6" />
-        </pattern>
-      );
+    }
     case "solid":
       return (
         <pattern id={id} patternUnits="userSpaceOnUse" width="4" height="4">

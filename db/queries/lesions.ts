@@ -87,7 +87,8 @@ export const insertTrack = prepared((run) =>
       id: ph("id"),
       patientId: ph("patientId"),
       siteId: ph("siteId"),
-      label: dsql`'T' || (select coalesce(max(substring(label from 2)::int), 0) + 1 from lesion_tracks where patient_id = ${ph("patientId")} and label ~ '^T[0-9]+$')`,
+      // Same rule as lib/domain/track-label.ts nextTrackLabel ("#" and the next number); a test checks both.
+      label: dsql`'#' || (select coalesce(max(substring(label from 2)::int), 0) + 1 from lesion_tracks where patient_id = ${ph("patientId")} and label ~ '^#[0-9]+$')`,
     })
     .returning({ id: lesionTracks.id, label: lesionTracks.label }),
 );

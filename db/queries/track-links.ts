@@ -3,6 +3,7 @@ import { and, asc, desc, eq, inArray, lt, sql as dsql } from "drizzle-orm";
 import { db, type Tx } from "../client";
 import { lesions, lesionTracks, trackChecks, visits } from "../schema";
 import type { TrackCheckOutcome } from "@/lib/domain/vocab";
+import { nextTrackLabel } from "@/lib/domain/track-label";
 
 /** Every lesion of the patient's visits before `beforeDate` that is on a track, newest first. */
 export function earlierSightings(patientId: string, beforeDate: string) {
@@ -56,10 +57,10 @@ export async function setLesionTrack(tx: Tx, lesionId: string, trackId: string):
   await tx.update(lesions).set({ trackId, version: dsql`${lesions.version} + 1` }).where(eq(lesions.id, lesionId));
 }
 
-/** A new track with the patient's next label (T1, T2…). */
+/** A new track with the patient's next label (#1, #2…; lib/domain/track-label.ts). */
 export async function insertNextTrack(tx: Tx, patientId: string, siteId: string): Promise<string> {
-  const rows = (await tx.execute(dsql`select max(substring(label from 2)::int) as m from lesion_tracks where patient_id = ${patientId} and label ~ '^T[0-9]+$'`)) as unknown as { m: number | null }[];
-  const [t] = await tx.insert(lesionTracks).values({ patientId, siteId, label: `T${(rows[0]?.m ?? 0) + 1}` }).returning({ id: lesionTracks.id });
+  const rows = await tx.select({ label: lesionTracks.label }).from(lesionTracks).where(eq(lesionTracks.patientId, patientId));
+  const [t] = await tx.insert(lesionTracks).values({ patientId, siteId, label: nextTrackLabel(rows.map((r) => r.label)) }).returning({ id: lesionTracks.id });
   return t!.id;
 }
 

@@ -89,7 +89,7 @@ export const lesionTracks = pgTable(
     id: uuid("id").primaryKey().defaultRandom(),
     patientId: uuid("patient_id").notNull().references(() => patients.id),
     siteId: uuid("site_id").notNull().references(() => sites.id),
-    /** Short label shown on maps ("T1", "T2"…), unique per patient. */
+    /** Short label shown on maps ("#1", "#2"…; lib/domain/track-label.ts), unique per patient. */
     label: text("label").notNull(),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
   },

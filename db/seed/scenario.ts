@@ -2,6 +2,7 @@
 // dates. Deterministic (seeded faker), so every run builds the same records.
 import { faker } from "@faker-js/faker";
 import type { Grade, Histology, Modality, RiskGroup } from "@/lib/domain/vocab";
+import { trackLabel } from "@/lib/domain/track-label";
 import { zoneForDistance } from "@/lib/geometry/zones";
 import { normalizeHours } from "@/lib/geometry/clock";
 
@@ -99,7 +100,7 @@ export function buildScenario(today: Date = new Date()): SeedPatient[] {
       const start = normalizeHours(faker.number.int({ min: 0, max: 23 }) / 2);
       const lenH = faker.helpers.arrayElement([0.5, 1, 1.5, 2, 3]);
       const d0 = faker.helpers.arrayElement([-2, -1, 0, 0.5, 1, 1.5, 2, 2.5]);
-      return { key: `T${t + 1}`, start, end: normalizeHours(start + lenH), d0, d1: d0 + faker.helpers.arrayElement([0.5, 1, 1.5]), grade: GRADE_STEP[(i + t) % GRADE_STEP.length]!, cleared: false, firstVisit: t % 2 === 0 ? 0 : 1 };
+      return { key: trackLabel(t + 1), start, end: normalizeHours(start + lenH), d0, d1: d0 + faker.helpers.arrayElement([0.5, 1, 1.5]), grade: GRADE_STEP[(i + t) % GRADE_STEP.length]!, cleared: false, firstVisit: t % 2 === 0 ? 0 : 1 };
     });
     const visits: SeedVisit[] = [];
     for (let v = 0; v < visitCount; v++) {

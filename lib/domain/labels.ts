@@ -21,7 +21,7 @@ export const ADEQUACY_WORDS: Record<Adequacy, string> = {
 };
 
 export const MODALITY_WORDS: Record<Modality, string> = {
-  electrocautery: "Electrocautery (hyfrecation)",
+  electrocautery: "Electrocautery / electrodesiccation",
   infrared_coagulation: "Infrared coagulation",
   laser: "Laser ablation",
   surgical_excision: "Surgical excision",

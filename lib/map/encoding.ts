@@ -3,7 +3,16 @@
 // pattern AND an outline AND a hue, so a greyscale print or a colour-blind reader loses nothing.
 import { GRADE_LABEL, type Grade, type Zone } from "@/lib/domain/vocab";
 
-export type FillPattern = "open" | "stipple" | "hatch" | "crosshatch" | "solid";
+// Fills are parallel lines only: dots and grids are how the trade draws punctation and mosaic,
+// which Dentate records separately as vessel findings, so no grade may look like them.
+export type FillPattern = "open" | "bands" | "hatch" | "bars" | "solid";
+
+/** A line texture: parallel lines at an angle (0 = horizontal), their spacing and width in viewBox units. */
+export interface LineTexture {
+  angleDeg: number;
+  spacing: number;
+  width: number;
+}
 
 export interface GradeEncoding {
   grade: Grade;
@@ -12,6 +21,8 @@ export interface GradeEncoding {
   hue: string;
   strokeHue: string;
   pattern: FillPattern;
+  /** The lines of a line fill (bands, hatch, bars); none for open and solid. */
+  lines?: LineTexture;
   /** Outline: dash array (undefined = continuous) and width in viewBox units. */
   outlineDash?: string;
   outlineWidth: number;
@@ -38,10 +49,11 @@ export const GRADE_ENCODING: Record<Grade, GradeEncoding> = {
     label: GRADE_LABEL.condyloma,
     hue: "var(--color-grade-condyloma)",
     strokeHue: "var(--color-grade-condyloma-stroke)",
-    pattern: "stipple",
+    pattern: "bands",
+    lines: { angleDeg: 0, spacing: 7, width: 1.4 },
     outlineWidth: 1.6,
     doubleOutline: false,
-    words: "stippled dots, thin outline",
+    words: "thin horizontal bands, thin outline",
   },
   lsil: {
     grade: "lsil",
@@ -49,6 +61,7 @@ export const GRADE_ENCODING: Record<Grade, GradeEncoding> = {
     hue: "var(--color-grade-lsil)",
     strokeHue: "var(--color-grade-lsil-stroke)",
     pattern: "hatch",
+    lines: { angleDeg: 45, spacing: 10, width: 2 },
     outlineWidth: 2,
     doubleOutline: false,
     words: "sparse single diagonal lines",
@@ -58,10 +71,11 @@ export const GRADE_ENCODING: Record<Grade, GradeEncoding> = {
     label: GRADE_LABEL.hsil,
     hue: "var(--color-grade-hsil)",
     strokeHue: "var(--color-grade-hsil-stroke)",
-    pattern: "crosshatch",
+    pattern: "bars",
+    lines: { angleDeg: -45, spacing: 6, width: 3.2 },
     outlineWidth: 2.6,
     doubleOutline: false,
-    words: "dense cross-hatch, heavy outline",
+    words: "heavy diagonal bars, heavy outline",
   },
   suspected_cancer: {
     grade: "suspected_cancer",

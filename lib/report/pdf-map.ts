@@ -1,5 +1,5 @@
 import type PDFDocument from "pdfkit";
-import { GRADE_ENCODING, BIOPSY_TAG, TREATED_MARK, type FillPattern } from "@/lib/map/encoding";
+import { GRADE_ENCODING, BIOPSY_TAG, TREATED_MARK, type FillPattern, type LineTexture } from "@/lib/map/encoding";
 import {
   OUTER_RADIUS, centreOf, isPointLesion, pointOfSite, polar, radiusOfCm, sectorOf, sectorPath,
 } from "@/lib/map/geometry";
@@ -29,20 +29,17 @@ type Box = { x: number; y: number; w: number; h: number };
 const FACE_BOX: Box = { x: -260, y: -260, w: 520, h: 520 };
 
 /** Fill a path with the grade's pattern, clipped to the path; lines only cover the box. */
-function fillPattern(doc: Doc, d: string, pattern: FillPattern, grey: string, box: Box): void {
+function fillPattern(doc: Doc, d: string, pattern: FillPattern, lines: LineTexture | undefined, grey: string, box: Box): void {
   doc.save();
   doc.path(d).clip();
   const { x, y, w, h } = box;
   if (pattern === "solid") {
     doc.rect(x, y, w, h).fill(grey);
-  } else if (pattern === "stipple") {
-    doc.fillColor(grey);
-    for (let j = 0; j * 7 <= h; j++) for (let i = 0; i * 7 <= w; i++) doc.circle(x + i * 7 + (j % 2 ? 3.5 : 0), y + j * 7, 1.3).fill();
-  } else if (pattern === "hatch" || pattern === "crosshatch") {
-    const step = pattern === "hatch" ? 9 : 5;
-    doc.lineWidth(pattern === "hatch" ? 1.2 : 1.1).strokeColor(grey);
-    for (let k = -h; k <= w; k += step) doc.moveTo(x + k, y).lineTo(x + k + h, y + h).stroke();
-    if (pattern === "crosshatch") for (let k = 0; k <= w + h; k += step) doc.moveTo(x + k, y).lineTo(x + k - h, y + h).stroke();
+  } else if (lines) {
+    // The same parallel lines as the screen's pattern (lib/map/encoding.ts), turned about the box centre.
+    const cx = x + w / 2, cy = y + h / 2, r = Math.hypot(w, h) / 2;
+    doc.rotate(lines.angleDeg, { origin: [cx, cy] }).lineWidth(lines.width * 0.6).strokeColor(grey);
+    for (let k = -r; k <= r; k += lines.spacing) doc.moveTo(cx - r, cy + k).lineTo(cx + r, cy + k).stroke();
   }
   doc.restore();
 }
@@ -100,12 +97,12 @@ function drawLesion(doc: Doc, l: ReportLesion, grade: Grade): void {
     const p = pointOfSite(c.storedH, c.cm, "lithotomy");
     const d = `M ${p.x - 9} ${p.y} a 9 9 0 1 0 18 0 a 9 9 0 1 0 -18 0 Z`;
     doc.path(d).fill("#ffffff");
-    fillPattern(doc, d, enc.pattern, grey, FACE_BOX);
+    fillPattern(doc, d, enc.pattern, enc.lines, grey, FACE_BOX);
     outline(doc, d, grade);
   } else {
     const d = sectorPath(sectorOf(l, "lithotomy"))!;
     doc.path(d).fill("#ffffff");
-    fillPattern(doc, d, enc.pattern, grey, FACE_BOX);
+    fillPattern(doc, d, enc.pattern, enc.lines, grey, FACE_BOX);
     outline(doc, d, grade);
     if (enc.doubleOutline) {
       doc.save().lineWidth(1.4).strokeColor(INK).path(sectorPath(sectorOf(l, "lithotomy", 4))!).stroke().restore();
@@ -164,7 +161,7 @@ export function drawCanalMap(doc: Doc, m: MapInput, cx: number, cy: number, diam
 export function drawGradeSwatch(doc: Doc, grade: Grade, x: number, y: number, size: number): void {
   const d = `M ${x} ${y} h ${size} v ${size} h ${-size} Z`;
   doc.path(d).fill("#ffffff");
-  fillPattern(doc, d, GRADE_ENCODING[grade].pattern, GRADE_GREY[grade], { x, y, w: size, h: size });
+  fillPattern(doc, d, GRADE_ENCODING[grade].pattern, GRADE_ENCODING[grade].lines, GRADE_GREY[grade], { x, y, w: size, h: size });
   const enc = GRADE_ENCODING[grade];
   const dash = dashOf(enc.outlineDash);
   doc.save().lineWidth(Math.min(enc.outlineWidth, 2) * 0.6).strokeColor(INK);

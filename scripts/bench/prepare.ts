@@ -9,6 +9,7 @@ import { lesions, lesionTracks, patients, sites, visits } from "@/db/schema";
 import { refreshTrackStatuses } from "@/lib/server/track-statuses";
 import { createSession, SESSION_COOKIE } from "@/lib/auth/session";
 import { GRADES } from "@/lib/domain/vocab";
+import { trackLabel } from "@/lib/domain/track-label";
 
 const CLINICIAN = "u-clin-okafor";
 const SLOTS = Number(process.argv[2] ?? 100);
@@ -46,7 +47,7 @@ async function main() {
 
   // Timeline: 30 signed visits × 40 lesions on 40 tracks, statuses computed as the app does.
   const tlPatient = await benchPatient(siteId, "BENCH-TL", "Timelinebench");
-  const tracks = await db.insert(lesionTracks).values(Array.from({ length: 40 }, (_, i) => ({ patientId: tlPatient, siteId, label: `T${i + 1}` }))).returning({ id: lesionTracks.id });
+  const tracks = await db.insert(lesionTracks).values(Array.from({ length: 40 }, (_, i) => ({ patientId: tlPatient, siteId, label: trackLabel(i + 1) }))).returning({ id: lesionTracks.id });
   const tlVisits = await db
     .insert(visits)
     .values(Array.from({ length: 30 }, (_, i) => ({ patientId: tlPatient, siteId, visitDate: `${2011 + Math.floor(i / 3)}-${String((i % 3) * 4 + 1).padStart(2, "0")}-10`, examinerId: CLINICIAN, status: "signed" as const })))
