@@ -2,7 +2,7 @@ import type { TrackStatus } from "@/lib/domain/vocab";
 
 // Dentate's status marks: each status has its own SHAPE and its own word, drawn in ink, so a
 // greyscale print or a colour-blind reader reads the grid as well as anyone. Colour stays
-// reserved for grade and cautions (design direction).
+// reserved for grade and cautions, so that it keeps its meaning where it appears.
 
 export const STATUS_LABEL: Record<TrackStatus, string> = {
   new: "New",

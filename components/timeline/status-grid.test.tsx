@@ -10,7 +10,7 @@ const visits = [
 ];
 const tracks = [{ id: "t1", label: "T1" }, { id: "t2", label: "T2" }];
 // Reason wording as the status rules write it; "progressed" = higher grade, e.g. LSIL to HSIL
-// (issue definition after Liu Y, Sigel K, Gaisa MM, Papillomavirus Research 2018;5:S9).
+// (definitions after Liu Y, Sigel K, Gaisa MM, Papillomavirus Research 2018;5:S9).
 const statuses = [
   { trackId: "t1", visitId: "v1", status: "new" as const, effectiveGrade: "lsil" as const, reason: "First seen at 2025-03-04 as LSIL." },
   { trackId: "t1", visitId: "v2", status: "progressed" as const, effectiveGrade: "hsil" as const, reason: "LSIL at 2025-03-04 is HSIL now." },

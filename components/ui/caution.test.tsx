@@ -3,7 +3,7 @@ import { render, screen } from "@testing-library/react";
 import { Caution } from "./caution";
 
 describe("Caution", () => {
-  // Design direction: cautions are announced; a danger is an alert, a caution a status.
+  // A caution must reach a screen-reader user: a danger interrupts (alert), a caution waits its turn (status).
   it("announces a danger as an alert with its title and explanation", () => {
     render(<Caution tone="danger" title="Dose over the label maximum">Local protocol and the clinician decide.</Caution>);
     const alert = screen.getByRole("alert");

@@ -14,7 +14,13 @@ describe("mail bodies carry no clinical details", () => {
   });
 
   it("the patient reminder is neutral", () => {
-    const m = patientReminderMail({ givenName: "Alex" });
+    const m = patientReminderMail({ givenName: "Alex", clinicName: "Harbourside Health Centre" });
     expect(`${m.subject}\n${m.text}`).not.toMatch(CLINICAL_WORDS);
+  });
+
+  it("the patient reminder is signed with the clinic's name, not the product's (the dentate line is anatomy)", () => {
+    const m = patientReminderMail({ givenName: "Alex", clinicName: "Harbourside Health Centre" });
+    expect(m.text).toMatch(/— Harbourside Health Centre\n/);
+    expect(`${m.subject}\n${m.text}`).not.toMatch(/dentate/i);
   });
 });

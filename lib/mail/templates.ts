@@ -38,11 +38,16 @@ export function clinicianDigestMail(a: { displayName: string; overdueCount: numb
   };
 }
 
-/** Neutral on purpose: a shared mailbox or a lock screen must not reveal why the person is seen. */
-export function patientReminderMail(a: { givenName: string }): MailContent {
+/**
+ * Neutral on purpose: a shared mailbox or a lock screen must not reveal why the person is seen.
+ * Signed with the clinic's own name, not the product's: "Dentate" names a part of the anal canal.
+ */
+export function patientReminderMail(a: { givenName: string; clinicName: string }): MailContent {
   return {
     subject: "Time to book your next appointment",
-    text: `Dear ${a.givenName},\n\nIt is time to book your next appointment with your clinic. Please contact the clinic to arrange a date.` + SIGN_OFF,
+    text:
+      `Dear ${a.givenName},\n\nIt is time to book your next appointment with ${a.clinicName}. Please contact the clinic to arrange a date.` +
+      `\n\n— ${a.clinicName}\nThis message was sent automatically; replies are not read.`,
   };
 }
 

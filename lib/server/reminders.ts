@@ -28,7 +28,7 @@ export async function queueReminders(today = todayIso()) {
     }
     for (const p of overdue) {
       if (!p.consentEmail || !p.contactEmail) continue;
-      const mail = patientReminderMail({ givenName: p.givenName });
+      const mail = patientReminderMail({ givenName: p.givenName, clinicName: p.siteName });
       if (await enqueueMail(tx, { idempotencyKey: `patient-reminder:${p.patientId}:${p.dueDate}`, to: p.contactEmail, ...mail })) patientReminders++;
     }
     await recordAudit({ action: "reminders.queued", detail: { today, overdue: overdue.length, digests, patientReminders } }, tx);

@@ -86,7 +86,7 @@ describe("follow-up tracking, compare and review", () => {
     state.disputed = first[0]!.trackLabel;
 
     // The timeline shows the follow-up: the re-found HSIL track is persistent (same grade, untreated),
-    // the lost one regressed (not found without treatment), the fresh one new (issue 5 definitions).
+    // the lost one regressed (not found without treatment), the fresh one new (the status definitions in lib/tracking).
     await page.goto(`${BASE_URL}/patients/${patientId}/timeline`);
     const row = (label: string) => page.locator(`tr[data-track-row="${label}"]`);
     await expect.poll(() => row(state.disputed).count(), WAIT).toBe(1);

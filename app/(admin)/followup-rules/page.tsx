@@ -2,16 +2,15 @@ import { AppShell } from "@/components/shell/app-shell";
 import { listSiteRules } from "@/lib/server/due-dates";
 import { requirePageRole } from "@/lib/auth/page-guard";
 import { DEFAULT_FOLLOWUP_MONTHS, FOLLOWUP_RULE_KEYS } from "@/lib/due-dates/rules";
-import { FOLLOWUP_RULE_SOURCES } from "@/lib/due-dates/rule-sources";
+import { RULE_WORDS } from "@/lib/due-dates/rule-words";
 import { RulesForm } from "./rules-form";
 
 export const metadata = { title: "Follow-up rules" };
 
-
 export default async function FollowupRulesPage() {
   const user = await requirePageRole(["admin"]);
   const sites = await listSiteRules(user.siteIds);
-  const rules = FOLLOWUP_RULE_KEYS.map((key) => ({ key, ...FOLLOWUP_RULE_SOURCES[key], defaultMonths: DEFAULT_FOLLOWUP_MONTHS[key] }));
+  const rules = FOLLOWUP_RULE_KEYS.map((key) => ({ key, ...RULE_WORDS[key], defaultMonths: DEFAULT_FOLLOWUP_MONTHS[key] }));
   return (
     <AppShell user={user}>
       <h1 className="text-2xl font-bold">Follow-up rules</h1>

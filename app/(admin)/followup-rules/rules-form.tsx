@@ -3,8 +3,9 @@
 import { useState } from "react";
 import { useRouter } from "next/navigation";
 import { Button } from "@/components/ui/button";
+import { monthsWord } from "@/lib/due-dates/rule-words";
 
-interface Rule { key: string; title: string; source: string; defaultMonths: number }
+interface Rule { key: string; title: string; basis: string; defaultMonths: number }
 
 export function RulesForm({ siteId, rules, current }: { siteId: string; rules: Rule[]; current: Record<string, number | undefined> }) {
   const router = useRouter();
@@ -40,7 +41,7 @@ export function RulesForm({ siteId, rules, current }: { siteId: string; rules: R
                     aria-invalid={!!err} className="min-h-11 w-24 rounded-md border border-rule-strong bg-panel px-2 tabular-nums" />
                   {err ? <p className="mt-1 text-sm text-danger-ink">{err}</p> : null}
                 </td>
-                <td className="py-2 pr-3 text-sm text-ink-soft">{r.defaultMonths} months · {r.source}</td>
+                <td className="py-2 pr-3 text-sm text-ink-soft">{monthsWord(r.defaultMonths)} · {r.basis}</td>
               </tr>
             );
           })}

@@ -71,7 +71,7 @@ describe("MapEditor: a tap is stored in the one anatomical frame", () => {
       tap(svg, screenAt(displayH, 2));
       expect(props.onCreate).toHaveBeenCalledTimes(1);
       const extent = (props.onCreate as ReturnType<typeof vi.fn>).mock.calls[0][0] as MapExtent;
-      // Default extent 1 h × 1 cm centred on the tap (editor design), snapped to 0.5.
+      // Default extent 1 h × 1 cm centred on the tap (the editor's rule), snapped to 0.5.
       expect(extent.clockStartH).toBeCloseTo(2.5, 6);
       expect(extent.clockEndH).toBeCloseTo(3.5, 6);
       expect(midH(extent)).toBeCloseTo(3.0, 6);
@@ -110,7 +110,7 @@ describe("MapEditor: gestures and keys", () => {
     shape.focus();
     fireEvent.keyDown(shape, { key: "ArrowRight" });
     expect(props.onChange).toHaveBeenCalledTimes(1);
-    // Editor grid: half-hour steps (design brief), the distances untouched.
+    // Editor grid: the arrow keys move a lesion in half-hour steps, the distances untouched.
     expect(props.onChange).toHaveBeenCalledWith("l1", { clockStartH: 3.5, clockEndH: 4.5, distanceStartCm: 1, distanceEndCm: 2 });
     fireEvent.keyDown(shape, { key: "ArrowLeft", shiftKey: true });
     expect(props.onChange).toHaveBeenLastCalledWith("l1", { clockStartH: 3, clockEndH: 3.5, distanceStartCm: 1, distanceEndCm: 2 });
