@@ -4,7 +4,7 @@ import { useId, useState } from "react";
 import { Button } from "@/components/ui/button";
 import { ApiError } from "@/components/data/fetcher";
 import { STATUS_LABEL, StatusMark } from "@/components/timeline/status-glyph";
-import { GRADE_LABEL, TRACK_STATUSES, type Grade, type TrackStatus } from "@/lib/domain/vocab";
+import { GRADE_LABEL, TRACK_STATUSES, type Grade, type TrackStatus, type Verdict } from "@/lib/domain/vocab";
 import type { TimelineAdjudication } from "@/components/timeline/timeline-types";
 
 export interface AdjudicationTarget {
@@ -16,10 +16,12 @@ export interface AdjudicationTarget {
 }
 
 export interface AdjudicationDraft {
-  verdict: "agree" | "disagree";
+  verdict: Verdict;
   proposedStatus?: TrackStatus;
   comment?: string;
 }
+
+const VERDICT_WORDS: Record<Verdict, string> = { agree: "✓ agrees", disagree: "✗ disagrees", not_examined: "– not examined (could not be judged from the record)" };
 
 /** One track's status at the later visit, and the reviewer's verdict on it. */
 export function AdjudicationRow(props: {
@@ -63,7 +65,7 @@ export function AdjudicationRow(props: {
           <p className="text-ink-soft">{target.reason}</p>
           {existing ? (
             <p className="mt-1" data-verdict={existing.verdict}>
-              <span className="font-semibold">Reviewer: {existing.verdict === "agree" ? "✓ agrees" : "✗ disagrees"}</span>
+              <span className="font-semibold">Reviewer: {VERDICT_WORDS[existing.verdict]}</span>
               {existing.verdict === "disagree" && existing.proposedStatus ? <> — believes <span className="font-semibold">{STATUS_LABEL[existing.proposedStatus as TrackStatus]}</span></> : null}
               {existing.comment ? <span className="block italic">“{existing.comment}”</span> : null}
               {existing.resolvedAt ? <span className="block text-ink-soft">Resolved by the clinician.</span> : null}
@@ -76,6 +78,7 @@ export function AdjudicationRow(props: {
           <div className="flex gap-2">
             <Button variant="secondary" disabled={busy} onClick={() => save({ verdict: "agree" })} aria-label={`Agree with ${target.label}: ${STATUS_LABEL[target.status]}`}>Agree</Button>
             <Button variant="secondary" disabled={busy} onClick={() => setOpen((o) => !o)} aria-expanded={open} aria-controls={`${id}-form`} aria-label={`Disagree with ${target.label}`}>Disagree…</Button>
+            <Button variant="secondary" disabled={busy} onClick={() => save({ verdict: "not_examined" })} aria-label={`Not examined: ${target.label}`}>Not examined</Button>
           </div>
         ) : null}
       </div>
@@ -99,7 +102,7 @@ export function AdjudicationRow(props: {
             Comment
             <textarea value={comment} onChange={(e) => setComment(e.target.value)} rows={2} maxLength={2000} className="mt-1 block w-full rounded-md border border-rule-strong bg-panel px-2 py-1 font-normal" />
           </label>
-          <Button type="submit" disabled={busy}>Save disagreement</Button>
+          <Button type="submit" disabled={busy} aria-label={`Save disagreement on ${target.label}`}>Save disagreement</Button>
         </form>
       ) : null}
       {error ? <p role="alert" className="mt-2 text-sm text-danger-ink">{error}</p> : null}

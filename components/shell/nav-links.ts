@@ -16,6 +16,7 @@ export function navLinksFor(role: Role): NavLink[] {
       ];
     case "reviewer":
       return [
+        { href: "/reviews", label: "Reviews for me" },
         { href: "/patients", label: "Patients" },
         { href: "/worklist", label: "Worklist" },
         { href: "/quality", label: "Quality" },

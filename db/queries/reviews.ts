@@ -1,5 +1,6 @@
 import "server-only";
-import { and, eq, isNull } from "drizzle-orm";
+import { and, asc, eq, inArray, isNull, sql as dsql } from "drizzle-orm";
+import { alias } from "drizzle-orm/pg-core";
 import { db, type Tx } from "../client";
 import { adjudications, lesionTracks, patients, reviews, users, userSites, visits } from "../schema";
 import { inScope, type SiteScope } from "./scope";
@@ -91,4 +92,24 @@ export async function listOpenDisagreements(scope: SiteScope, patientId: string)
 export async function listReviewersForSite(siteId: string) {
   return db.select({ id: users.id, displayName: users.displayName }).from(users).innerJoin(userSites, eq(userSites.userId, users.id))
     .where(and(eq(userSites.siteId, siteId), eq(users.role, "reviewer"), eq(users.active, true)));
+}
+
+/** The caller's reviews still to do (requested or in progress), oldest request first, in scope. */
+export async function listOpenReviewsForReviewer(scope: SiteScope) {
+  const compared = alias(visits, "compared");
+  const requester = alias(users, "requester");
+  return db
+    .select({
+      id: reviews.id, status: reviews.status, requestedAt: reviews.createdAt, patientId: reviews.patientId, visitId: reviews.visitId,
+      comparedVisitId: reviews.comparedVisitId, mrn: patients.mrn, familyName: patients.familyName, givenName: patients.givenName,
+      visitDate: visits.visitDate, comparedVisitDate: compared.visitDate, requestedBy: requester.displayName,
+      verdicts: dsql<number>`(select count(*)::int from ${adjudications} where ${adjudications.reviewId} = ${reviews.id})`,
+    })
+    .from(reviews)
+    .innerJoin(patients, eq(patients.id, reviews.patientId))
+    .innerJoin(visits, eq(visits.id, reviews.visitId))
+    .leftJoin(compared, eq(compared.id, reviews.comparedVisitId))
+    .leftJoin(requester, eq(requester.id, reviews.requestedBy))
+    .where(and(eq(reviews.reviewerId, scope.userId), inArray(reviews.status, ["requested", "in_progress"]), inScope(reviews.siteId, scope)))
+    .orderBy(asc(reviews.createdAt));
 }

@@ -27,5 +27,6 @@ export const severityEnum = pgEnum("severity", v.SEVERITIES);
 export const visitStatusEnum = pgEnum("visit_status", v.VISIT_STATUSES);
 export const attachmentKindEnum = pgEnum("attachment_kind", ["photo", "document"]);
 export const reviewStatusEnum = pgEnum("review_status", ["requested", "in_progress", "signed_off"]);
-export const verdictEnum = pgEnum("verdict", ["agree", "disagree"]);
+// not_examined: the reviewer could not judge this track (images or notes do not show it).
+export const verdictEnum = pgEnum("verdict", ["agree", "disagree", "not_examined"]);
 export const outboxStatusEnum = pgEnum("outbox_status", ["pending", "sent", "failed"]);

@@ -71,6 +71,10 @@ export const TRACK_STATUSES = ["new", "persistent", "regressed", "progressed", "
 export type TrackStatus = (typeof TRACK_STATUSES)[number];
 
 /** What the examiner recorded for a previous track at a follow-up visit. */
+/** A reviewer's verdict on one track's status; not_examined when the record does not let them judge it. */
+export const VERDICTS = ["agree", "disagree", "not_examined"] as const;
+export type Verdict = (typeof VERDICTS)[number];
+
 export const TRACK_CHECK_OUTCOMES = ["not_found", "treated"] as const;
 export type TrackCheckOutcome = (typeof TRACK_CHECK_OUTCOMES)[number];
 

@@ -20,11 +20,17 @@ export async function requestReview(scope: SiteScope, patientId: string, input: 
     const reviewer = await activeReviewerOfSite(tx, input.reviewerId, p.siteId);
     if (!reviewer) throw new AppError("invalid", undefined, { reviewerId: ["Choose an active reviewer of this site."] });
     const r = await insertReview(tx, { patientId: p.id, siteId: p.siteId, visitId: input.visitId, comparedVisitId: input.comparedVisitId ?? null, reviewerId: reviewer.id, requestedBy: scope.userId });
-    // The reviewer hears of it by e-mail (a link only), unless they asked for it themselves.
-    if (reviewer.id !== scope.userId) await notifyReviewRequested(tx, r.id, { path: `/patients/${p.id}/compare` });
+    // The reviewer hears of it by e-mail (a link only), unless they asked for it themselves. The
+    // link names the exact pair, so the reviewer lands on this review and not on a new one.
+    if (reviewer.id !== scope.userId) await notifyReviewRequested(tx, r.id, { path: reviewPairPath(p.id, input.visitId, input.comparedVisitId) });
     await recordAudit({ userId: scope.userId, siteId: p.siteId, patientId: p.id, action: "review.request", entityType: "review", entityId: r.id, ip, detail: { ...input } }, tx);
     return r;
   });
+}
+
+/** The compare page opened on the reviewed pair: a = the earlier visit, b = the visit reviewed. */
+export function reviewPairPath(patientId: string, visitId: string, comparedVisitId?: string | null): string {
+  return `/patients/${patientId}/compare?${comparedVisitId ? `a=${comparedVisitId}&` : ""}b=${visitId}`;
 }
 
 export async function adjudicate(scope: SiteScope, reviewId: string, input: AdjudicationInput, ip: string) {
@@ -34,7 +40,7 @@ export async function adjudicate(scope: SiteScope, reviewId: string, input: Adju
     if (r.status === "signed_off") throw new AppError("locked", "This review is signed off; open a new review to change it.");
     if (r.reviewerId && r.reviewerId !== scope.userId) throw new AppError("forbidden", "This review is assigned to another reviewer.");
     if (!(await trackIsPatients(tx, input.trackId, r.patientId))) throw new AppError("invalid", undefined, { trackId: ["That track is not this patient's."] });
-    const values = { verdict: input.verdict, proposedStatus: input.verdict === "agree" ? null : (input.proposedStatus ?? null), comment: input.comment ?? null, resolvedAt: null, resolvedBy: null };
+    const values = { verdict: input.verdict, proposedStatus: input.verdict === "disagree" ? (input.proposedStatus ?? null) : null, comment: input.comment ?? null, resolvedAt: null, resolvedBy: null };
     const a = await upsertAdjudication(tx, { reviewId: r.id, siteId: r.siteId, trackId: input.trackId }, values);
     await setReviewInProgress(tx, r.id, r.reviewerId ?? scope.userId);
     await recordAudit({ userId: scope.userId, siteId: r.siteId, patientId: r.patientId, action: "review.adjudicate", entityType: "adjudication", entityId: a.id, ip, detail: { ...input } }, tx);

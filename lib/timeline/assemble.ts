@@ -1,7 +1,7 @@
 // The timeline and compare screens' view of one patient, worked out from the rows the timeline
 // statement reads: each lesion's worst histology and effective grade (histology decides), and per
 // visit the lesion counts by grade and the treated share of the circumference.
-import { HISTOLOGY_AS_GRADE, type Grade, type Histology, type Modality, type Position, type TrackCheckOutcome, type TrackStatus, type VisitStatus, type Zone } from "@/lib/domain/vocab";
+import { HISTOLOGY_AS_GRADE, type Grade, type Histology, type Modality, type Position, type TrackCheckOutcome, type TrackStatus, type Verdict, type VisitStatus, type Zone } from "@/lib/domain/vocab";
 import { unionLengthH } from "@/lib/geometry/arcs";
 import { worseHistology } from "@/lib/tracking/histories";
 
@@ -19,7 +19,7 @@ export interface TimelineRows {
   checks: { visitId: string; trackId: string; outcome: TrackCheckOutcome }[];
   reviews: { id: string; visitId: string; comparedVisitId: string | null; status: "requested" | "in_progress" | "signed_off"; reviewerId: string | null }[];
   adjudications: {
-    id: string; reviewId: string; trackId: string; verdict: "agree" | "disagree"; proposedStatus: TrackStatus | null;
+    id: string; reviewId: string; trackId: string; verdict: Verdict; proposedStatus: TrackStatus | null;
     comment: string | null; resolvedAt: Date | null; createdAt: Date;
   }[];
 }

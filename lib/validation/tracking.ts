@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { TRACK_CHECK_OUTCOMES, TRACK_STATUSES } from "@/lib/domain/vocab";
+import { TRACK_CHECK_OUTCOMES, TRACK_STATUSES, VERDICTS } from "@/lib/domain/vocab";
 
 const id = (what: string) => z.string().uuid(`Not a valid ${what}.`);
 
@@ -26,11 +26,11 @@ export const requestReviewSchema = z.object({
 export const adjudicationSchema = z
   .object({
     trackId: id("track"),
-    verdict: z.enum(["agree", "disagree"], { message: "Choose agree or disagree." }),
+    verdict: z.enum(VERDICTS, { message: "Choose agree, disagree or not examined." }),
     proposedStatus: z.enum(TRACK_STATUSES, { message: "Choose the status you believe." }).nullable().optional(),
     comment: z.string().trim().max(2000, "Keep the comment under 2,000 characters.").nullable().optional(),
   })
-  .refine((a) => a.verdict === "agree" || (a.proposedStatus && a.comment), {
+  .refine((a) => a.verdict !== "disagree" || (a.proposedStatus && a.comment), {
     message: "A disagreement needs the status you believe and a comment.",
     path: ["comment"],
   });
