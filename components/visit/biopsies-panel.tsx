@@ -7,7 +7,8 @@ import useSWR, { useSWRConfig } from "swr";
 import { ApiError, fetcher, sendJson } from "@/components/data/fetcher";
 import { ResultForm } from "@/components/biopsies/result-form";
 import { GRADE_LABEL, HISTOLOGY_LABEL, type Histology } from "@/lib/domain/vocab";
-import { describeSite } from "@/lib/geometry/conventions";
+import { describeSite, fromDisplayHours } from "@/lib/geometry/conventions";
+import { numberingSuffix, useNumbering } from "@/components/visit/numbering";
 import type { VisitMapDto } from "@/lib/validation/lesions";
 import { api } from "@/components/data/keys";
 
@@ -31,6 +32,8 @@ export function BiopsiesPanel({ visitId, canEdit, canEnterResults }: { visitId: 
   const { data: map } = useSWR<VisitMapDto>(lesionsKey, fetcher);
   const [lesionId, setLesionId] = useState("");
   const [clock, setClock] = useState("");
+  // Clock numbers typed and shown in the page's numbering; stored in the lithotomy frame.
+  const { conv } = useNumbering("lithotomy");
   const [dist, setDist] = useState("");
   const [error, setError] = useState<string | null>(null);
   const [busy, setBusy] = useState(false);
@@ -66,7 +69,7 @@ export function BiopsiesPanel({ visitId, canEdit, canEnterResults }: { visitId: 
             <p>
               <span className="mr-2 inline-flex h-7 w-7 items-center justify-center border-2 border-ink font-bold" aria-hidden>{b.specimenLabel}</span>
               <span className="font-semibold">Specimen {b.specimenLabel}</span>
-              {b.lesionLabel ? ` · from ${b.lesionLabel}` : ""} · {describeSite(b.clockH, b.clockH, b.distanceCm, b.distanceCm)}
+              {b.lesionLabel ? ` · from ${b.lesionLabel}` : ""} · {describeSite(b.clockH, b.clockH, b.distanceCm, b.distanceCm, conv)} ({numberingSuffix(conv)})
               {" · "}
               {b.histology ? <strong>Histology {HISTOLOGY_LABEL[b.histology]}{b.ainGrade ? ` (${b.ainGrade.toUpperCase()}${b.p16 && b.p16 !== "not_done" ? `, p16 ${b.p16.replace("_", " ")}` : ""})` : ""}</strong> : <em>Awaiting result</em>}
             </p>
@@ -85,9 +88,9 @@ export function BiopsiesPanel({ visitId, canEdit, canEnterResults }: { visitId: 
           </label>
           <button type="button" disabled={busy || !lesionId} onClick={() => take({ lesionId })} className="min-h-11 rounded-md bg-lagoon-600 px-4 font-semibold text-white disabled:bg-rule-strong">Take biopsy</button>
           <span className="self-center text-sm text-ink-soft">or at</span>
-          <label className="text-sm font-semibold">Clock (lithotomy h)<br /><input inputMode="decimal" value={clock} onChange={(e) => setClock(e.target.value)} className={`${input} w-24`} /></label>
+          <label className="text-sm font-semibold">Clock (o&apos;clock, {numberingSuffix(conv)})<br /><input inputMode="decimal" value={clock} onChange={(e) => setClock(e.target.value)} className={`${input} w-24`} /></label>
           <label className="text-sm font-semibold">cm from verge<br /><input inputMode="decimal" value={dist} onChange={(e) => setDist(e.target.value)} className={`${input} w-24`} /></label>
-          <button type="button" disabled={busy || clock === "" || dist === ""} onClick={() => take({ clockH: Number(clock) % 12, distanceCm: Number(dist) })} className="min-h-11 rounded-md border border-rule-strong px-4 font-semibold disabled:text-ink-soft">Take biopsy here</button>
+          <button type="button" disabled={busy || clock === "" || dist === ""} onClick={() => take({ clockH: fromDisplayHours(Number(clock) % 12, conv), distanceCm: Number(dist) })} className="min-h-11 rounded-md border border-rule-strong px-4 font-semibold disabled:text-ink-soft">Take biopsy here</button>
           {error ? <p role="alert" className="w-full text-sm text-danger-ink">{error}</p> : null}
         </div>
       ) : null}

@@ -38,6 +38,7 @@ describe("a complete visit, signed and reported", () => {
     await page.reload();
 
     // Two biopsies through the panel: specimen letters A then B.
+    await page.getByRole("tab", { name: "Biopsies" }).click();
     const panel = page.getByRole("region", { name: "Biopsies" });
     for (const [lesion, letter] of [[hsil, "A"], [wart, "B"]] as const) {
       await panel.getByLabel("From lesion").selectOption(lesion.id);
@@ -58,6 +59,7 @@ describe("a complete visit, signed and reported", () => {
 
     // Sign.
     await page.reload();
+    await page.getByRole("tab", { name: "Record & sign" }).click();
     await page.getByRole("button", { name: "Sign visit…" }).click();
     await page.getByRole("button", { name: "Yes, sign this visit" }).click();
     await expect.poll(() => page.getByText(/Signed by/).count(), { timeout: 15_000 }).toBeGreaterThan(0);

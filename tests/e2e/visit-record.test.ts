@@ -30,12 +30,15 @@ afterAll(async () => {
 describe("the visit record panels", () => {
   it("records exam details, doses with the maximum shown, and an over-limit injection with a reason", async () => {
     await page.goto(`${BASE_URL}${visitPath}`);
-    await page.getByTestId("visit-record-panels").waitFor();
+    // The record sections sit in tabs beside the map: exam details under "Record & sign".
+    await page.getByRole("tab", { name: "Record & sign" }).click();
+    await page.getByRole("tabpanel").getByTestId("visit-record-panels").waitFor();
     await expect.poll(() => page.getByText("only the label ceiling applies").count()).toBeGreaterThan(0);
     await page.getByLabel("Patient weight (kg)").fill("70");
     await page.getByLabel("Prior anal cytology (Bethesda)").selectOption("hsil");
     await page.getByRole("button", { name: "Save exam details" }).click();
     await page.getByText("✓ Saved").waitFor();
+    await page.getByRole("tab", { name: "Procedure" }).click();
 
     await page.getByLabel("Volume (mL)").fill("20");
     await page.getByRole("button", { name: "Add injection" }).click();
@@ -72,10 +75,13 @@ describe("the visit record panels", () => {
   });
 
   it("signs the visit, turns the record read-only and takes an addendum", async () => {
+    await page.getByRole("tab", { name: "Record & sign" }).click();
     await page.getByRole("button", { name: "Sign visit…" }).click();
     await page.getByRole("button", { name: "Yes, sign this visit" }).click();
     await page.getByText("Signed record: read-only").waitFor();
+    await page.getByRole("tab", { name: "Procedure" }).click();
     expect(await page.getByRole("button", { name: "Add injection" }).count()).toBe(0);
+    await page.getByRole("tab", { name: "Record & sign" }).click();
     await page.getByLabel("New addendum").fill("Histology requested by phone.");
     await page.getByRole("button", { name: "Add addendum" }).click();
     await page.getByText(/Addendum 1 · Dr /).waitFor();

@@ -9,6 +9,7 @@ import { Caution } from "@/components/ui/caution";
 import { GRADE_ENCODING } from "@/components/canal-map";
 import { GRADE_LABEL, GRADES, HISTOLOGY_AS_GRADE, HISTOLOGY_LABEL } from "@/lib/domain/vocab";
 import { fromDisplayHours, toDisplayHours, type DisplayConvention } from "@/lib/geometry";
+import { numberingSuffix } from "@/components/visit/numbering";
 import { lesionFieldsSchema, type LesionDto } from "@/lib/validation/lesions";
 import type { LesionPatch } from "./use-lesion-store";
 import { SaveLine } from "./save-line";
@@ -94,7 +95,7 @@ export function LesionForm({ lesion, convention, readOnly, saveInfo, onCommit, o
           <NumberField label="From (cm from verge)" error={err("distanceStartCm")} {...register("distanceStartCm", { valueAsNumber: true, onBlur: () => void save() })} />
           <NumberField label="To (cm from verge)" error={err("distanceEndCm")} {...register("distanceEndCm", { valueAsNumber: true, onBlur: () => void save() })} />
         </div>
-        <p className="text-xs text-ink-soft">Clock in {convention === "prone_jackknife" ? "prone jack-knife" : convention === "left_lateral" ? "left lateral" : "lithotomy"} numbering. Negative cm = perianal skin outside the verge.</p>
+        <p className="text-xs text-ink-soft">Negative cm = perianal skin outside the verge.</p>
         <Nullable control={control} name="morphology" legend="Surface contour" options={MORPHOLOGY} onPicked={() => void save()} />
         <Nullable control={control} name="acetowhite" legend="Acetowhite change" options={ACETOWHITE} onPicked={() => void save()} />
         <Nullable control={control} name="lugol" legend="Lugol's iodine uptake" options={LUGOL} onPicked={() => void save()} />
@@ -184,7 +185,7 @@ function ClockField({ control, name, label, conv, onDone, error }: { control: Co
       const shown = Number.isFinite(v) ? Math.round((toDisplayHours(v, conv) || 12) * 100) / 100 : "";
       return (
         <NumberField
-          label={`${label} (o'clock)`}
+          label={`${label} (o'clock, ${numberingSuffix(conv)})`}
           error={error}
           min={0.5}
           max={12}

@@ -2,6 +2,7 @@
 import { memo } from "react";
 import { GRADE_ENCODING, ZONE_ENCODING } from "@/components/canal-map";
 import { formatClock, toDisplayHours, type DisplayConvention } from "@/lib/geometry";
+import { numberingSuffix } from "@/components/visit/numbering";
 import type { LesionDto } from "@/lib/validation/lesions";
 import type { SaveInfo } from "./use-lesion-store";
 
@@ -42,7 +43,7 @@ function LesionTableInner({ lesions, conv, selectedId, status, onSelect }: { les
       </colgroup>
       <caption className="py-1 text-left font-bold">Lesions at this visit ({lesions.length})</caption>
       <thead className="border-b border-rule bg-lagoon-50">
-        <tr><th className="px-2 py-2">Lesion</th><th className="px-2 py-2">Track</th><th className="px-2 py-2">Impression</th><th className="px-2 py-2">Clock</th><th className="px-2 py-2">cm from verge</th><th className="px-2 py-2">Zone</th><th className="px-2 py-2">Biopsy</th><th className="px-2 py-2">State</th></tr>
+        <tr><th className="px-2 py-2">Lesion</th><th className="px-2 py-2">Track</th><th className="px-2 py-2">Impression</th><th className="px-2 py-2">Clock ({numberingSuffix(conv)})</th><th className="px-2 py-2">cm from verge</th><th className="px-2 py-2">Zone</th><th className="px-2 py-2">Biopsy</th><th className="px-2 py-2">State</th></tr>
       </thead>
       <tbody>
         {lesions.map((l) => (

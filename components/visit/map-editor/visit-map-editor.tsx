@@ -29,6 +29,8 @@ import { useLookAgain } from "@/components/visit/refind/use-look-again";
 import { useTreatedArcs } from "@/components/visit/refind/use-treated-arcs";
 import { ghostStatusWords } from "@/components/visit/refind/look-again";
 import { api } from "@/components/data/keys";
+import { SideTabs, type SideTab } from "@/components/visit/side-tabs";
+import { NumberingNote, useNumbering } from "@/components/visit/numbering";
 
 export interface VisitMapEditorProps {
   visitId: string;
@@ -40,11 +42,14 @@ export interface VisitMapEditorProps {
    * it moves when it arrives (without it the map is fetched after load).
    */
   initialMap?: VisitMapDto;
+  /** Record sections shown in tabs beside the map after the selected lesion's tab (biopsies, procedure…). */
+  sections?: readonly SideTab[];
 }
 
-export function VisitMapEditor({ visitId, initialConvention, canEdit = true, initialMap }: VisitMapEditorProps) {
+export function VisitMapEditor({ visitId, initialConvention, canEdit = true, initialMap, sections = [] }: VisitMapEditorProps) {
   const store = useLesionStore(visitId, initialMap);
-  const [conv, setConv] = useState<DisplayConvention>(initialConvention);
+  // Opens in the position of the examination (shared with the rest of the visit page).
+  const { conv, setConv, position: examPosition } = useNumbering(initialConvention, store.visit?.patientPosition ?? null);
   const [prefNotice, setPrefNotice] = useState<string | null>(null);
   const [selection] = useState(() => createSelectionStore());
   const [selectedTrack, setSelectedTrack] = useState<string | null>(null);
@@ -180,7 +185,7 @@ export function VisitMapEditor({ visitId, initialConvention, canEdit = true, ini
 
       <div className="flex flex-wrap items-center gap-3">
         <ConventionSwitch value={conv} onChange={(v) => void chooseConvention(v)} />
-        {position !== conv ? <span className="text-sm text-ink-soft">Examined in {CONVENTION_LABEL[position].toLowerCase()} position.</span> : null}
+        <NumberingNote position={examPosition ?? position} conv={conv} />
         {!readOnly ? (
           <div className="ml-auto flex flex-wrap items-center gap-2">
             <label className="text-sm font-semibold">
@@ -208,8 +213,10 @@ export function VisitMapEditor({ visitId, initialConvention, canEdit = true, ini
         </div>
       ) : null}
 
-      <div className="grid gap-4 lg:grid-cols-[minmax(0,3fr)_minmax(320px,2fr)]">
-        <div className="rounded-lg border border-rule bg-panel p-2 [contain:layout_paint]">
+      {/* The map stays in view (sticky) while the section beside it scrolls: on a tablet the
+          clinician sees the map and the biopsy, dose or treatment being recorded together. */}
+      <div className="grid gap-4 md:grid-cols-[minmax(0,11fr)_minmax(300px,9fr)] lg:grid-cols-[minmax(0,3fr)_minmax(340px,2fr)]">
+        <div className="self-start rounded-lg border border-rule bg-panel p-2 [contain:layout_paint] md:sticky md:top-2" data-map-column>
           <MemoMapEditor
             lesions={store.lesions}
             convention={conv}
@@ -227,8 +234,13 @@ export function VisitMapEditor({ visitId, initialConvention, canEdit = true, ini
             focusId={focusId}
             newGrade={newGrade}
           />
+          <HsilExtentNote lesions={store.lesions} />
+          <TreatedSummary extent={below.treated.extent} cautionFraction={below.treated.cautionFraction} />
         </div>
-        <Inspector {...inspector} />
+        <SideTabs
+          label="Visit sections"
+          tabs={[{ id: "lesion", label: "Lesion", content: <><Inspector {...inspector} /><FollowUpBeside {...below} /></> }, ...sections]}
+        />
       </div>
       <BelowMap {...below} />
     </div>
@@ -236,6 +248,7 @@ export function VisitMapEditor({ visitId, initialConvention, canEdit = true, ini
 }
 
 const MemoMapEditor = memo(MapEditor);
+
 
 interface InspectorProps {
   selected: LesionDto | null;
@@ -254,7 +267,7 @@ interface InspectorProps {
 /** The selected lesion's form and track, or the selected earlier outline's card. */
 const Inspector = memo(function Inspector({ selected, saveInfo, selectedTrack, conv, readOnly, fu, look, lesions, onCommit, onDelete, onCloseTrack }: InspectorProps) {
   return (
-    <aside aria-label="Selected lesion" className="rounded-lg border border-rule bg-panel p-3 [contain:content] lg:max-h-[calc(100vh-8rem)] lg:overflow-y-auto">
+    <aside aria-label="Selected lesion" className="rounded-lg border border-rule bg-panel p-3 [contain:content]">
       {selectedTrack ? (
         <GhostCard fu={fu} look={look} conv={conv} readOnly={readOnly} trackId={selectedTrack} onClose={onCloseTrack} />
       ) : selected ? (
@@ -292,13 +305,19 @@ interface BelowMapProps {
   showGhostKey: boolean;
 }
 
-/** The treated share, the follow-up list, the lesion table and the key. */
-const BelowMap = memo(function BelowMap({ treated, fu, look, lesions, conv, readOnly, selectedTrack, onSelectTrack, selectedId, status, onSelect, showGhostKey }: BelowMapProps) {
+/** The earlier tracks to look for, under the selected lesion. */
+const FollowUpBeside = memo(function FollowUpBeside({ fu, look, lesions, conv, readOnly, selectedTrack, onSelectTrack }: BelowMapProps) {
+  return (
+    <div className="mt-3 flex flex-col gap-3">
+      <FollowUpPanel fu={fu} look={look} lesions={lesions} conv={conv} readOnly={readOnly} selectedTrackId={selectedTrack} onSelectTrack={onSelectTrack} />
+    </div>
+  );
+});
+
+/** The lesion table and the key, under the map and its sections. */
+const BelowMap = memo(function BelowMap({ lesions, conv, selectedId, status, onSelect, showGhostKey }: BelowMapProps) {
   return (
     <>
-      <HsilExtentNote lesions={lesions} />
-      <TreatedSummary extent={treated.extent} cautionFraction={treated.cautionFraction} />
-      <FollowUpPanel fu={fu} look={look} lesions={lesions} conv={conv} readOnly={readOnly} selectedTrackId={selectedTrack} onSelectTrack={onSelectTrack} />
       {/* Below the fold on a tablet: the browser skips its layout and paint until it scrolls near. */}
       <div className="[content-visibility:auto] [contain-intrinsic-size:auto_40rem]">
         <LesionTable lesions={lesions} conv={conv} selectedId={selectedId} status={status} onSelect={onSelect} />

@@ -1,6 +1,7 @@
 "use client";
 import { Button } from "@/components/ui/button";
 import { formatClock, fromDisplayHours, sectorName, toDisplayHours, type DisplayConvention } from "@/lib/geometry";
+import { numberingSuffix } from "@/components/visit/numbering";
 import { inputClass } from "./field";
 
 /** One arc as typed: clock numbers in the viewer's display convention, 1–12. */
@@ -25,7 +26,7 @@ export function ArcInputs({ drafts, onChange, conv, error }: { drafts: ArcDraft[
   const set = (i: number, patch: Partial<ArcDraft>) => onChange(drafts.map((d, j) => (j === i ? { ...d, ...patch } : d)));
   return (
     <fieldset className="flex flex-col gap-2">
-      <legend className="text-sm font-semibold">Treated arcs, clockwise, in clock hours as you view them</legend>
+      <legend className="text-sm font-semibold">Treated arcs, clockwise, in clock hours ({numberingSuffix(conv)})</legend>
       {drafts.map((d, i) => {
         const stored = toStoredArcs([d], conv)?.[0];
         return (

@@ -4,6 +4,7 @@ import { AppShell } from "@/components/shell/app-shell";
 import { VisitMapEditor } from "@/components/visit/map-editor/visit-map-editor";
 import { LazyVisitGallery, LazyVisitRecordPanels } from "@/components/visit/lazy-panels";
 import { BiopsiesPanel } from "@/components/visit/biopsies-panel";
+import { VisitNumbering } from "@/components/visit/numbering";
 import { getPatient } from "@/db/queries/patients";
 import { listLesionsForVisit } from "@/db/queries/lesions";
 import { scopeOf } from "@/lib/auth/guard";
@@ -42,19 +43,26 @@ export default async function VisitPage({ params }: { params: Promise<{ patientI
           {visit.status === "signed" ? "Signed" : "Draft"}
         </span>
       </div>
-      <section aria-labelledby="map-heading" className="mt-4">
-        <h2 id="map-heading" className="sr-only">Canal map</h2>
-        <VisitMapEditor visitId={visit.id} initialConvention={user.displayConvention} canEdit={canEdit} initialMap={map} />
-      </section>
-      <div className="mt-8">
-        <BiopsiesPanel visitId={visit.id} canEdit={canEdit} canEnterResults={user.role === "clinician"} />
-      </div>
-      <section aria-label="Visit record" className="mt-8">
-        <LazyVisitRecordPanels visitId={visit.id} />
-      </section>
-      <section aria-label="Photographs and documents" className="mt-8">
-        <LazyVisitGallery visitId={visit.id} canUpload={canEdit} convention={user.displayConvention} />
-      </section>
+      {/* One clock numbering for the whole page, opening in the position of the examination. */}
+      <VisitNumbering position={visit.patientPosition}>
+        <section aria-labelledby="map-heading" className="mt-4">
+          <h2 id="map-heading" className="sr-only">Canal map and visit record</h2>
+          <VisitMapEditor
+            visitId={visit.id}
+            initialConvention={visit.patientPosition}
+            canEdit={canEdit}
+            initialMap={map}
+            sections={[
+              { id: "biopsies", label: "Biopsies", content: <BiopsiesPanel visitId={visit.id} canEdit={canEdit} canEnterResults={user.role === "clinician"} /> },
+              { id: "procedure", label: "Procedure", content: <LazyVisitRecordPanels visitId={visit.id} part="procedure" /> },
+              { id: "record", label: "Record & sign", content: <LazyVisitRecordPanels visitId={visit.id} part="record" /> },
+            ]}
+          />
+        </section>
+        <section aria-label="Photographs and documents" className="mt-8">
+          <LazyVisitGallery visitId={visit.id} canUpload={canEdit} convention={visit.patientPosition} />
+        </section>
+      </VisitNumbering>
     </AppShell>
   );
 }
