@@ -42,7 +42,7 @@ export function numberingSuffix(conv: DisplayConvention): string {
 /** Which numbering is shown, and a caution when it is not the position the patient was examined in. */
 export function NumberingNote({ position, conv }: { position: DisplayConvention; conv: DisplayConvention }) {
   if (position === conv) {
-    return <p className="text-sm font-semibold" data-numbering={conv}>{CONVENTION_LABEL[conv]} numbering: the position of this examination.</p>;
+    return <p className="text-sm font-semibold" data-numbering={conv}>Numbered as examined: {CONVENTION_LABEL[conv].toLowerCase()}</p>;
   }
   return (
     <p role="status" className="rounded-md border-2 border-caution-rule bg-caution-bg px-3 py-1 text-sm font-semibold text-caution-ink" data-numbering={conv}>

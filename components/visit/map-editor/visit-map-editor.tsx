@@ -215,7 +215,7 @@ export function VisitMapEditor({ visitId, initialConvention, canEdit = true, ini
 
       {/* The map stays in view (sticky) while the section beside it scrolls: on a tablet the
           clinician sees the map and the biopsy, dose or treatment being recorded together. */}
-      <div className="grid gap-4 md:grid-cols-[minmax(0,11fr)_minmax(300px,9fr)] lg:grid-cols-[minmax(0,3fr)_minmax(340px,2fr)]">
+      <div className="grid gap-4 md:grid-cols-[minmax(0,1fr)_minmax(320px,1fr)] xl:grid-cols-[minmax(0,3fr)_minmax(380px,2fr)]">
         <div className="self-start rounded-lg border border-rule bg-panel p-2 [contain:layout_paint] md:sticky md:top-2" data-map-column>
           <MemoMapEditor
             lesions={store.lesions}
