@@ -60,7 +60,7 @@ export function AdjudicationRow(props: {
         <button type="button" onClick={onSelect} aria-pressed={selected} className="min-h-11 min-w-14 rounded-md px-2 font-bold text-lagoon-700 underline">
           {target.label}
         </button>
-        <div className="min-w-0 flex-1 text-sm">
+        <div className="min-w-48 flex-1 text-sm">
           <p><StatusMark status={target.status} />{target.effectiveGrade ? <span className="text-ink-soft"> · {GRADE_LABEL[target.effectiveGrade]}</span> : null}</p>
           <p className="text-ink-soft">{target.reason}</p>
           {existing ? (
@@ -75,7 +75,8 @@ export function AdjudicationRow(props: {
           )}
         </div>
         {canEdit ? (
-          <div className="flex gap-2">
+          // Under the track's status, full width: three verdicts beside it would squeeze the words.
+          <div className="flex basis-full flex-wrap gap-2">
             <Button variant="secondary" disabled={busy} onClick={() => save({ verdict: "agree" })} aria-label={`Agree with ${target.label}: ${STATUS_LABEL[target.status]}`}>Agree</Button>
             <Button variant="secondary" disabled={busy} onClick={() => setOpen((o) => !o)} aria-expanded={open} aria-controls={`${id}-form`} aria-label={`Disagree with ${target.label}`}>Disagree…</Button>
             <Button variant="secondary" disabled={busy} onClick={() => save({ verdict: "not_examined" })} aria-label={`Not examined: ${target.label}`}>Not examined</Button>
