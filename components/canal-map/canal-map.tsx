@@ -4,7 +4,7 @@ import { useAfterPaint } from "./after-paint";
 import { GHOST_MARK, ORIENTATION_NOTE } from "@/lib/map/encoding";
 import { GhostShape, type GhostLesion } from "./ghost-shape";
 import { LesionBody, LesionMarks, SelectionRing, type LesionSaveState, type MapLesion } from "./lesion-shape";
-import { MapFace } from "./map-face";
+import { MapFace, RingLabels } from "./map-face";
 import { VIEW_BOX } from "@/lib/map/geometry";
 import { GradePatternDefs, safeId } from "./patterns";
 import { useSelectionFromProp, type SelectionStore } from "./selection";
@@ -113,6 +113,7 @@ export function CanalMap(props: CanalMapProps) {
         </svg>
       ))}
       <svg viewBox={VIEW_BOX} className={layer} aria-hidden="true" data-layer="selection">
+        <RingLabels />
         <SelectionRing selection={selection} lesions={lesions} conv={convention} />
         {overlay}
       </svg>

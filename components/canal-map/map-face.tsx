@@ -1,6 +1,6 @@
 import { memo } from "react";
 import { CARDINAL_DISPLAY_HOURS, anatomicalLabelAt, displayHour, fromDisplayHours, zoneBands, type DisplayConvention } from "@/lib/geometry";
-import { ZONE_ENCODING } from "@/lib/map/encoding";
+import { ZONE_ENCODING, DENTATE_RING, VERGE_RING } from "@/lib/map/encoding";
 import { LABEL_RADIUS, NUMBER_RADIUS, OUTER_RADIUS, polar, radiusOfCm, sectorPath } from "@/lib/map/geometry";
 
 const FULL = 2 * Math.PI;
@@ -31,8 +31,8 @@ function MapFaceInner({ conv }: { conv: DisplayConvention }) {
         return <line key={`spoke-${h}`} x1={p0.x} y1={p0.y} x2={p1.x} y2={p1.y} stroke="var(--color-rule-strong)" strokeWidth={h % 3 === 0 ? 1.2 : 0.7} strokeOpacity={0.7} />;
       })}
       <circle r={OUTER_RADIUS} fill="none" stroke="var(--color-rule-strong)" strokeWidth={1.5} />
-      <circle r={DENTATE_R} fill="none" stroke="var(--color-ink-soft)" strokeWidth={2} strokeDasharray="12 4 2 4" />
-      <circle r={VERGE_R} fill="none" stroke="var(--color-ink)" strokeWidth={4} />
+      <circle r={DENTATE_R} fill="none" stroke="var(--color-ink-soft)" strokeWidth={DENTATE_RING.width} strokeDasharray={DENTATE_RING.dash} />
+      <circle r={VERGE_R} fill="none" stroke="var(--color-ink)" strokeWidth={VERGE_RING.width} />
       <circle r={INNER_R} fill="var(--color-paper)" stroke="var(--color-rule-strong)" strokeWidth={1} />
       {TICKS.map((h) => {
         const a = (h * Math.PI) / 6;
@@ -71,8 +71,19 @@ function MapFaceInner({ conv }: { conv: DisplayConvention }) {
           </text>
         );
       })}
+    </g>
+  );
+}
+
+/**
+ * The names of the verge and dentate-line rings. Drawn in the top layer, over the lesions, with a
+ * paper halo: a lesion at 12 o'clock must not hide which ring is which. Taps pass through.
+ */
+export function RingLabels() {
+  return (
+    <g pointerEvents="none" data-ring-labels="">
       <text x={0} y={-(VERGE_R - 4)} dy={-6} textAnchor="middle" fontSize={11} fill="var(--color-ink)" stroke="var(--color-paper)" strokeWidth={3} paintOrder="stroke">verge</text>
-      <text x={0} y={-(DENTATE_R - 4)} dy={-4} textAnchor="middle" fontSize={11} fill="var(--color-ink-soft)" stroke="var(--color-paper)" strokeWidth={3} paintOrder="stroke">dentate line</text>
+      <text x={0} y={-(DENTATE_R - 4)} dy={-4} textAnchor="middle" fontSize={11} fill="var(--color-ink)" stroke="var(--color-paper)" strokeWidth={3} paintOrder="stroke">dentate line</text>
     </g>
   );
 }

@@ -105,6 +105,10 @@ export const SELECTION_RING = { stroke: "var(--color-lagoon-600)", width: 4, pad
 /** A lesion whose save failed: a thick broken outline in the danger colour and a "!" badge. */
 export const UNSAVED_MARK = { stroke: "var(--color-danger-ink)", dash: "10 5", width: 3, words: "red broken outline and ! badge: not saved" } as const;
 
+/** The two landmark rings, on the screen and in print: a heavy continuous verge, a dash-dot dentate line. */
+export const VERGE_RING = { width: 4, words: "heavy ring: anal verge" } as const;
+export const DENTATE_RING = { width: 2, dash: "12 4 2 4", words: "dash-dot ring: dentate line" } as const;
+
 export const ZONE_ENCODING: ReadonlyArray<{ zone: Zone; label: string; fill: string }> = [
   { zone: "perianal", label: "Perianal skin (outside the verge)", fill: "var(--color-zone-perianal)" },
   { zone: "distal_canal", label: "Distal canal", fill: "var(--color-zone-distal)" },
@@ -113,5 +117,4 @@ export const ZONE_ENCODING: ReadonlyArray<{ zone: Zone; label: string; fill: str
   { zone: "distal_rectum", label: "Distal rectum", fill: "var(--color-zone-rectum)" },
 ];
 
-export const ORIENTATION_NOTE =
-  "Looking into the canal: the centre is the deepest point (distal rectum), the outer ring is the perianal skin. The heavy ring is the anal verge; the dash-dot ring is the dentate line.";
+export const ORIENTATION_NOTE = `Looking into the canal: the centre is the deepest point (distal rectum), the outer ring is the perianal skin. The ${VERGE_RING.words.replace(": ", " is the ")}; the ${DENTATE_RING.words.replace(": ", " is the ")}.`;

@@ -1,5 +1,5 @@
 import type PDFDocument from "pdfkit";
-import { GRADE_ENCODING, BIOPSY_TAG, TREATED_MARK, type FillPattern, type LineTexture } from "@/lib/map/encoding";
+import { GRADE_ENCODING, BIOPSY_TAG, DENTATE_RING, TREATED_RING, VERGE_RING, type FillPattern, type LineTexture } from "@/lib/map/encoding";
 import {
   OUTER_RADIUS, centreOf, isPointLesion, pointOfSite, polar, radiusOfCm, sectorOf, sectorPath,
 } from "@/lib/map/geometry";
@@ -14,8 +14,6 @@ import type { ReportBiopsy, ReportLesion, ReportTreatment } from "./types";
 type Doc = InstanceType<typeof PDFDocument>;
 
 const INK = "#1a1a1a";
-/** Treated arcs run just outside the skin ring; numbers sit outside them. */
-const TREATED_RADIUS = OUTER_RADIUS + 11;
 const NUMBER_RADIUS = OUTER_RADIUS + 32;
 /** Greys for the five zone bands, outermost (skin) to deepest (rectum). */
 const ZONE_GREYS = ["#f4f4f4", "#ffffff", "#e6e6e6", "#ffffff", "#f0f0f0"];
@@ -64,9 +62,11 @@ function drawFace(doc: Doc): void {
   doc.save().lineWidth(0.6).strokeColor("#8a8a8a");
   for (const b of bands) doc.circle(0, 0, radiusOfCm(b.fromCm)).stroke();
   doc.restore();
-  // The verge (heavy) and the dentate line (dash-dot), as on the web map.
-  doc.save().lineWidth(2.4).strokeColor(INK).circle(0, 0, radiusOfCm(0)).stroke().restore();
-  doc.save().lineWidth(1.2).strokeColor(INK).dash(8, { space: 3 }).circle(0, 0, radiusOfCm(DEFAULT_ZONE_BOUNDS.dentateLineCm)).stroke().undash().restore();
+  // The verge (heavy) and the dentate line (dash-dot), from the same table as the web map.
+  doc.save().lineWidth(VERGE_RING.width * 0.6).strokeColor(INK).circle(0, 0, radiusOfCm(0)).stroke().restore();
+  doc.save().lineWidth(DENTATE_RING.width * 0.6).strokeColor(INK);
+  dashPath(doc, DENTATE_RING.dash, () => doc.circle(0, 0, radiusOfCm(DEFAULT_ZONE_BOUNDS.dentateLineCm)).stroke());
+  doc.restore();
   doc.save().fontSize(14).fillColor(INK).font("Helvetica");
   for (let h = 0; h < 12; h++) {
     const a = (h * Math.PI) / 6;
@@ -118,12 +118,30 @@ function drawLesion(doc: Doc, l: ReportLesion, grade: Grade): void {
   doc.restore();
 }
 
+/** Strokes with a dash pattern of any length ("12 4 2 4" is dash-dot); pdfkit takes the array as PDF does. */
+function dashPath(doc: Doc, pattern: string, stroke: () => void): void {
+  const parts = pattern.split(/\s+/).map(Number);
+  (doc.dash as unknown as (l: number[], o: object) => Doc).call(doc, parts, {});
+  stroke();
+  doc.undash();
+}
+
+/** Treated arcs as on the screen (TREATED_RING): a band between two rails, crossed by rungs. */
 function drawTreatedArcs(doc: Doc, t: ReportTreatment): void {
-  const r = TREATED_RADIUS;
+  const inner = radiusOfCm(0) + TREATED_RING.innerGapPx;
+  const outer = inner + TREATED_RING.widthPx;
   for (const a of t.arcs) {
     const { startAngle, endAngle } = arcToRadians(a);
-    const d = sectorPath({ innerRadius: r - 3, outerRadius: r + 3, startAngle, endAngle })!;
-    doc.save().lineWidth(TREATED_MARK.strokeWidth).strokeColor(INK).dash(6, { space: 4 }).path(d).stroke().undash().restore();
+    const band = sectorPath({ innerRadius: inner, outerRadius: outer, startAngle, endAngle })!;
+    doc.save().path(band).fill("#ffffff").restore();
+    doc.save().lineWidth(TREATED_RING.rail).strokeColor(INK).path(band).stroke().restore();
+    const mid = (inner + outer) / 2;
+    const [on, off] = TREATED_RING.rung.split(/\s+/).map(Number) as [number, number];
+    const mid0 = polar(startAngle, mid);
+    const mid1 = polar(endAngle, mid);
+    const large = endAngle - startAngle > Math.PI ? 1 : 0;
+    doc.save().lineWidth(TREATED_RING.widthPx - 2).strokeColor(INK).dash(on, { space: off })
+      .path(`M ${mid0.x} ${mid0.y} A ${mid} ${mid} 0 ${large} 1 ${mid1.x} ${mid1.y}`).stroke().undash().restore();
   }
 }
 

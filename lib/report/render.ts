@@ -1,6 +1,6 @@
 import PDFDocument from "pdfkit";
 import { GRADE_LABEL, GRADES, HISTOLOGY_AS_GRADE, type Grade } from "@/lib/domain/vocab";
-import { GRADE_ENCODING, BIOPSY_TAG, TREATED_MARK } from "@/lib/map/encoding";
+import { GRADE_ENCODING, BIOPSY_TAG, ORIENTATION_NOTE, TREATED_RING } from "@/lib/map/encoding";
 import { buildReportModel } from "./model";
 import { drawCanalMap, drawGradeSwatch } from "./pdf-map";
 import { INK, MUTED, bullets, contentWidth, heading, labelValues, paragraph, table } from "./pdf-layout";
@@ -45,11 +45,12 @@ function mapAndLegend(doc: InstanceType<typeof PDFDocument>, d: VisitReportData)
   doc.font("Helvetica-Bold").fontSize(8).text("A", lx + 1, y + 3, { width: 12, align: "center" });
   doc.font("Helvetica").fontSize(8.5).text(`Biopsy: ${BIOPSY_TAG.words}`, lx + 20, y + 2, { width: lw - 20 });
   y = Math.max(doc.y, y + 14) + 4;
-  doc.save().lineWidth(TREATED_MARK.strokeWidth).dash(6, { space: 4 }).moveTo(lx, y + 6).lineTo(lx + 14, y + 6).stroke(INK).undash().restore();
-  doc.text("Treated arc: dashed band outside the skin ring", lx + 20, y + 2, { width: lw - 20 });
+  doc.save().lineWidth(TREATED_RING.rail).rect(lx, y + 1, 14, 10).stroke(INK).restore();
+  doc.save().lineWidth(8).dash(2.5, { space: 3 }).moveTo(lx, y + 6).lineTo(lx + 14, y + 6).stroke(INK).undash().restore();
+  doc.text(`Treated: ${TREATED_RING.words}`, lx + 20, y + 2, { width: lw - 20 });
   y = Math.max(doc.y, y + 14) + 6;
   doc.font("Helvetica-Oblique").fontSize(8).fillColor(MUTED).text(
-    "Looking into the canal, lithotomy numbering: centre = distal rectum, outer ring = perianal skin. Heavy ring: anal verge; dashed ring: dentate line.",
+    `Lithotomy numbering. ${ORIENTATION_NOTE}`,
     lx, y, { width: lw },
   );
   doc.y = Math.max(doc.y, top + size) + 6;

@@ -26,8 +26,8 @@ export function sampleReport(): VisitReportData {
       signerName: null,
     },
     lesions: [
-      { id: "l1", label: "L1", trackLabel: "T1", clockStartH: 1, clockEndH: 3, distanceStartCm: 1, distanceEndCm: 2, zone: "transformation_zone", grade: "lsil", morphology: "flat", acetowhite: "dense", lugol: "negative", vessels: ["punctation"], sizeMm: 8, note: null, trackStatus: "persistent", effectiveGrade: null },
-      { id: "l2", label: "L2", trackLabel: "T2", clockStartH: 6, clockEndH: 7.5, distanceStartCm: 0, distanceEndCm: 1, zone: "distal_canal", grade: "lsil", morphology: "raised", acetowhite: "faint", lugol: null, vessels: [], sizeMm: null, note: null, trackStatus: "new", effectiveGrade: null },
+      { id: "l1", label: "L1", trackLabel: "#1", clockStartH: 1, clockEndH: 3, distanceStartCm: 1, distanceEndCm: 2, zone: "transformation_zone", grade: "lsil", morphology: "flat", acetowhite: "dense", lugol: "negative", vessels: ["punctation"], sizeMm: 8, note: null, trackStatus: "persistent", effectiveGrade: null },
+      { id: "l2", label: "L2", trackLabel: "#2", clockStartH: 6, clockEndH: 7.5, distanceStartCm: 0, distanceEndCm: 1, zone: "distal_canal", grade: "lsil", morphology: "raised", acetowhite: "faint", lugol: null, vessels: [], sizeMm: null, note: null, trackStatus: "new", effectiveGrade: null },
       { id: "l3", label: "L3", trackLabel: null, clockStartH: 10, clockEndH: 10.2, distanceStartCm: -1.2, distanceEndCm: -1, zone: "perianal", grade: "condyloma", morphology: "papillary", acetowhite: null, lugol: null, vessels: [], sizeMm: 3, note: null, trackStatus: null, effectiveGrade: null },
     ],
     biopsies: [
