@@ -10,7 +10,7 @@ export type QuarterRow = { quarter: string } & Record<Grade, number>;
 
 /** Lesions seen per quarter, stacked by impression grade; the table below carries the same figures for greyscale and screen readers. */
 // Fills, outlines and hues come from the map's encoding, so the chart reads in greyscale as the map does.
-export function QuarterGradeChart({ rows }: { rows: QuarterRow[] }) {
+export function QuarterGradeChart({ rows, emptyQuarters = [] }: { rows: QuarterRow[]; emptyQuarters?: readonly string[] }) {
   const prefix = safeId(useId());
   if (rows.length === 0) return <p className="text-sm text-ink-soft">No lesions recorded at signed visits yet.</p>;
   return (
@@ -31,6 +31,11 @@ export function QuarterGradeChart({ rows }: { rows: QuarterRow[] }) {
           </BarChart>
         </ResponsiveContainer>
       </div>
+      {emptyQuarters.length ? (
+        <p className="mt-1 text-sm" data-empty-quarters="">
+          No lesions at signed visits in {emptyQuarters.join(", ")}: {emptyQuarters.length === 1 ? "that quarter is" : "those quarters are"} shown empty, not left out.
+        </p>
+      ) : null}
       <details className="mt-2 text-sm">
         <summary className="cursor-pointer font-semibold text-lagoon-700">Figures as a table</summary>
         <table className="mt-2 w-full text-left tabular-nums">

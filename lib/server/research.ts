@@ -7,6 +7,7 @@ import type { SiteScope } from "@/db/queries/scope";
 import { GRADES, type Grade } from "@/lib/domain/vocab";
 import { qualityMetrics, type Metric } from "@/lib/quality";
 import { kaplanMeier, medianSurvival, numbersAtRisk, type SurvivalStep } from "@/lib/stats";
+import { rateAt, withEmptyQuarters } from "@/lib/stats/study-figures";
 
 export interface QualityGroup {
   label: string;
@@ -47,13 +48,15 @@ export interface RegistryDashboard {
   visits: number;
   lesions: number;
   gradeByQuarter: ({ quarter: string } & Record<Grade, number>)[];
+  /** Quarters between the first and the last with no lesion at a signed visit (zero rows in gradeByQuarter). */
+  emptyQuarters: string[];
   clearance: {
     lesionsTreatedFollowed: number;
     lesionsCleared: number;
     patientsTreatedFollowed: number;
     patientsCleared: number;
   };
-  recurrence: { steps: SurvivalStep[]; ticks: number[]; atRisk: number[]; medianDays: number | null; patients: number; events: number };
+  recurrence: { steps: SurvivalStep[]; ticks: number[]; atRisk: number[]; medianDays: number | null; patients: number; events: number; oneYear: { atRisk: number; rate: number | null } };
 }
 
 export async function loadRegistryDashboard(studyId: string, siteIds: string[]): Promise<RegistryDashboard> {
@@ -75,7 +78,10 @@ export async function loadRegistryDashboard(studyId: string, siteIds: string[]):
     patients: totals.patients,
     visits: totals.visits,
     lesions: totals.lesions,
-    gradeByQuarter: [...quarters.values()],
+    ...(() => {
+      const filled = withEmptyQuarters([...quarters.values()].sort((a, b) => a.quarter.localeCompare(b.quarter)), (quarter) => ({ quarter, ...Object.fromEntries(GRADES.map((g) => [g, 0])) }) as { quarter: string } & Record<Grade, number>);
+      return { gradeByQuarter: filled.rows, emptyQuarters: filled.empty };
+    })(),
     clearance: {
       lesionsTreatedFollowed: lesionClear.followed,
       lesionsCleared: lesionClear.cleared,
@@ -89,6 +95,7 @@ export async function loadRegistryDashboard(studyId: string, siteIds: string[]):
       medianDays: medianSurvival(steps),
       patients: items.length,
       events: items.filter((i) => i.event).length,
+      oneYear: rateAt(steps, 365),
     },
   };
 }

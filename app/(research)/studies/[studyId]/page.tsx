@@ -15,6 +15,7 @@ import { StudyForm } from "@/components/research/study-form";
 import { scopeOf } from "@/lib/auth/guard";
 import { requirePageRole } from "@/lib/auth/page-guard";
 import { uuidParam } from "@/lib/http/route";
+import { MIN_AT_RISK_FOR_RATE } from "@/lib/stats/study-figures";
 
 export const metadata = { title: "Study" };
 export const dynamic = "force-dynamic";
@@ -69,12 +70,16 @@ export default async function StudyPage({ params }: { params: Promise<{ studyId:
           {stat("Patients taking part", dash.patients)}
           {stat("Visits", dash.visits)}
           {stat("Lesions", dash.lesions)}
-          {stat("Free of HSIL at 1 year", r.patients ? `${Math.round(100 * (r.steps.filter((s) => s.time <= 365).at(-1)?.survival ?? 1))}%` : "–", `${r.patients} cleared, ${r.events} recurred`)}
+          {stat(
+            "Free of HSIL at 1 year",
+            r.oneYear.rate === null ? "Too few followed" : `${Math.round(100 * r.oneYear.rate)}%`,
+            `${r.oneYear.atRisk} still followed at 1 year${r.oneYear.rate === null ? ` (a rate needs at least ${MIN_AT_RISK_FOR_RATE})` : ""} · ${r.patients} cleared, ${r.events} recurred`,
+          )}
         </div>
         <div className="mt-6 grid gap-6 lg:grid-cols-2">
           <div className="rounded-lg border border-rule bg-panel p-4">
             <h3 className="font-bold">Lesions by grade over time</h3>
-            <QuarterGradeChart rows={dash.gradeByQuarter} />
+            <QuarterGradeChart rows={dash.gradeByQuarter} emptyQuarters={dash.emptyQuarters} />
           </div>
           <div className="rounded-lg border border-rule bg-panel p-4">
             <h3 className="font-bold">Staying free of HSIL after clearance</h3>
