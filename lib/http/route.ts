@@ -1,4 +1,5 @@
 import "server-only";
+import { plainIssueMessage } from "@/lib/validation/plain-words";
 import { z } from "zod";
 import { userFromRequest, requireRole, type CurrentUser } from "@/lib/auth/guard";
 import { clientIp, isHttps, originAllowed } from "@/lib/auth/request-info";
@@ -62,7 +63,8 @@ export function fieldErrors(error: z.ZodError): Record<string, string[]> {
 }
 
 export function parseWith<S extends z.ZodType>(schema: S, value: unknown): z.infer<S> {
-  const r = schema.safeParse(value);
+  // Schemas' own messages win; anything else is said in plain words, never the library's.
+  const r = schema.safeParse(value, { error: plainIssueMessage });
   if (!r.success) throw new AppError("invalid", undefined, fieldErrors(r.error));
   return r.data;
 }

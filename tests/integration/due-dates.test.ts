@@ -38,7 +38,10 @@ describe("next visit due", () => {
     expect(change!.detail).toEqual({ before: {}, after: { after_hsil_treatment: 6 } });
 
     // Out of range is refused and nothing changes (1-36 months).
-    expect((await rulesPut(req("PUT", "/api/admin/followup-rules", admin, { siteId: site.id, rules: { clear_exam: 0 } }))).status).toBe(400);
+    const refused = await rulesPut(req("PUT", "/api/admin/followup-rules", admin, { siteId: site.id, rules: { clear_exam: 0 } }));
+    expect(refused.status).toBe(400);
+    // In plain words, not the validation library's ("Too small: expected number to be >=1").
+    expect((await refused.json()).error.fields["rules.clear_exam"]).toEqual(["Enter a number of at least 1."]);
 
     await setNextDueOverride({ scope, patientId: p.id, date: "2025-03-01", reason: "Patient travelling in summer", by: clin.userId, ip: "t" });
     const due = (await getPatientDue(scope, p.id, "2025-03-11"))!;
