@@ -1,7 +1,7 @@
 import "server-only";
 // Reading the audit trail for admins. There is no update or delete here, and the table refuses
 // them anyway (append-only trigger).
-import { and, count, desc, eq, gte, inArray, isNull, lt, or, type SQL } from "drizzle-orm";
+import { and, count, desc, eq, gte, inArray, isNull, lt, or, sql, type SQL } from "drizzle-orm";
 import { db } from "../client";
 import { auditEvents, patients, users, userSites } from "../schema";
 
@@ -12,6 +12,8 @@ export interface AuditFilters {
   /** Exact action, or a prefix ending in "." ("sign_in." lists every sign-in event). */
   action?: string;
   patientId?: string;
+  /** The patient's MRN as staff know it (exact, ignoring case), instead of the internal id. */
+  patientMrn?: string;
   fromDate?: string;
   toDate?: string;
   page?: number;
@@ -32,6 +34,7 @@ export async function listAuditEvents(siteIds: string[], f: AuditFilters) {
     f.userId ? eq(auditEvents.userId, f.userId) : undefined,
     actionClause(f.action),
     f.patientId ? eq(auditEvents.patientId, f.patientId) : undefined,
+    f.patientMrn ? inArray(auditEvents.patientId, db.select({ id: patients.id }).from(patients).where(sql`lower(${patients.mrn}) = lower(${f.patientMrn})`)) : undefined,
     f.fromDate ? gte(auditEvents.at, new Date(`${f.fromDate}T00:00:00Z`)) : undefined,
     f.toDate ? lt(auditEvents.at, new Date(new Date(`${f.toDate}T00:00:00Z`).getTime() + 86_400_000)) : undefined,
   );

@@ -4,6 +4,7 @@ import { AppShell } from "@/components/shell/app-shell";
 import { listAuditActions, listAuditEvents } from "@/db/queries/audit-trail";
 import { listStaff } from "@/db/queries/users";
 import { requirePageRole } from "@/lib/auth/page-guard";
+import { detailWords, eventWords } from "@/lib/audit/words";
 
 export const metadata = { title: "Audit trail" };
 
@@ -11,7 +12,8 @@ const day = z.string().regex(/^\d{4}-\d{2}-\d{2}$/);
 const searchSchema = z.object({
   user: z.string().max(100).optional().catch(undefined),
   action: z.string().max(100).optional().catch(undefined),
-  patient: z.string().uuid().optional().catch(undefined),
+  // An MRN as staff know it, or (from older links) the internal id.
+  patient: z.string().trim().max(100).optional().catch(undefined),
   from: day.optional().catch(undefined),
   to: day.optional().catch(undefined),
   page: z.coerce.number().int().min(1).max(100_000).optional().catch(1),
@@ -19,17 +21,13 @@ const searchSchema = z.object({
 
 const input = "mt-1 min-h-11 rounded-md border border-rule-strong bg-panel px-2";
 
-function describe(detail: unknown): string {
-  if (!detail || typeof detail !== "object") return "";
-  const text = JSON.stringify(detail);
-  return text.length > 160 ? `${text.slice(0, 157)}…` : text;
-}
+const isId = (v: string) => z.string().uuid().safeParse(v).success;
 
 export default async function AuditPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
   const user = await requirePageRole(["admin"]);
   const q = searchSchema.parse(await searchParams);
   const [result, actions, staff] = await Promise.all([
-    listAuditEvents(user.siteIds, { userId: q.user || undefined, action: q.action || undefined, patientId: q.patient, fromDate: q.from, toDate: q.to, page: q.page }),
+    listAuditEvents(user.siteIds, { userId: q.user || undefined, action: q.action || undefined, ...(q.patient ? (isId(q.patient) ? { patientId: q.patient } : { patientMrn: q.patient }) : {}), fromDate: q.from, toDate: q.to, page: q.page }),
     listAuditActions(),
     listStaff(user.siteIds),
   ]);
@@ -52,13 +50,13 @@ export default async function AuditPage({ searchParams }: { searchParams: Promis
           <label htmlFor="action" className="block text-sm font-semibold">Event</label>
           <select id="action" name="action" defaultValue={q.action ?? ""} className={input}>
             <option value="">Any event</option>
-            <optgroup label="Groups">{prefixes.map((p) => <option key={p} value={p}>{p}*</option>)}</optgroup>
-            <optgroup label="Events">{actions.map((a) => <option key={a} value={a}>{a}</option>)}</optgroup>
+            <optgroup label="Groups">{prefixes.map((p) => <option key={p} value={p}>{eventWords(p.slice(0, -1)).split(" ")[0]}: every event</option>)}</optgroup>
+            <optgroup label="Events">{actions.map((a) => <option key={a} value={a}>{eventWords(a)}</option>)}</optgroup>
           </select>
         </div>
         <div>
-          <label htmlFor="patient" className="block text-sm font-semibold">Patient id</label>
-          <input id="patient" name="patient" defaultValue={q.patient ?? ""} placeholder="any" className={`${input} w-80 font-mono text-sm`} />
+          <label htmlFor="patient" className="block text-sm font-semibold">Patient MRN</label>
+          <input id="patient" name="patient" defaultValue={q.patient ?? ""} placeholder="any" className={`${input} w-48`} />
         </div>
         <div>
           <label htmlFor="from" className="block text-sm font-semibold">From</label>
@@ -81,10 +79,10 @@ export default async function AuditPage({ searchParams }: { searchParams: Promis
             <tr key={e.id} className="border-b border-rule align-top last:border-0">
               <td className="whitespace-nowrap px-3 py-2 tabular-nums">{e.at.toISOString().slice(0, 19).replace("T", " ")}</td>
               <td className="px-3 py-2">{e.userName ?? (e.userId ? <span className="font-mono">{e.userId}</span> : <span className="text-ink-soft">—</span>)}</td>
-              <td className={`px-3 py-2 font-mono ${e.action.endsWith(".failed") || e.action.endsWith(".rate_limited") ? "font-bold text-danger-ink" : ""}`}>{e.action}</td>
-              <td className="px-3 py-2">{e.patientId ? <Link className="text-lagoon-700 underline" href={`/audit?patient=${e.patientId}`}>{e.patientMrn ?? e.patientId.slice(0, 8)}</Link> : ""}</td>
+              <td className={`px-3 py-2 ${e.action.endsWith(".failed") || e.action.endsWith(".rate_limited") ? "font-bold text-danger-ink" : ""}`} title={e.action}>{eventWords(e.action)}</td>
+              <td className="px-3 py-2">{e.patientId ? <Link className="text-lagoon-700 underline" href={`/audit?patient=${encodeURIComponent(e.patientMrn ?? e.patientId)}`}>{e.patientMrn ?? e.patientId.slice(0, 8)}</Link> : ""}</td>
               <td className="px-3 py-2 font-mono">{e.ip ?? ""}</td>
-              <td className="max-w-md break-all px-3 py-2 font-mono text-xs text-ink-soft">{describe(e.detail)}</td>
+              <td className="max-w-md break-words px-3 py-2 text-xs text-ink-soft">{detailWords(e.detail)}</td>
             </tr>
           ))}
           {result.rows.length === 0 ? <tr><td colSpan={6} className="px-3 py-6 text-center text-ink-soft">No events match.</td></tr> : null}
