@@ -1,4 +1,5 @@
 export * from "./clock";
+export * from "./clock-text";
 export * from "./conventions";
 export * from "./arcs";
 export * from "./zones";

@@ -1,15 +1,15 @@
 "use client";
 // The inspector for the selected lesion. One schema (lesionFieldsSchema) for the form and the
 // route. Choices save as soon as they are made; typed fields save on leaving the field or Enter.
-import { useEffect, useRef, type ReactNode } from "react";
+import { useEffect, useRef } from "react";
 import { Controller, useForm, useWatch, type Control } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import type { z } from "zod";
 import { Caution } from "@/components/ui/caution";
 import { GRADE_ENCODING } from "@/components/canal-map";
 import { GRADE_LABEL, GRADES, HISTOLOGY_AS_GRADE, HISTOLOGY_LABEL } from "@/lib/domain/vocab";
-import { fromDisplayHours, toDisplayHours, type DisplayConvention } from "@/lib/geometry";
-import { numberingSuffix } from "@/components/visit/numbering";
+import type { DisplayConvention } from "@/lib/geometry";
+import { ClockField } from "./clock-field";
 import { lesionFieldsSchema, type LesionDto } from "@/lib/validation/lesions";
 import type { LesionPatch } from "./use-lesion-store";
 import { SaveLine } from "./save-line";
@@ -173,30 +173,5 @@ function NumberField({ label, error, ...input }: { label: string; error?: string
       <input type="number" step="0.5" inputMode="decimal" className="mt-1 block min-h-11 w-full rounded-md border border-rule-strong bg-panel px-2 text-base font-normal" {...input} />
       {error ? <span role="alert" className="text-danger-ink">{error}</span> : null}
     </label>
-  );
-}
-
-/** A clock field shown in the display convention and stored in the lithotomy frame. */
-function ClockField({ control, name, label, conv, onDone, error }: { control: Control<In, unknown, Out>; name: "clockStartH" | "clockEndH"; label: string; conv: DisplayConvention; onDone: () => void; error?: string }): ReactNode {
-  return (
-    <Controller control={control} name={name} render={({ field }) => {
-      const v = field.value as number;
-      // Rounded for display: turning 5.23 h by 6 h in floating point gives 11.230000000000002.
-      const shown = Number.isFinite(v) ? Math.round((toDisplayHours(v, conv) || 12) * 100) / 100 : "";
-      return (
-        <NumberField
-          label={`${label} (o'clock, ${numberingSuffix(conv)})`}
-          error={error}
-          min={0.5}
-          max={12}
-          value={shown}
-          onChange={(e) => {
-            const n = e.target.value === "" ? NaN : Number(e.target.value);
-            field.onChange(Number.isFinite(n) && n >= 0 && n <= 12 ? fromDisplayHours(n % 12, conv) : NaN);
-          }}
-          onBlur={() => { field.onBlur(); onDone(); }}
-        />
-      );
-    }} />
   );
 }
