@@ -48,7 +48,11 @@ describe("track labels", () => {
   it("the migration turns stored T labels into # labels with the same number", async () => {
     const { patientId } = await newVisit();
     await db.insert(lesionTracks).values([{ patientId, siteId, label: "T1" }, { patientId, siteId, label: "T12" }]);
-    await sql.unsafe(readFileSync(join(process.cwd(), "db/migrations/0013_track_labels_hash.sql"), "utf8"));
+    // The migration's own statement, narrowed to this patient: other test files running at the same
+    // time hold patients with both label forms, which the whole-table run would make collide.
+    const migration = readFileSync(join(process.cwd(), "db/migrations/0013_track_labels_hash.sql"), "utf8");
+    expect(migration).toContain('WHERE "label" ~');
+    await sql.unsafe(migration.replace('WHERE "label" ~', `WHERE "patient_id" = '${patientId}' AND "label" ~`));
     const rows = await db.select({ label: lesionTracks.label }).from(lesionTracks).where(eq(lesionTracks.patientId, patientId));
     expect(rows.map((r) => r.label).sort()).toEqual(["#1", "#12"]);
   });
