@@ -6,6 +6,7 @@ import { lockPatientStatusesOfBiopsy, lockPatientStatusesOfVisit } from "@/db/qu
 import { recordAudit } from "@/db/queries/audit-write";
 import type { SiteScope } from "@/db/queries/scope";
 import { AppError } from "@/lib/errors";
+import { arcMidpointH } from "@/lib/geometry/arcs";
 import type { CreateBiopsyInput, HistologyResultInput } from "@/lib/validation/biopsies";
 import { refreshTrackStatuses } from "./track-statuses";
 
@@ -19,7 +20,9 @@ export async function createBiopsy(scope: SiteScope, visitId: string, input: Cre
     if ("lesionId" in input) {
       const l = await lesionPlaceOnVisit(tx, input.lesionId, visit.id);
       if (!l) throw new AppError("invalid", undefined, { lesionId: ["That lesion is not on this visit."] });
-      place = { lesionId: l.id, clockH: l.clockStartH, distanceCm: (l.distanceStartCm + l.distanceEndCm) / 2 };
+      // The specimen is placed at the lesion's middle in both directions, where the map tag sits.
+      const clockH = arcMidpointH({ startH: l.clockStartH, endH: l.clockEndH });
+      place = { lesionId: l.id, clockH, distanceCm: (l.distanceStartCm + l.distanceEndCm) / 2 };
     } else {
       place = { lesionId: null, ...input };
     }

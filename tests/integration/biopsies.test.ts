@@ -29,6 +29,18 @@ describe("biopsies and histology", () => {
     expect(a.biopsy.specimenLabel).toBe("A");
     expect(b.biopsy.specimenLabel).toBe("B");
     expect(a.biopsy.lesionId).toBe(lesion.id);
+    // A specimen from a lesion sits at the lesion's middle for both clock and depth: 2→4 o'clock
+    // has its middle at 3 o'clock (30° per hour, geometry), 0.5–1.5 cm at 1 cm.
+    expect(a.biopsy.clockH).toBeCloseTo(3, 9);
+    expect(a.biopsy.distanceCm).toBeCloseTo(1, 9);
+  });
+
+  it("places a specimen from a lesion that crosses 12 o'clock at the lesion's middle, 12 o'clock", async () => {
+    // 11 → 1 o'clock runs clockwise through 12 (geometry); its middle is 12, stored as 0.
+    const { lesion } = await (await createLesion(req("POST", "/x", clinician, { clockStartH: 11, clockEndH: 1, distanceStartCm: 1, distanceEndCm: 2, grade: "lsil" }), ctx({ visitId }))).json();
+    const { biopsy } = await (await createBiopsy(req("POST", "/x", clinician, { lesionId: lesion.id }), ctx({ visitId }))).json();
+    expect(biopsy.clockH % 12).toBeCloseTo(0, 9);
+    expect(biopsy.distanceCm).toBeCloseTo(1.5, 9);
   });
 
   it("histology entered later re-grades the lesion for tracking (histology decides), even after signing", async () => {
