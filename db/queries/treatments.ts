@@ -40,6 +40,12 @@ export async function lesionIsOnVisit(tx: Tx, lesionId: string, visitId: string)
   return Boolean(l);
 }
 
+/** The lesion's clock extent when it belongs to the visit, else null. */
+export async function lesionArcOnVisit(tx: Tx, lesionId: string, visitId: string): Promise<{ startH: number; endH: number } | null> {
+  const [l] = await tx.select({ startH: lesions.clockStartH, endH: lesions.clockEndH }).from(lesions).where(and(eq(lesions.id, lesionId), eq(lesions.visitId, visitId))).limit(1);
+  return l ?? null;
+}
+
 export async function insertTreatment(tx: Tx, values: typeof treatments.$inferInsert): Promise<string> {
   const [row] = await tx.insert(treatments).values(values).returning({ id: treatments.id });
   return row!.id;

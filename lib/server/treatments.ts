@@ -1,13 +1,13 @@
 import "server-only";
 import { db, type Db, type Tx } from "@/db/client";
-import { deleteTreatmentRow, insertTreatment, lesionIsOnVisit, siteCautionFraction, stampVisitTreatedFraction, treatedArcsOfVisit, treatmentsOfVisit } from "@/db/queries/treatments";
+import { deleteTreatmentRow, insertTreatment, lesionArcOnVisit, siteCautionFraction, stampVisitTreatedFraction, treatedArcsOfVisit, treatmentsOfVisit } from "@/db/queries/treatments";
 import { loadVisit, lockDraftVisit } from "@/db/queries/visit-access";
 import { lockPatientStatusesOfVisit } from "@/db/queries/patient-lock";
 import { recordAudit } from "@/db/queries/audit-write";
 import type { SiteScope } from "@/db/queries/scope";
 import { AppError } from "@/lib/errors";
 import { assessExtent, DEFAULT_CAUTION_FRACTION } from "@/lib/dosing";
-import { gateExtent, type TreatmentInput } from "@/lib/validation/treatments";
+import { gateExtent, isTopical, type TreatmentInput } from "@/lib/validation/treatments";
 import { refreshTrackStatuses } from "./track-statuses";
 
 async function cautionFractionOf(run: Db | Tx, siteId: string): Promise<number> {
@@ -38,11 +38,15 @@ const EXTENT_REASON_FIELD = "extentOverrideReason";
 export async function addTreatment(scope: SiteScope, visitId: string, input: TreatmentInput, ip: string) {
   return db.transaction(async (tx) => {
     const [, v] = await Promise.all([lockPatientStatusesOfVisit(tx, scope, visitId), lockDraftVisit(tx, scope, visitId)]);
-    if (input.lesionId && !(await lesionIsOnVisit(tx, input.lesionId, v.id))) {
+    const lesionArc = input.lesionId ? await lesionArcOnVisit(tx, input.lesionId, v.id) : null;
+    if (input.lesionId && !lesionArc) {
       throw new AppError("invalid", undefined, { lesionId: ["Choose a lesion mapped at this visit."] });
     }
     const cautionFraction = await cautionFractionOf(tx, v.siteId);
-    const arcs = input.arcs.map((a) => ({ startH: a.startH, endH: a.endH }));
+    // A named lesion treated without arcs was treated over its mapped extent, so that extent
+    // is stored and counts toward the session's circumference check (a topical agent has no arc).
+    const given = input.arcs.map((a) => ({ startH: a.startH, endH: a.endH }));
+    const arcs = given.length === 0 && lesionArc && !isTopical(input.modality) ? [lesionArc] : given;
     const gate = gateExtent(await treatedArcsOfVisit(tx, v.id), arcs, cautionFraction);
     const reason = input.extentOverrideReason?.trim() || null;
     if (gate.needsReason && !reason) {
@@ -65,7 +69,7 @@ export async function addTreatment(scope: SiteScope, visitId: string, input: Tre
     await refreshTrackStatuses(tx, v.patientId, v.siteId);
     await recordAudit({
       userId: scope.userId, siteId: v.siteId, patientId: v.patientId, action: "treatment.create", entityType: "treatment", entityId: id, ip,
-      detail: { modality: input.modality, arcs: input.arcs, visitTreatedFraction: extent.fraction, cautionFraction, extentOverrideReason: gate.needsReason ? input.extentOverrideReason : undefined },
+      detail: { modality: input.modality, arcs, arcsFromLesion: given.length === 0 && arcs.length > 0, visitTreatedFraction: extent.fraction, cautionFraction, extentOverrideReason: gate.needsReason ? input.extentOverrideReason : undefined },
     }, tx);
     return { id, extent, overridden: gate.needsReason, cautionFraction };
   });
