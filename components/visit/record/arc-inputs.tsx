@@ -17,6 +17,12 @@ export function toStoredArcs(all: ArcDraft[], conv: DisplayConvention) {
   return drafts.map((d) => ({ startH: fromDisplayHours(Number(d.start), conv), endH: fromDisplayHours(Number(d.end), conv) }));
 }
 
+/** A stored arc as the form types it: display hours, 12 o'clock written 12 (the inverse of toStoredArcs). */
+export function toArcDraft(a: { startH: number; endH: number }, conv: DisplayConvention): ArcDraft {
+  const typed = (h: number) => { const d = Math.round(toDisplayHours(h, conv) * 100) / 100; return String(d === 0 || d === 12 ? 12 : d); };
+  return { start: typed(a.startH), end: typed(a.endH) };
+}
+
 /** "11 o'clock → 2 o'clock clockwise (anterior to left anterior)", in the viewer's convention. */
 export function describeArc(a: { startH: number; endH: number }, conv: DisplayConvention) {
   return `${formatClock(toDisplayHours(a.startH, conv))} → ${formatClock(toDisplayHours(a.endH, conv))} clockwise (${sectorName(a.startH)} to ${sectorName(a.endH)})`;

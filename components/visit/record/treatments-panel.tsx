@@ -8,14 +8,14 @@ import { MODALITIES, type Modality } from "@/lib/domain/vocab";
 import type { ExtentAssessment } from "@/lib/dosing";
 import type { DisplayConvention } from "@/lib/geometry";
 import { gateExtent, isTopical } from "@/lib/validation/treatments";
-import { ArcInputs, describeArc, toStoredArcs, type ArcDraft } from "./arc-inputs";
+import { ArcInputs, describeArc, toArcDraft, toStoredArcs, type ArcDraft } from "./arc-inputs";
 import { Field, FormError, inputClass, Section } from "./field";
 import { MODALITY_WORDS } from "@/lib/domain/labels";
 import { api } from "@/components/data/keys";
 
 interface TreatmentRow { id: string; lesionId: string | null; lesionLabel: string | null; modality: Modality; regimen: string | null; arcs: { startH: number; endH: number }[]; extentOverrideReason: string | null; note: string | null }
 interface TreatmentsDto { treatments: TreatmentRow[]; extent: ExtentAssessment; cautionFraction: number }
-interface LesionsDto { lesions: { id: string; label: string; grade: string }[] }
+interface LesionsDto { lesions: { id: string; label: string; grade: string; clockStartH: number; clockEndH: number }[] }
 
 /** Why the caution exists and who decides, said every time it shows. */
 export function ExtentWhy({ cautionFraction }: { cautionFraction: number }) {
@@ -42,6 +42,14 @@ export function TreatmentsPanel({ visitId, canEdit, conv }: { visitId: string; c
   const arcs = toStoredArcs(drafts, conv);
   // Preview only; the server recomputes the union of every treated arc of the visit.
   const preview = data && arcs?.length ? gateExtent(data.treatments.flatMap((t) => t.arcs), arcs, data.cautionFraction) : null;
+
+  // Choosing a lesion fills in its mapped extent; the clinician narrows it to what was actually
+  // treated (the treated area may be smaller than the lesion: common practice, no source).
+  function pickLesion(id: string) {
+    setLesionId(id);
+    const l = map?.lesions.find((x) => x.id === id);
+    if (l && drafts.every((d) => d.start === "" && d.end === "")) setDrafts([toArcDraft({ startH: l.clockStartH, endH: l.clockEndH }, conv)]);
+  }
 
   async function add(e: React.FormEvent) {
     e.preventDefault();
@@ -94,7 +102,7 @@ export function TreatmentsPanel({ visitId, canEdit, conv }: { visitId: string; c
             </select>
           </Field>
           <Field id="t-lesion" label="Lesion (optional)" error={fields.lesionId?.[0]}>
-            <select id="t-lesion" className={inputClass} value={lesionId} onChange={(e) => setLesionId(e.target.value)}>
+            <select id="t-lesion" className={inputClass} value={lesionId} onChange={(e) => pickLesion(e.target.value)}>
               <option value="">No single lesion: the arcs below</option>
               {map?.lesions.map((l) => <option key={l.id} value={l.id}>{l.label}</option>)}
             </select>
