@@ -1,5 +1,5 @@
 import "server-only";
-import { and, asc, eq } from "drizzle-orm";
+import { and, asc, eq, sql as dsql } from "drizzle-orm";
 import { type Db, type Tx } from "../client";
 import { lesions, sites, treatments } from "../schema";
 
@@ -12,6 +12,7 @@ const columns = {
   arcs: treatments.arcs,
   treatedFraction: treatments.treatedFraction,
   extentOverrideReason: treatments.extentOverrideReason,
+  cancerOverrideReason: treatments.cancerOverrideReason,
   note: treatments.note,
   createdAt: treatments.createdAt,
 };
@@ -44,6 +45,17 @@ export async function lesionIsOnVisit(tx: Tx, lesionId: string, visitId: string)
 export async function lesionArcOnVisit(tx: Tx, lesionId: string, visitId: string): Promise<{ startH: number; endH: number } | null> {
   const [l] = await tx.select({ startH: lesions.clockStartH, endH: lesions.clockEndH }).from(lesions).where(and(eq(lesions.id, lesionId), eq(lesions.visitId, visitId))).limit(1);
   return l ?? null;
+}
+
+/** The visit's lesions with their extent, impression grade and whether a biopsy of them shows carcinoma. */
+export async function lesionRisksOfVisit(tx: Tx, visitId: string) {
+  return tx
+    .select({
+      id: lesions.id, label: lesions.label, startH: lesions.clockStartH, endH: lesions.clockEndH, grade: lesions.grade,
+      carcinomaOnHistology: dsql<boolean>`exists(select 1 from biopsies b where b.lesion_id = "lesions"."id" and b.histology = 'scc')`,
+    })
+    .from(lesions)
+    .where(eq(lesions.visitId, visitId));
 }
 
 export async function insertTreatment(tx: Tx, values: typeof treatments.$inferInsert): Promise<string> {

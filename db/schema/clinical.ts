@@ -215,6 +215,8 @@ export const treatments = pgTable(
     /** The treated fraction of the circumference, recomputed by the server on every write. */
     treatedFraction: doublePrecision("treated_fraction").notNull().default(0),
     extentOverrideReason: text("extent_override_reason"),
+    /** Why a lesion suspected or proven to be cancer was treated; required for such a treatment. */
+    cancerOverrideReason: text("cancer_override_reason"),
     note: text("note"),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
   },

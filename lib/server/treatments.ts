@@ -1,13 +1,13 @@
 import "server-only";
 import { db, type Db, type Tx } from "@/db/client";
-import { deleteTreatmentRow, insertTreatment, lesionArcOnVisit, siteCautionFraction, stampVisitTreatedFraction, treatedArcsOfVisit, treatmentsOfVisit } from "@/db/queries/treatments";
+import { deleteTreatmentRow, insertTreatment, lesionArcOnVisit, lesionRisksOfVisit, siteCautionFraction, stampVisitTreatedFraction, treatedArcsOfVisit, treatmentsOfVisit } from "@/db/queries/treatments";
 import { loadVisit, lockDraftVisit } from "@/db/queries/visit-access";
 import { lockPatientStatusesOfVisit } from "@/db/queries/patient-lock";
 import { recordAudit } from "@/db/queries/audit-write";
 import type { SiteScope } from "@/db/queries/scope";
 import { AppError } from "@/lib/errors";
 import { assessExtent, DEFAULT_CAUTION_FRACTION } from "@/lib/dosing";
-import { gateExtent, isTopical, type TreatmentInput } from "@/lib/validation/treatments";
+import { cancerCautionMessage, cancerLesionsReached, gateExtent, isTopical, type TreatmentInput } from "@/lib/validation/treatments";
 import { refreshTrackStatuses } from "./track-statuses";
 
 async function cautionFractionOf(run: Db | Tx, siteId: string): Promise<number> {
@@ -49,10 +49,14 @@ export async function addTreatment(scope: SiteScope, visitId: string, input: Tre
     const arcs = given.length === 0 && lesionArc && !isTopical(input.modality) ? [lesionArc] : given;
     const gate = gateExtent(await treatedArcsOfVisit(tx, v.id), arcs, cautionFraction);
     const reason = input.extentOverrideReason?.trim() || null;
-    if (gate.needsReason && !reason) {
-      throw new AppError("invalid", gate.assessment.message, {
-        [EXTENT_REASON_FIELD]: [`${gate.assessment.message} To save it, give the reason for treating this much in one session.`],
-      });
+    const reached = cancerLesionsReached(await lesionRisksOfVisit(tx, v.id), input.lesionId, arcs, input.modality);
+    const cancerReason = reached.length ? input.cancerOverrideReason?.trim() || null : null;
+    // Both reasons are asked for at once, so the clinician answers one prompt, not two in turn.
+    const missing: Record<string, string[]> = {};
+    if (gate.needsReason && !reason) missing[EXTENT_REASON_FIELD] = [`${gate.assessment.message} To save it, give the reason for treating this much in one session.`];
+    if (reached.length && !cancerReason) missing.cancerOverrideReason = [`${cancerCautionMessage(reached)} To save it, give the reason for treating it.`];
+    if (Object.keys(missing).length) {
+      throw new AppError("invalid", reached.length && !cancerReason ? cancerCautionMessage(reached) : gate.assessment.message, missing);
     }
     const id = await insertTreatment(tx, {
       visitId: v.id,
@@ -63,13 +67,15 @@ export async function addTreatment(scope: SiteScope, visitId: string, input: Tre
       arcs,
       treatedFraction: gate.assessment.fraction,
       extentOverrideReason: gate.needsReason ? reason : null,
+      cancerOverrideReason: cancerReason,
       note: input.note || null,
     });
     const extent = await restampUnion(tx, v.id, cautionFraction);
     await refreshTrackStatuses(tx, v.patientId, v.siteId);
     await recordAudit({
       userId: scope.userId, siteId: v.siteId, patientId: v.patientId, action: "treatment.create", entityType: "treatment", entityId: id, ip,
-      detail: { modality: input.modality, arcs, arcsFromLesion: given.length === 0 && arcs.length > 0, visitTreatedFraction: extent.fraction, cautionFraction, extentOverrideReason: gate.needsReason ? input.extentOverrideReason : undefined },
+      detail: { modality: input.modality, arcs, arcsFromLesion: given.length === 0 && arcs.length > 0, visitTreatedFraction: extent.fraction, cautionFraction, extentOverrideReason: gate.needsReason ? input.extentOverrideReason : undefined,
+        cancerOverrideReason: cancerReason ?? undefined, cancerLesions: reached.length ? reached.map((l) => l.label) : undefined },
     }, tx);
     return { id, extent, overridden: gate.needsReason, cautionFraction };
   });

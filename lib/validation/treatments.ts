@@ -1,7 +1,8 @@
 import { z } from "zod";
 import { MODALITIES } from "@/lib/domain/vocab";
 import { assessDoses, assessExtent, dailyTotals, doseEntrySchema, type DoseAssessment, type DoseEntry, type ExtentAssessment } from "@/lib/dosing";
-import type { Arc } from "@/lib/geometry/arcs";
+import { overlapH, type Arc } from "@/lib/geometry/arcs";
+import type { Grade } from "@/lib/domain/vocab";
 
 // Treatment and local-anaesthetic forms, shared by the client and the routes, plus the two
 // gates the server applies before it stores an entry. Pure: the routes pass in what the
@@ -29,6 +30,7 @@ export const treatmentSchema = z
     regimen: z.string().trim().max(500, "Keep the regimen under 500 characters.").nullable().optional(),
     arcs: z.array(treatedArcSchema).max(12, "At most 12 arcs per treatment."),
     extentOverrideReason: reason("treating this much of the circumference").nullable().optional(),
+    cancerOverrideReason: reason("treating a lesion that may be cancer").nullable().optional(),
     note: z.string().trim().max(2000, "Keep the note under 2,000 characters.").nullable().optional(),
   })
   .refine((t) => !isTopical(t.modality) || (t.regimen ?? "").length > 0, { message: "Write the regimen for a topical agent (what, how often, how long).", path: ["regimen"] })
@@ -94,4 +96,25 @@ export interface ExtentGate {
 export function gateExtent(existingArcs: readonly Arc[], addedArcs: readonly Arc[], cautionFraction: number): ExtentGate {
   const assessment = assessExtent([...existingArcs, ...addedArcs], cautionFraction);
   return { assessment, needsReason: addedArcs.length > 0 && assessment.level === "caution" };
+}
+
+export interface LesionRisk { id: string; label: string; startH: number; endH: number; grade: Grade | null; carcinomaOnHistology: boolean }
+
+/**
+ * Lesions suspected or proven to be cancer that this treatment reaches: the named lesion, or any
+ * lesion whose clock extent a treated arc overlaps. A topical agent ablates nothing and is left out.
+ * Ablating a possible cancer destroys the tissue that diagnosis and staging need and can delay
+ * referral (common practice, no source), so the server wants a recorded reason for it.
+ */
+export function cancerLesionsReached(lesions: readonly LesionRisk[], lesionId: string | null | undefined, arcs: readonly Arc[], modality: string): LesionRisk[] {
+  if (isTopical(modality)) return [];
+  return lesions.filter((l) =>
+    (l.grade === "suspected_cancer" || l.carcinomaOnHistology) &&
+    (l.id === lesionId || arcs.some((a) => overlapH(a, { startH: l.startH, endH: l.endH }) > 0)));
+}
+
+/** The caution shown before such a treatment is stored, naming each lesion and why. */
+export function cancerCautionMessage(reached: readonly LesionRisk[]): string {
+  const each = reached.map((l) => `lesion ${l.label} ${l.carcinomaOnHistology ? "shows squamous cell carcinoma on histology" : "is graded suspected cancer"}`);
+  return `This treatment reaches ${each.join(" and ")}. Ablating a possible cancer can destroy the tissue needed for diagnosis and staging and delay referral; the usual course is histological confirmation and referral. Your local protocol and the treating clinician decide.`;
 }

@@ -5,13 +5,14 @@ import { TreatmentsPanel } from "./treatments-panel";
 
 // The network is faked (fetch is the DOM boundary); what is checked is what the form shows.
 const reply = (body: unknown) => Promise.resolve(new Response(JSON.stringify(body), { status: 200, headers: { "content-type": "application/json" } }));
-const LESION = { id: "l1", label: "L1", grade: "hsil", clockStartH: 11, clockEndH: 2 };
+const LESION = { id: "l1", label: "L1", grade: "hsil", clockStartH: 11, clockEndH: 2, histology: null };
+const SUSPECT = { id: "l2", label: "L2", grade: "suspected_cancer", clockStartH: 5, clockEndH: 7, histology: null };
 
 afterEach(() => vi.unstubAllGlobals());
 
 function renderPanel(conv: "lithotomy" | "prone_jackknife") {
   vi.stubGlobal("fetch", vi.fn((url: string) => url.endsWith("/lesions")
-    ? reply({ lesions: [LESION] })
+    ? reply({ lesions: [LESION, SUSPECT] })
     : reply({ treatments: [], extent: { fraction: 0, level: "ok", message: "" }, cautionFraction: 0.5 })));
   render(<SWRConfig value={{ provider: () => new Map(), dedupingInterval: 0 }}><TreatmentsPanel visitId="v1" canEdit conv={conv} /></SWRConfig>);
 }
@@ -32,5 +33,17 @@ describe("TreatmentsPanel: choosing a lesion fills in its arc", { timeout: 20_00
     fireEvent.change(screen.getByLabelText("Lesion (optional)"), { target: { value: "l1" } });
     await waitFor(() => expect((screen.getByLabelText("Arc 1 from (clock hour)") as HTMLInputElement).value).toBe("5"));
     expect((screen.getByLabelText("Arc 1 to (clock hour)") as HTMLInputElement).value).toBe("8");
+  });
+});
+
+describe("TreatmentsPanel: a lesion that may be cancer", { timeout: 20_000 }, () => {
+  it("shows a strong caution and asks for a reason before the treatment is saved", async () => {
+    // Ablating a possible cancer can destroy tissue needed for diagnosis (common practice, no source).
+    renderPanel("lithotomy");
+    await screen.findByRole("option", { name: "L2" });
+    expect(screen.queryByRole("alert")).toBeNull();
+    fireEvent.change(screen.getByLabelText("Lesion (optional)"), { target: { value: "l2" } });
+    expect((await screen.findByRole("alert")).textContent).toMatch(/L2 is graded suspected cancer/);
+    expect(screen.getByLabelText("Reason for treating a lesion that may be cancer")).toBeTruthy();
   });
 });

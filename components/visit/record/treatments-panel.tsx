@@ -4,18 +4,18 @@ import useSWR, { mutate } from "swr";
 import { ApiError, fetcher, sendJson } from "@/components/data/fetcher";
 import { Button } from "@/components/ui/button";
 import { Caution } from "@/components/ui/caution";
-import { MODALITIES, type Modality } from "@/lib/domain/vocab";
+import { MODALITIES, type Grade, type Histology, type Modality } from "@/lib/domain/vocab";
 import type { ExtentAssessment } from "@/lib/dosing";
 import type { DisplayConvention } from "@/lib/geometry";
-import { gateExtent, isTopical } from "@/lib/validation/treatments";
+import { cancerCautionMessage, cancerLesionsReached, gateExtent, isTopical } from "@/lib/validation/treatments";
 import { ArcInputs, describeArc, toArcDraft, toStoredArcs, type ArcDraft } from "./arc-inputs";
 import { Field, FormError, inputClass, Section } from "./field";
 import { MODALITY_WORDS } from "@/lib/domain/labels";
 import { api } from "@/components/data/keys";
 
-interface TreatmentRow { id: string; lesionId: string | null; lesionLabel: string | null; modality: Modality; regimen: string | null; arcs: { startH: number; endH: number }[]; extentOverrideReason: string | null; note: string | null }
+interface TreatmentRow { id: string; lesionId: string | null; lesionLabel: string | null; modality: Modality; regimen: string | null; arcs: { startH: number; endH: number }[]; extentOverrideReason: string | null; cancerOverrideReason: string | null; note: string | null }
 interface TreatmentsDto { treatments: TreatmentRow[]; extent: ExtentAssessment; cautionFraction: number }
-interface LesionsDto { lesions: { id: string; label: string; grade: string; clockStartH: number; clockEndH: number }[] }
+interface LesionsDto { lesions: { id: string; label: string; grade: Grade; clockStartH: number; clockEndH: number; histology: Histology | null }[] }
 
 /** Why the caution exists and who decides, said every time it shows. */
 export function ExtentWhy({ cautionFraction }: { cautionFraction: number }) {
@@ -34,6 +34,7 @@ export function TreatmentsPanel({ visitId, canEdit, conv }: { visitId: string; c
   const [regimen, setRegimen] = useState("");
   const [drafts, setDrafts] = useState<ArcDraft[]>([{ start: "", end: "" }]);
   const [reason, setReason] = useState("");
+  const [cancerReason, setCancerReason] = useState("");
   const [note, setNote] = useState("");
   const [fields, setFields] = useState<Record<string, string[]>>({});
   const [serverError, setServerError] = useState<string | null>(null);
@@ -51,12 +52,16 @@ export function TreatmentsPanel({ visitId, canEdit, conv }: { visitId: string; c
     if (l && drafts.every((d) => d.start === "" && d.end === "")) setDrafts([toArcDraft({ startH: l.clockStartH, endH: l.clockEndH }, conv)]);
   }
 
+  // Shown before saving; the server applies the same rule to what it holds.
+  const risks = (map?.lesions ?? []).map((l) => ({ id: l.id, label: l.label, startH: l.clockStartH, endH: l.clockEndH, grade: l.grade, carcinomaOnHistology: l.histology === "scc" }));
+  const cancerReached = cancerLesionsReached(risks, lesionId || null, arcs ?? [], modality);
+
   async function add(e: React.FormEvent) {
     e.preventDefault();
     setBusy(true); setFields({}); setServerError(null);
     try {
-      await sendJson("POST", key, { modality, lesionId: lesionId || null, regimen: regimen || null, arcs: arcs ?? [], extentOverrideReason: reason.trim() || null, note: note || null });
-      setDrafts([{ start: "", end: "" }]); setReason(""); setNote(""); setRegimen(""); setLesionId("");
+      await sendJson("POST", key, { modality, lesionId: lesionId || null, regimen: regimen || null, arcs: arcs ?? [], extentOverrideReason: reason.trim() || null, cancerOverrideReason: cancerReason.trim() || null, note: note || null });
+      setDrafts([{ start: "", end: "" }]); setReason(""); setCancerReason(""); setNote(""); setRegimen(""); setLesionId("");
       await Promise.all([mutate(key), mutate(api.visitPart(visitId, "lesions"))]);
     } catch (err) {
       if (err instanceof ApiError) { setFields(err.fields ?? {}); setServerError(err.fields ? null : err.message); }
@@ -87,6 +92,7 @@ export function TreatmentsPanel({ visitId, canEdit, conv }: { visitId: string; c
                 {t.regimen ? <p className="text-sm">Regimen: {t.regimen}</p> : null}
                 {t.arcs.map((a, i) => <p key={i} className="text-sm">{describeArc(a, conv)}</p>)}
                 {t.extentOverrideReason ? <p className="text-sm">△ Saved past the caution level, recorded reason: {t.extentOverrideReason}</p> : null}
+                {t.cancerOverrideReason ? <p className="text-sm">⚠ Treated although it may be cancer, recorded reason: {t.cancerOverrideReason}</p> : null}
                 {t.note ? <p className="text-sm text-ink-soft">{t.note}</p> : null}
               </div>
               {canEdit ? <Button variant="ghost" onClick={() => remove(t.id)} aria-label={`Remove ${MODALITY_WORDS[t.modality]} treatment`}>Remove</Button> : null}
@@ -119,6 +125,14 @@ export function TreatmentsPanel({ visitId, canEdit, conv }: { visitId: string; c
               <Caution title="This reaches the caution level for one session">{preview?.assessment.message} <ExtentWhy cautionFraction={data!.cautionFraction} /> To save it, give the reason; it is kept with the record.</Caution>
               <Field id="t-reason" label="Reason for treating this much in one session" error={fields.extentOverrideReason?.[0]}>
                 <input id="t-reason" className={inputClass} value={reason} onChange={(e) => setReason(e.target.value)} />
+              </Field>
+            </div>
+          ) : null}
+          {cancerReached.length || fields.cancerOverrideReason ? (
+            <div className="flex flex-col gap-2 sm:col-span-2">
+              <Caution tone="danger" title="This lesion may be cancer">{cancerReached.length ? cancerCautionMessage(cancerReached) : fields.cancerOverrideReason?.[0]} To save the treatment, give the reason; it is kept with the record.</Caution>
+              <Field id="t-cancer-reason" label="Reason for treating a lesion that may be cancer" error={fields.cancerOverrideReason?.[0]}>
+                <input id="t-cancer-reason" className={inputClass} value={cancerReason} onChange={(e) => setCancerReason(e.target.value)} />
               </Field>
             </div>
           ) : null}
