@@ -1,5 +1,6 @@
-// The route × role matrix, generated from the route files on disk (tests/support/route-catalog):
-// every handler carries a guard marker; without a session it answers 401, to a role it does not
+// The route × role matrix, generated from one table of who may do what (tests/support/access-table)
+// and the route files on disk (tests/support/route-catalog): every handler carries a guard marker
+// and appears in the table with the roles it declares; without a session it answers 401, to a role it does not
 // list 403, to a listed role of another site addressing site A's record 404 (a record of another
 // site is answered as if it did not exist: DEVELOPERS.md, "One guard, one error type"), and to
 // the right role of site A it gets through. OWASP ASVS 4.0.3 V4.1.3 (least privilege, deny by
@@ -10,6 +11,7 @@ import { ORIGIN, ctx, type Actor } from "../fixtures/factory";
 import { fillPath, loadRoutes, MUTATING_METHODS, type RouteEntry } from "../support/route-catalog";
 import { makeRecords, makeWorld, paramsFor, type World } from "../support/fixture-world";
 import { PUBLIC_ROUTES, SPECS } from "../support/route-requests";
+import { ACCESS } from "../support/access-table";
 import { changedTables, tableChecksums } from "../support/db-checksum";
 
 let routes: RouteEntry[];
@@ -54,8 +56,14 @@ async function call(r: RouteEntry, who: Actor | null, world: World = w) {
 }
 
 const guarded = () => routes.filter((r) => r.handler.dentateRoles !== "public");
-// An unmarked handler is treated as allowing no role, so every check below reports it too.
-const rolesOf = (r: RouteEntry): readonly string[] | "any" => (r.handler.dentateRoles as readonly string[] | "any" | undefined) ?? [];
+// Expectations come from the access table; a route missing from it is expected to allow no role,
+// so every check below reports it too (besides the table check).
+const rolesOf = (r: RouteEntry): readonly string[] | "any" => {
+  const a = ACCESS[r.key];
+  return a === undefined || a === "public" ? [] : a;
+};
+const sameRoles = (a: unknown, b: unknown) =>
+  a === b || (Array.isArray(a) && Array.isArray(b) && a.length === b.length && [...a].sort().join() === [...b].sort().join());
 
 describe("route × role matrix (generated from app/api/**/route.ts)", () => {
   it("finds the route files and every handler carries a guard marker", () => {
@@ -69,6 +77,11 @@ describe("route × role matrix (generated from app/api/**/route.ts)", () => {
         problems.push(`${r.key}: roles must be a non-empty list of known roles`);
       if (MUTATING_METHODS.has(r.method) && roles !== "public" && !SPECS[r.key]?.body) problems.push(`${r.key}: no minimal request in tests/support/route-requests.ts`);
     }
+    for (const r of routes) {
+      if (!(r.key in ACCESS)) problems.push(`${r.key}: missing from tests/support/access-table.ts (say who may call it)`);
+      else if (!sameRoles(ACCESS[r.key], r.handler.dentateRoles)) problems.push(`${r.key}: declares ${JSON.stringify(r.handler.dentateRoles)} but the access table says ${JSON.stringify(ACCESS[r.key])}`);
+    }
+    for (const key of Object.keys(ACCESS)) if (!routes.some((r) => r.key === key)) problems.push(`${key}: in the access table but no such route`);
     for (const key of PUBLIC_ROUTES) if (!routes.some((r) => r.key === key && r.handler.dentateRoles === "public")) problems.push(`${key}: expected public route is missing or no longer public`);
     expect(problems).toEqual([]);
   });
@@ -112,6 +125,19 @@ describe("route × role matrix (generated from app/api/**/route.ts)", () => {
       }
     }
     expect(failures).toEqual([]);
+  });
+
+  it("refuses the research nurse every identified visit and patient read (403)", async () => {
+    // The nurse's role is de-identified study data; a visit's record carries exact dates, the
+    // examiner's name, free text and the patient id.
+    const reads = guarded().filter((r) => r.method === "GET" && /^\/api\/(visits|patients|reviews|biopsies|attachments)\b/.test(r.pattern));
+    expect(reads.map((r) => r.key)).toContain("GET /api/visits/[visitId]/lesions");
+    const opened: string[] = [];
+    for (const r of reads) {
+      const res = await call(r, w.a.research_nurse);
+      if (res.status !== 403) opened.push(`${r.key}: ${res.status}`);
+    }
+    expect(opened).toEqual([]);
   });
 
   it("lets the first listed role of site A through on mutations (fresh records for each)", async () => {

@@ -5,6 +5,7 @@
 import { randomUUID } from "node:crypto";
 import { patientReference } from "@/db/queries/research/enrolment";
 import type { World } from "./fixture-world";
+import { ACCESS } from "./access-table";
 
 export interface RequestSpec {
   /** Parameter values that differ from paramsFor() (e.g. a signed visit). */
@@ -91,8 +92,5 @@ export const SPECS: Record<string, RequestSpec> = {
   "POST /api/visits/[visitId]/treatments": { body: () => ({ modality: "electrocautery", arcs: [{ startH: 7, endH: 8 }] }) },
 };
 
-/** The public routes expected to answer without a session. A new one must be added here on purpose. */
-export const PUBLIC_ROUTES = new Set([
-  // The benchmark floor: constant JSON, no session, no database (app/api/ping/route.ts).
-  "GET /api/ping",
-  "POST /api/auth/accept-invite", "POST /api/auth/forgot-password", "POST /api/auth/reset-password"]);
+/** The public routes expected to answer without a session: those the access table marks "public". */
+export const PUBLIC_ROUTES = new Set(Object.keys(ACCESS).filter((key) => ACCESS[key] === "public"));

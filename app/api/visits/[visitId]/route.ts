@@ -1,3 +1,4 @@
+import { CLINICAL_ROLES } from "@/lib/auth/page-guard";
 import { readVisit, updateExamDetails } from "@/lib/server/visit-record";
 import { scopeOf } from "@/lib/auth/guard";
 import { idParam, readJson, route } from "@/lib/http/route";
@@ -5,7 +6,7 @@ import { examDetailsSchema, visitPermissions } from "@/lib/validation/visit-reco
 
 type P = { visitId: string };
 
-export const GET = route<P>({ roles: ["clinician", "reviewer", "research_nurse", "admin"] }, async ({ user, params, ip }) => {
+export const GET = route<P>({ roles: CLINICAL_ROLES }, async ({ user, params, ip }) => {
   const visit = await readVisit(scopeOf(user), idParam(params.visitId), ip);
   return { visit, permissions: visitPermissions(user, visit) };
 });

@@ -1,3 +1,4 @@
+import { CLINICAL_ROLES } from "@/lib/auth/page-guard";
 import { addAddendum, readAddenda } from "@/lib/server/signing";
 import { scopeOf } from "@/lib/auth/guard";
 import { idParam, json, readJson, route } from "@/lib/http/route";
@@ -5,7 +6,7 @@ import { addendumSchema } from "@/lib/validation/visit-record";
 
 type P = { visitId: string };
 
-export const GET = route<P>({ roles: ["clinician", "reviewer", "research_nurse", "admin"] }, async ({ user, params, ip }) => {
+export const GET = route<P>({ roles: CLINICAL_ROLES }, async ({ user, params, ip }) => {
   return { addenda: await readAddenda(scopeOf(user), idParam(params.visitId), ip) };
 });
 

@@ -1,3 +1,4 @@
+import { CLINICAL_ROLES } from "@/lib/auth/page-guard";
 import { addDose, listDoses } from "@/lib/server/anaesthetic";
 import { scopeOf } from "@/lib/auth/guard";
 import { idParam, json, readJson, route } from "@/lib/http/route";
@@ -5,7 +6,7 @@ import { anaestheticSchema } from "@/lib/validation/treatments";
 
 type P = { visitId: string };
 
-export const GET = route<P>({ roles: ["clinician", "reviewer", "research_nurse", "admin"] }, async ({ user, params, ip }) =>
+export const GET = route<P>({ roles: CLINICAL_ROLES }, async ({ user, params, ip }) =>
   listDoses(scopeOf(user), idParam(params.visitId), ip),
 );
 

@@ -1,3 +1,4 @@
+import { CLINICAL_ROLES } from "@/lib/auth/page-guard";
 import { addComplication, listComplications } from "@/lib/server/complications";
 import { scopeOf } from "@/lib/auth/guard";
 import { idParam, json, readJson, route } from "@/lib/http/route";
@@ -5,7 +6,7 @@ import { complicationSchema } from "@/lib/validation/visit-record";
 
 type P = { visitId: string };
 
-export const GET = route<P>({ roles: ["clinician", "reviewer", "research_nurse", "admin"] }, async ({ user, params, ip }) => ({
+export const GET = route<P>({ roles: CLINICAL_ROLES }, async ({ user, params, ip }) => ({
   complications: await listComplications(scopeOf(user), idParam(params.visitId), ip),
 }));
 

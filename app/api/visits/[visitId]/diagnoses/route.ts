@@ -1,3 +1,4 @@
+import { CLINICAL_ROLES } from "@/lib/auth/page-guard";
 import { confirmDiagnosis, getDiagnoses, unconfirmDiagnosis } from "@/lib/server/diagnoses";
 import { scopeOf } from "@/lib/auth/guard";
 import { idParam, json, readJson, readQuery, route } from "@/lib/http/route";
@@ -5,7 +6,7 @@ import { confirmDiagnosisSchema, diagnosisQuery } from "@/lib/validation/visit-r
 
 type P = { visitId: string };
 
-export const GET = route<P>({ roles: ["clinician", "reviewer", "research_nurse", "admin"] }, async ({ user, params, ip }) =>
+export const GET = route<P>({ roles: CLINICAL_ROLES }, async ({ user, params, ip }) =>
   getDiagnoses(scopeOf(user), idParam(params.visitId), ip),
 );
 

@@ -1,3 +1,4 @@
+import { CLINICAL_ROLES } from "@/lib/auth/page-guard";
 import { listLesionsForVisit } from "@/db/queries/lesions";
 import { createLesion } from "@/lib/server/lesions";
 import { scopeOf } from "@/lib/auth/guard";
@@ -6,7 +7,7 @@ import { createLesionSchema } from "@/lib/validation/lesions";
 
 type P = { visitId: string };
 
-export const GET = route<P>({ roles: ["clinician", "reviewer", "research_nurse", "admin"] }, async ({ user, params, ip }) => {
+export const GET = route<P>({ roles: CLINICAL_ROLES }, async ({ user, params, ip }) => {
   // The read is audited by the statement that reads the visit.
   return listLesionsForVisit(scopeOf(user), idParam(params.visitId), { userId: user.id, action: "visit.map.read", entityType: "visit", ip });
 });

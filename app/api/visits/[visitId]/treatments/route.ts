@@ -1,3 +1,4 @@
+import { CLINICAL_ROLES } from "@/lib/auth/page-guard";
 import { addTreatment, listTreatments } from "@/lib/server/treatments";
 import { scopeOf } from "@/lib/auth/guard";
 import { idParam, json, readJson, route } from "@/lib/http/route";
@@ -5,7 +6,7 @@ import { treatmentSchema } from "@/lib/validation/treatments";
 
 type P = { visitId: string };
 
-export const GET = route<P>({ roles: ["clinician", "reviewer", "research_nurse", "admin"] }, async ({ user, params, ip }) =>
+export const GET = route<P>({ roles: CLINICAL_ROLES }, async ({ user, params, ip }) =>
   listTreatments(scopeOf(user), idParam(params.visitId), ip),
 );
 
