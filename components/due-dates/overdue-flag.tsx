@@ -3,7 +3,8 @@
 import type { PatientDue } from "@/lib/due-dates/patient-due";
 import { OverrideForm, type OverrideAction } from "./override-form";
 
-export function OverdueBadge({ overdueDays }: { overdueDays: number }) {
+export function OverdueBadge({ overdueDays, dateProblem }: { overdueDays: number; dateProblem?: boolean }) {
+  if (dateProblem) return <span className="inline-flex items-center gap-1 rounded border-2 border-danger-rule bg-danger-bg px-2 py-0.5 text-xs font-bold text-danger-ink">⚑ Check the visit date</span>;
   if (overdueDays <= 0) return <span className="inline-flex items-center gap-1 rounded border border-rule-strong px-2 py-0.5 text-xs font-semibold text-ink-soft">◷ Due soon</span>;
   return (
     <span className="inline-flex items-center gap-1 rounded border-2 border-danger-rule bg-danger-bg px-2 py-0.5 text-xs font-bold text-danger-ink">
@@ -17,6 +18,14 @@ export function FollowupBanner({ patientId, due, overrideAction }: { patientId: 
     return (
       <section aria-label="Follow-up" className="rounded-md border border-rule bg-panel px-4 py-3 text-sm text-ink-soft">
         No visit yet: the next visit date appears after the first examination.
+      </section>
+    );
+  }
+  if (due.dateProblem) {
+    return (
+      <section aria-label="Follow-up" role="alert" className="rounded-md border-l-4 border-danger-rule bg-danger-bg px-4 py-3 text-danger-ink">
+        <p className="font-bold">⚑ No next visit date: a stored visit date ({due.lastVisitDate}) cannot be worked with.</p>
+        <p className="mt-1 text-sm">Correct the visit date; until then no reminder is sent for this patient.</p>
       </section>
     );
   }

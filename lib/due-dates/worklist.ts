@@ -18,6 +18,8 @@ export interface WorklistRow {
   givenName: string;
   clinicianName: string | null;
   siteName: string;
+  /** A stored date could not be worked with: always listed (flagged) so someone corrects it. */
+  dateProblem?: boolean;
 }
 
 export interface WorklistFilters {
@@ -39,7 +41,7 @@ const COMPARE: Record<WorklistSort, (a: WorklistRow, b: WorklistRow) => number> 
 
 export function selectWorklist<R extends WorklistRow>(rows: R[], f: WorklistFilters, today: string) {
   const horizon = dayNumber(today) + DUE_SOON_DAYS;
-  const kept = rows.filter((r) => (f.minOverdueDays === undefined ? dayNumber(r.dueDate) <= horizon : r.overdueDays >= Math.max(1, f.minOverdueDays)));
+  const kept = rows.filter((r) => r.dateProblem || (f.minOverdueDays === undefined ? dayNumber(r.dueDate) <= horizon : r.overdueDays >= Math.max(1, f.minOverdueDays)));
   const cmp = COMPARE[f.sort ?? "due"];
   const sign = f.dir === "desc" ? -1 : 1;
   kept.sort((a, b) => sign * cmp(a, b) || a.dueDate.localeCompare(b.dueDate) || a.patientId.localeCompare(b.patientId));

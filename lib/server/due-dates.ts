@@ -33,6 +33,22 @@ export async function computeDue(filter: DueFilter, today = todayIso()): Promise
   const out: PatientDue[] = [];
   for (const v of d.latest) {
     const p = byPerson.get(v.patientId)!;
+    const person = {
+      patientId: p.patientId, siteId: p.siteId, siteName: p.siteName, mrn: p.mrn, familyName: p.familyName, givenName: p.givenName,
+      clinicianId: p.clinicianId, clinicianName: p.clinicianName, consentEmail: p.consentEmail, contactEmail: p.contactEmail,
+    };
+    try {
+      const due = dueOf(v, p);
+      out.push({ ...person, ...due, lastVisitDate: v.visitDate, overdueDays: overdueDays(due.dueDate, today) });
+    } catch (err) {
+      // One bad stored date (lib/dates throws RangeError) flags its row instead of failing the list.
+      if (!(err instanceof RangeError)) throw err;
+      out.push({ ...person, dueDate: v.visitDate, ruleKey: "clinician_override", reason: "A stored date cannot be worked with; correct the visit date.", lastVisitDate: v.visitDate, overdueDays: 0, dateProblem: true });
+    }
+  }
+  return out;
+
+  function dueOf(v: (typeof d.latest)[number], p: (typeof d.people)[number]) {
     const findings = summariseLatestFindings({
       visitDate: v.visitDate,
       cytology: v.cytology,
@@ -46,13 +62,8 @@ export async function computeDue(filter: DueFilter, today = todayIso()): Promise
       siteRules: parseRules(p.siteRules),
       clinicianOverride: p.override && p.overrideReason ? { date: p.override, reason: p.overrideReason } : undefined,
     });
-    out.push({
-      patientId: p.patientId, siteId: p.siteId, siteName: p.siteName, mrn: p.mrn, familyName: p.familyName, givenName: p.givenName,
-      clinicianId: p.clinicianId, clinicianName: p.clinicianName, consentEmail: p.consentEmail, contactEmail: p.contactEmail,
-      ...due, lastVisitDate: v.visitDate, overdueDays: overdueDays(due.dueDate, today),
-    });
+    return due;
   }
-  return out;
 }
 
 /** One patient's due date (null when there is no visit yet). Audited by the caller's page. */

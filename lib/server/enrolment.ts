@@ -1,5 +1,5 @@
 import "server-only";
-import { findCandidate, insertEnrolment, subjectIdTaken } from "@/db/queries/research/enrolment";
+import { findCandidate, insertEnrolment, subjectIdIsSiteMrn, subjectIdTaken } from "@/db/queries/research/enrolment";
 import { getEnrolment, getStudy, withdrawEnrolment } from "@/db/queries/research/studies";
 import { recordAudit } from "@/db/queries/audit-write";
 import type { SiteScope } from "@/db/queries/scope";
@@ -14,6 +14,10 @@ export async function enrolPatient(scope: SiteScope, studyId: string, input: Enr
   if (input.consentDate > isoDate(new Date())) throw new AppError("invalid", undefined, { consentDate: ["Consent cannot be dated in the future."] });
   const patientId = await findCandidate(scope, studyId, input.siteId, input.candidateRef);
   if (!patientId) throw new AppError("invalid", undefined, { candidateRef: ["This patient is not available for enrolment (no research consent, or already enrolled)."] });
+  // A study ID travels into de-identified exports: an MRN typed there would re-identify the subject.
+  if (await subjectIdIsSiteMrn(input.siteId, input.studySubjectId)) {
+    throw new AppError("invalid", undefined, { studySubjectId: ["This is a medical record number at this site. Use the study's own subject ID."] });
+  }
   if (await subjectIdTaken(studyId, input.studySubjectId)) {
     throw new AppError("conflict", "This study ID is already in use.", { studySubjectId: ["This study ID is already in use in this study."] });
   }

@@ -19,7 +19,7 @@ export interface PatientListOptions {
 
 export async function listPatientOverview(scope: SiteScope, o: PatientListOptions, today = todayIso()) {
   let orderIds: string[] | undefined;
-  let dueById: Map<string, { dueDate: string; overdueDays: number }> | undefined;
+  let dueById: Map<string, { dueDate: string; overdueDays: number; dateProblem?: boolean }> | undefined;
   if (o.sort === "nextDue") {
     const all = await computeDue({ scope }, today);
     all.sort((a, b) => a.dueDate.localeCompare(b.dueDate) || a.patientId.localeCompare(b.patientId));
@@ -37,7 +37,7 @@ export async function listPatientOverview(scope: SiteScope, o: PatientListOption
     ...list,
     rows: list.rows.map((r) => {
       const d = r.status === "active" ? due.get(r.id) : undefined;
-      return { ...r, nextDue: d?.dueDate ?? null, overdueDays: d?.overdueDays ?? 0 };
+      return { ...r, nextDue: d?.dateProblem ? null : d?.dueDate ?? null, overdueDays: d?.overdueDays ?? 0, dateProblem: d?.dateProblem ?? false };
     }),
   };
 }

@@ -7,6 +7,8 @@ import { recordAudit } from "@/db/queries/audit-write";
 import type { SiteScope } from "@/db/queries/scope";
 import { AppError } from "@/lib/errors";
 import type { ExamDetailsInput } from "@/lib/validation/visit-record";
+import { careDayProblem } from "@/lib/validation/dates";
+import { birthDateOfVisitPatient } from "@/db/queries/visits";
 import { refreshTrackStatuses } from "./track-statuses";
 
 /** The visit record, the read audited. */
@@ -44,6 +46,15 @@ export async function updateExamDetails(scope: SiteScope, visitId: string, input
     // A save whose values all equal the stored ones changes nothing: no new version, no audit row,
     // no status work; the record is answered as it is.
     if (unchangedExam(fields, v)) return readVisitRecord(tx, scope, v.id);
+    // The schema bounds the days by today; the patient's birth is known only here.
+    const birthDate = await birthDateOfVisitPatient(tx, v.id);
+    const fieldProblems: Record<string, string[]> = {};
+    for (const key of ["visitDate", "examStartedAt", "examEndedAt"] as const) {
+      const value = fields[key];
+      const problem = value ? careDayProblem(key === "visitDate" ? value : new Date(value).toISOString(), { birthDate }) : null;
+      if (problem) fieldProblems[key] = [problem];
+    }
+    if (Object.keys(fieldProblems).length) throw new AppError("invalid", undefined, fieldProblems);
     const saved = { version: version + 1 };
     // Sent together, in the order they are started here on the transaction's one connection: the
     // update, then (seeing it) the audit and the record as saved.

@@ -1,23 +1,12 @@
 import { z } from "zod";
+import { careDateSchema, careDateTimeSchema } from "./dates";
 import { ADEQUACY, COMPLICATION_KINDS, CYTOLOGY, HPV_RESULTS, POSITIONS, SEVERITIES } from "@/lib/domain/vocab";
 
 // One schema per form of the visit record, shared by the client forms and the routes.
 // Unknown keys are stripped (zod's default), so a client can never smuggle in a computed field.
 
-// Date.parse("2026-02-30") is a number (it rolls over to March 2nd) but PostgreSQL refuses the
-// day: check that the day exists by a round trip through the UTC calendar.
-const isRealDay = (s: string) => {
-  const [y, m, d] = s.split("-").map(Number) as [number, number, number];
-  const t = new Date(Date.UTC(y, m - 1, d));
-  return y >= 1 && t.getUTCFullYear() === y && t.getUTCMonth() === m - 1 && t.getUTCDate() === d;
-};
-
-const isoDate = z
-  .string({ message: "Enter the visit date." })
-  .regex(/^\d{4}-\d{2}-\d{2}$/, "Use a date like 2026-03-14.")
-  .refine(isRealDay, "Not a real date.");
-
-const isoDateTime = z.iso.datetime({ offset: true, message: "Enter a time of day." });
+const isoDate = careDateSchema("Enter the visit date.");
+const isoDateTime = careDateTimeSchema("Enter a time of day.");
 
 const optionalText = (max: number, what: string) =>
   z.string().trim().max(max, `Keep the ${what} under ${max.toLocaleString("en")} characters.`).nullable().optional();

@@ -39,6 +39,19 @@ describe("enrolment", () => {
     expect(refs).not.toContain(patientReference(refusing));
   });
 
+  it("refuses a study subject ID that is an MRN of the site, apart from case and hyphens (400, nothing written)", async () => {
+    // A study ID travels into de-identified exports; an MRN there re-identifies the subject
+    // (HIPAA Safe Harbor, 45 CFR 164.514(b)(2)(i)(H): medical record numbers are identifiers).
+    const other = await makePatient(siteA, { consentResearch: false, mrn: `MRN-${siteA.slice(0, 4)}77` });
+    for (const studySubjectId of [other.mrn, other.mrn.toLowerCase().replace(/-/g, "")]) {
+      const body = { candidateRef: patientReference(consenting.id), siteId: siteA, studySubjectId, consentDate: "2025-02-01" };
+      const res = await enrol(req("POST", path(), nurse, body), ctx({ studyId }));
+      expect(res.status).toBe(400);
+      expect(Object.keys((await res.json()).error.fields)).toEqual(["studySubjectId"]);
+    }
+    expect(await db.select().from(s.enrolments).where(eq(s.enrolments.patientId, consenting.id))).toEqual([]);
+  });
+
   it("enrols by reference, refuses a taken study ID and a patient without consent", async () => {
     const body = { candidateRef: patientReference(consenting.id), siteId: siteA, studySubjectId: "ENR-001", consentDate: "2025-02-01" };
     expect((await enrol(req("POST", path(), clinician, body), ctx({ studyId }))).status).toBe(403);

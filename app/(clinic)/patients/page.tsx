@@ -79,7 +79,7 @@ export default async function PatientsPage({ searchParams }: { searchParams: Pro
               <td className="px-3 py-2 tabular-nums">{p.mrn}</td>
               <td className="px-3 py-2 tabular-nums">{p.lastVisit ?? <span className="text-ink-soft">none yet</span>}</td>
               <td className="px-3 py-2 tabular-nums">
-                {p.nextDue ? <>{p.nextDue}{p.overdueDays > 0 ? <span className="ml-2 font-semibold text-danger-ink">{p.overdueDays} d overdue</span> : null}</> : <span className="text-ink-soft">—</span>}
+                {p.nextDue ? <>{p.nextDue}{p.overdueDays > 0 ? <span className="ml-2 font-semibold text-danger-ink">{p.overdueDays} d overdue</span> : null}</> : p.dateProblem ? <span className="font-semibold text-danger-ink">⚑ Check the visit date</span> : <span className="text-ink-soft">—</span>}
               </td>
               <td className="px-3 py-2">{p.grade ? GRADE_LABEL[p.grade] : <span className="text-ink-soft">—</span>}</td>
               <td className="px-3 py-2 tabular-nums">{p.disagreements > 0 ? <span className="font-semibold text-caution-ink">{p.disagreements}</span> : <span className="text-ink-soft">0</span>}</td>

@@ -93,9 +93,9 @@ export default async function WorklistPage({ searchParams }: { searchParams: Pro
             <tr key={r.patientId} className="border-b border-rule last:border-0 hover:bg-paper">
               <td className="px-3 py-2"><Link className="font-semibold text-lagoon-700 underline-offset-2 hover:underline" href={`/patients/${r.patientId}`}>{r.familyName}, {r.givenName}</Link></td>
               <td className="px-3 py-2 tabular-nums">{r.mrn}</td>
-              <td className="px-3 py-2 tabular-nums"><span className="mr-2">{r.dueDate}</span><OverdueBadge overdueDays={r.overdueDays} /></td>
+              <td className="px-3 py-2 tabular-nums"><span className="mr-2">{r.dueDate}</span><OverdueBadge overdueDays={r.overdueDays} dateProblem={r.dateProblem} /></td>
               <td className="px-3 py-2 tabular-nums">{r.lastVisitDate}</td>
-              <td className="px-3 py-2 text-sm">{r.ruleKey === "clinician_override" ? <span><strong>Clinician&apos;s date:</strong> {r.reason}</span> : r.reason}</td>
+              <td className="px-3 py-2 text-sm">{r.ruleKey === "clinician_override" && !r.dateProblem ? <span><strong>Clinician&apos;s date:</strong> {r.reason}</span> : r.reason}</td>
               <td className="px-3 py-2">{r.clinicianName ?? <span className="text-ink-soft">Not set</span>}</td>
               {sites.length > 1 ? <td className="px-3 py-2">{r.siteName}</td> : null}
             </tr>

@@ -57,6 +57,14 @@ export async function subjectIdTaken(studyId: string, studySubjectId: string): P
   return rows.length > 0;
 }
 
+/** Whether the value is the MRN of a patient of the site, apart from case, spaces and punctuation. */
+export async function subjectIdIsSiteMrn(siteId: string, studySubjectId: string): Promise<boolean> {
+  const rows = await db.execute(
+    dsql`SELECT 1 FROM patients WHERE site_id = ${siteId} AND regexp_replace(lower(mrn), '[^a-z0-9]', '', 'g') = regexp_replace(lower(${studySubjectId}), '[^a-z0-9]', '', 'g') LIMIT 1`,
+  );
+  return rows.length > 0;
+}
+
 export async function insertEnrolment(values: { studyId: string; patientId: string; siteId: string; studySubjectId: string; consentDate: string }) {
   const [row] = await db.insert(enrolments).values(values).returning({ id: enrolments.id });
   return row!.id;
