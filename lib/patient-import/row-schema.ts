@@ -1,5 +1,6 @@
 // The checks one imported patient passes: the registration form's rules.
 import { z } from "zod";
+import { isSafeText } from "@/lib/validation/text";
 import { HIV_STATUS, RISK_GROUPS, SEX_AT_BIRTH } from "@/lib/domain/vocab";
 
 const isRealDay = (s: string) => {
@@ -9,7 +10,7 @@ const isRealDay = (s: string) => {
 };
 
 // Control characters (a NUL cannot even be stored) have no place in a name, code or address.
-const plain = (s: string) => !/[\u0000-\u001f\u007f]/.test(s);
+const plain = (s: string) => !/[\u0000-\u001f\u007f]/.test(s) && isSafeText(s);
 const CONTROL = "Holds a control character (an invisible code, such as a line break).";
 
 export const importRowSchema = z.object({

@@ -1,11 +1,12 @@
 import { z } from "zod";
+import { text } from "@/lib/validation/text";
 import { AIN_GRADES, HISTOLOGY, P16 } from "@/lib/domain/vocab";
 import { lastFromAin } from "@/lib/codes/last";
 
 /** A biopsy is taken from a mapped lesion, or from a clock position and distance. */
 export const createBiopsySchema = z.union(
   [
-    z.object({ lesionId: z.string().uuid("Not a valid lesion.") }).strict(),
+    z.object({ lesionId: text().uuid("Not a valid lesion.") }).strict(),
     z
       .object({
         clockH: z.number({ message: "Clock position must be a number of hours." }).min(0).lt(12, "Clock hours run from 0 up to 12."),

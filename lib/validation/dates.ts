@@ -54,6 +54,7 @@ export function careDayProblem(day: string, opts: { birthDate?: string | null; n
 /** A visit's date: a real day within the bounds of care (the birth bound is the service's). */
 export const careDateSchema = (required = "Enter the visit date.") =>
   isoDateSchema(required).superRefine((v, ctx) => {
+    if (!isRealDay(v)) return; // the calendar check has said so already
     const problem = careDayProblem(v);
     if (problem) ctx.addIssue({ code: "custom", message: problem });
   });
@@ -61,6 +62,8 @@ export const careDateSchema = (required = "Enter the visit date.") =>
 /** An exam time (ISO timestamp with offset) within the bounds of care. */
 export const careDateTimeSchema = (message = "Enter a time of day.") =>
   z.iso.datetime({ offset: true, message }).superRefine((v, ctx) => {
-    const problem = careDayProblem(new Date(v).toISOString());
+    const t = Date.parse(v);
+    if (Number.isNaN(t)) return; // the datetime check has said so already
+    const problem = careDayProblem(new Date(t).toISOString());
     if (problem) ctx.addIssue({ code: "custom", message: problem });
   });

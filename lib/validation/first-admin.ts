@@ -1,11 +1,11 @@
 import { z } from "zod";
+import { text } from "@/lib/validation/text";
 
 /** The first administrator's command: who, and the clinic site they start with. */
 export const firstAdminSchema = z.object({
-  email: z.string().trim().toLowerCase().email("Give the administrator's e-mail address."),
-  site: z.string().trim().min(2, "Name the clinic site (at least 2 characters).").max(120, "Keep the site name under 120 characters."),
-  siteCode: z
-    .string()
+  email: text().trim().toLowerCase().email("Give the administrator's e-mail address."),
+  site: text().trim().min(2, "Name the clinic site (at least 2 characters).").max(120, "Keep the site name under 120 characters."),
+  siteCode: text()
     .trim()
     .toUpperCase()
     .regex(/^[A-Z0-9]{2,8}$/, "A site code is 2 to 8 letters or digits.")

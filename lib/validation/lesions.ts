@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { text } from "@/lib/validation/text";
 import { ACETOWHITE, GRADES, LUGOL, MORPHOLOGY, VESSELS, type Position } from "@/lib/domain/vocab";
 
 // One schema for the lesion form and the lesions route. Clock hours are stored in the
@@ -17,7 +18,7 @@ export const lesionFieldsSchema = z.object({
   lugol: z.enum(LUGOL, { message: "Choose the Lugol's iodine uptake." }).nullable().optional(),
   vessels: z.array(z.enum(VESSELS, { message: "Unknown vessel pattern." })).max(3).optional(),
   sizeMm: z.number({ message: "Size must be a number of mm." }).positive("Size must be above 0 mm.").max(100, "Size above 100 mm is not plausible.").nullable().optional(),
-  note: z.string().max(2000, "Keep the note under 2,000 characters.").nullable().optional(),
+  note: text().max(2000, "Keep the note under 2,000 characters.").nullable().optional(),
 });
 
 const ordered = (v: { distanceStartCm?: number; distanceEndCm?: number }) =>
@@ -28,7 +29,7 @@ export const createLesionSchema = lesionFieldsSchema
   .extend({
     // Chosen by the client once per new lesion and sent again with every retry of that create:
     // a retry after an answer lost on the way finds the lesion already made (no second copy).
-    clientKey: z.string().uuid("Not a valid client key.").optional(),
+    clientKey: text().uuid("Not a valid client key.").optional(),
   })
   .refine(ordered, orderedMessage);
 export type CreateLesionInput = z.infer<typeof createLesionSchema>;
@@ -37,7 +38,7 @@ export const updateLesionSchema = lesionFieldsSchema
   .partial()
   .extend({
     version: z.number({ message: "The version you edited is required." }).int().positive(),
-    trackId: z.string().uuid("Not a valid track.").nullable().optional(),
+    trackId: text().uuid("Not a valid track.").nullable().optional(),
   })
   .refine(ordered, orderedMessage);
 export type UpdateLesionInput = z.infer<typeof updateLesionSchema>;

@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { text } from "./text";
 import { IMPORT_FIELD_KEYS } from "@/lib/patient-import/fields";
 import { MAX_COLUMNS } from "@/lib/patient-import/limits";
 
@@ -12,7 +13,7 @@ export const columnMappingSchema = z.strictObject(
 export const importCheckSchema = z.strictObject({
   siteId: z.uuid("Choose a site."),
   format: z.enum(["csv", "fhir"], { message: "Choose CSV or FHIR." }),
-  fileName: z.string().max(255, "The file name is too long.").regex(/^[^\u0000-\u001f\u007f]*$/, "The file name holds control characters.").optional(),
+  fileName: text().max(255, "The file name is too long.").regex(/^[^\u0000-\u001f\u007f]*$/, "The file name holds control characters.").optional(),
   /** The file's text; its size is checked against the import limit separately. */
   content: z.string({ message: "Choose a file." }).min(1, "The file is empty."),
   /** Without it, the columns are matched by their header names. */

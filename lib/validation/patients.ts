@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { text } from "@/lib/validation/text";
 import { HIV_STATUS, PATIENT_STATUSES, RISK_GROUPS, SEX_AT_BIRTH } from "@/lib/domain/vocab";
 
 // One patient's fields, shared by the registration form, the edit form, their routes and the importer.
@@ -17,31 +18,27 @@ const todayIso = () => new Date().toISOString().slice(0, 10);
 // A leading = + @ or a control character is never part of a name and could act as a formula
 // when the name is later opened in a spreadsheet.
 const nameText = (what: string) =>
-  z
-    .string({ message: `Give the ${what}.` })
+  text({ message: `Give the ${what}.` })
     .trim()
     .min(1, `Give the ${what}.`)
     .max(100, `Keep the ${what} under 100 characters.`)
     .refine((s) => !/^[=+@]/.test(s) && !/[\u0000-\u001f\u007f]/.test(s), `The ${what} has characters a name cannot have.`);
 
-const dateOfBirth = z
-  .string({ message: "Give the date of birth." })
+const dateOfBirth = text({ message: "Give the date of birth." })
   .trim()
   .min(1, "Give the date of birth.")
   .refine(isCalendarDate, "Write the date of birth as a real date, YYYY-MM-DD.")
   .refine((s) => s >= "1900-01-01", "A date of birth before 1900 is not plausible.")
   .refine((s) => s <= todayIso(), "The date of birth is in the future.");
 
-const optionalDate = z
-  .string()
+const optionalDate = text()
   .trim()
   .refine((s) => s === "" || isCalendarDate(s), "Write the date as a real date, YYYY-MM-DD.")
   .transform((s) => (s === "" ? null : s))
   .nullable()
   .optional();
 
-const mrn = z
-  .string({ message: "Give the medical record number." })
+const mrn = text({ message: "Give the medical record number." })
   .trim()
   .min(1, "Give the medical record number.")
   .max(40, "A record number is at most 40 characters.")
@@ -49,8 +46,7 @@ const mrn = z
 
 const emptyToNull = (s: string) => (s === "" ? null : s);
 
-const postalCode = z
-  .string()
+const postalCode = text()
   .trim()
   .toUpperCase()
   .refine((s) => s === "" || /^[A-Z0-9][A-Z0-9 -]{1,8}[A-Z0-9]$/.test(s), "Give a postal code such as 60614 or SW1A 1AA.")
@@ -58,8 +54,7 @@ const postalCode = z
   .nullable()
   .optional();
 
-const contactEmail = z
-  .string()
+const contactEmail = text()
   .trim()
   .max(254, "An e-mail address is at most 254 characters.")
   .refine((s) => s === "" || z.email().safeParse(s).success, "Give an e-mail address such as name@example.org, or leave it empty.")
@@ -73,8 +68,7 @@ const riskGroups = z
   .max(RISK_GROUPS.length, "Too many risk groups.")
   .transform((gs) => RISK_GROUPS.filter((g) => gs.includes(g)));
 
-const clinicianId = z
-  .string()
+const clinicianId = text()
   .trim()
   .max(64, "Not a clinician.")
   .transform(emptyToNull)
@@ -110,7 +104,7 @@ const HIV_DISAGREES = { message: "A group living with HIV is ticked: set the HIV
 /** Registration: the fields, the site, and the user's confirmation after a possible-duplicate warning. */
 export const registerPatientSchema = patientFieldsSchema
   .extend({
-    siteId: z.string({ message: "Choose the site." }).uuid("Choose the site."),
+    siteId: text({ message: "Choose the site." }).uuid("Choose the site."),
     confirmDuplicate: z.boolean().optional(),
   })
   .refine(hivGroupsAgree, HIV_DISAGREES);

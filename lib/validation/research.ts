@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { text } from "@/lib/validation/text";
 import { GRADES } from "@/lib/domain/vocab";
 import { toCalendarDate } from "@/lib/dates/calendar";
 
@@ -15,21 +16,19 @@ const isCalendarDay = (s: string) => {
   }
 };
 
-export const isoDay = z
-  .string({ message: "Enter a date." })
+export const isoDay = text({ message: "Enter a date." })
   .regex(/^\d{4}-\d{2}-\d{2}$/, "Use the form YYYY-MM-DD.")
   .refine(isCalendarDay, "No such calendar day.");
 
 /** Study subject IDs: letters, digits and hyphens, so they can never carry a name or free text. */
-export const studySubjectIdSchema = z
-  .string({ message: "Enter a study ID." })
+export const studySubjectIdSchema = text({ message: "Enter a study ID." })
   .trim()
   .regex(/^[A-Za-z0-9][A-Za-z0-9-]{0,31}$/, "Use up to 32 letters, digits and hyphens.");
 
 export const enrolSchema = z.object({
   /** The opaque pick-list reference of a consenting patient (see db/queries/research/enrolment.ts). */
-  candidateRef: z.string({ message: "Choose a patient from the list." }).regex(/^[0-9a-f]{12}$/, "Choose a patient from the list."),
-  siteId: z.string({ message: "Choose a site." }).uuid("Choose a site."),
+  candidateRef: text({ message: "Choose a patient from the list." }).regex(/^[0-9a-f]{12}$/, "Choose a patient from the list."),
+  siteId: text({ message: "Choose a site." }).uuid("Choose a site."),
   studySubjectId: studySubjectIdSchema,
   consentDate: isoDay,
 });
@@ -43,15 +42,15 @@ export type ExportDataset = (typeof EXPORT_DATASETS)[number];
 
 export const exportFilterSchema = z
   .object({
-    studyId: z.string({ message: "Choose a study." }).uuid("Choose a study."),
-    siteId: z.string().uuid("Not a valid site.").optional(),
+    studyId: text({ message: "Choose a study." }).uuid("Choose a study."),
+    siteId: text().uuid("Not a valid site.").optional(),
     from: isoDay.optional(),
     to: isoDay.optional(),
     grade: z.enum(GRADES, { message: "Unknown grade." }).optional(),
     /** Safe Harbor keeps either the year of each date or its day offset from enrolment. */
     dates: z.enum(["offset", "year"], { message: "Choose offset or year." }).default("offset"),
     identified: z.enum(["0", "1"]).default("0").transform((v) => v === "1"),
-    reason: z.string().trim().max(500, "Keep the reason under 500 characters.").optional(),
+    reason: text().trim().max(500, "Keep the reason under 500 characters.").optional(),
   })
   .refine((f) => !f.from || !f.to || f.from <= f.to, { message: "The range must end on or after its start.", path: ["to"] })
   .refine((f) => !f.identified || (f.reason !== undefined && f.reason.length >= 10), {

@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { text } from "@/lib/validation/text";
 
 /** True for a time zone name this runtime knows (IANA names such as America/Chicago). */
 export function isTimeZone(name: string): boolean {
@@ -10,16 +11,14 @@ export function isTimeZone(name: string): boolean {
   }
 }
 
-const name = z.string().trim().min(2, "Name the site (at least 2 characters).").max(120, "Keep the site name under 120 characters.");
-const code = z
-  .string()
+const name = text().trim().min(2, "Name the site (at least 2 characters).").max(120, "Keep the site name under 120 characters.");
+const code = text()
   .trim()
   .toUpperCase()
   .regex(/^[A-Z0-9]{2,8}$/, "A site code is 2 to 8 letters or digits.");
-const timeZone = z.string().trim().refine(isTimeZone, "Choose a time zone such as America/New_York or Europe/London.");
+const timeZone = text().trim().refine(isTimeZone, "Choose a time zone such as America/New_York or Europe/London.");
 // A US ZIP is 5 digits; other countries' codes are letters, digits, spaces and dashes.
-const postalCode = z
-  .string()
+const postalCode = text()
   .trim()
   .toUpperCase()
   .regex(/^[A-Z0-9][A-Z0-9 -]{1,8}[A-Z0-9]$/, "Give the clinic's postal code, e.g. 60614 or SW1A 1AA.")
@@ -35,5 +34,5 @@ export const siteUpdateSchema = siteSchema.partial().extend({ version: z.number(
 export type SiteUpdateInput = z.infer<typeof siteUpdateSchema>;
 
 export const userSitesSchema = z.object({
-  siteIds: z.array(z.string().uuid("Not a site.")).min(1, "Everyone works at one site at least.").max(50, "Too many sites."),
+  siteIds: z.array(text().uuid("Not a site.")).min(1, "Everyone works at one site at least.").max(50, "Too many sites."),
 });

@@ -1,13 +1,14 @@
 import { z } from "zod";
+import { text } from "@/lib/validation/text";
 import { isoDay } from "./research";
 
-const formVersion = z.string().trim().min(1, "Give the consent form's version.").max(40, "Keep the version under 40 characters.");
+const formVersion = text().trim().min(1, "Give the consent form's version.").max(40, "Keep the version under 40 characters.");
 
 /** One schema for the study form and its routes. */
 export const studySchema = z.object({
-  code: z.string().trim().toUpperCase().regex(/^[A-Z0-9][A-Z0-9-]{1,23}$/, "A study code is 2 to 24 letters, digits or dashes."),
-  title: z.string().trim().min(3, "Give the study's title.").max(200, "Keep the title under 200 characters."),
-  siteIds: z.array(z.string().uuid("Not a site.")).min(1, "Choose at least one site.").max(50, "Too many sites."),
+  code: text().trim().toUpperCase().regex(/^[A-Z0-9][A-Z0-9-]{1,23}$/, "A study code is 2 to 24 letters, digits or dashes."),
+  title: text().trim().min(3, "Give the study's title.").max(200, "Keep the title under 200 characters."),
+  siteIds: z.array(text().uuid("Not a site.")).min(1, "Choose at least one site.").max(50, "Too many sites."),
   startDate: isoDay,
   consentFormVersion: formVersion,
 });
@@ -16,7 +17,7 @@ export const studyUpdateSchema = studySchema.partial();
 export type StudyUpdateInput = z.infer<typeof studyUpdateSchema>;
 
 export const consentSchema = z.object({
-  studyId: z.string().uuid("Choose a study."),
+  studyId: text().uuid("Choose a study."),
   consentedOn: isoDay,
   formVersion: formVersion.optional(),
 });

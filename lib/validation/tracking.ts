@@ -1,7 +1,8 @@
 import { z } from "zod";
+import { text } from "@/lib/validation/text";
 import { TRACK_CHECK_OUTCOMES, TRACK_STATUSES, VERDICTS } from "@/lib/domain/vocab";
 
-const id = (what: string) => z.string().uuid(`Not a valid ${what}.`);
+const id = (what: string) => text().uuid(`Not a valid ${what}.`);
 
 /** The clinician confirms, relinks, splits or merges tracks, and marks earlier tracks not found. */
 export const trackActionSchema = z.discriminatedUnion(
@@ -20,7 +21,7 @@ export type TrackAction = z.infer<typeof trackActionSchema>;
 export const requestReviewSchema = z.object({
   visitId: id("visit"),
   comparedVisitId: id("visit").nullable().optional(),
-  reviewerId: z.string().min(1, "Choose a reviewer.").max(100),
+  reviewerId: text().min(1, "Choose a reviewer.").max(100),
 });
 
 export const adjudicationSchema = z
@@ -28,7 +29,7 @@ export const adjudicationSchema = z
     trackId: id("track"),
     verdict: z.enum(VERDICTS, { message: "Choose agree, disagree or not examined." }),
     proposedStatus: z.enum(TRACK_STATUSES, { message: "Choose the status you believe." }).nullable().optional(),
-    comment: z.string().trim().max(2000, "Keep the comment under 2,000 characters.").nullable().optional(),
+    comment: text().trim().max(2000, "Keep the comment under 2,000 characters.").nullable().optional(),
   })
   .refine((a) => a.verdict !== "disagree" || (a.proposedStatus && a.comment), {
     message: "A disagreement needs the status you believe and a comment.",

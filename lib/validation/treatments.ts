@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { text } from "@/lib/validation/text";
 import { MODALITIES } from "@/lib/domain/vocab";
 import { assessDoses, assessExtent, dailyTotals, doseEntrySchema, type DoseAssessment, type DoseEntry, type ExtentAssessment } from "@/lib/dosing";
 import { overlapH, type Arc } from "@/lib/geometry/arcs";
@@ -21,17 +22,17 @@ export const treatedArcSchema = z
   .object({ startH: clockH, endH: clockH })
   .refine((a) => Math.abs(a.startH - a.endH) > 1e-9, { message: "An arc must cover part of the circumference: start and end differ.", path: ["endH"] });
 
-const reason = (what: string) => z.string().trim().min(3, `Give the reason for ${what} (at least 3 characters).`).max(1000, "Keep the reason under 1,000 characters.");
+const reason = (what: string) => text().trim().min(3, `Give the reason for ${what} (at least 3 characters).`).max(1000, "Keep the reason under 1,000 characters.");
 
 export const treatmentSchema = z
   .object({
-    lesionId: z.string().uuid("Not a lesion of this visit.").nullable().optional(),
+    lesionId: text().uuid("Not a lesion of this visit.").nullable().optional(),
     modality: z.enum(MODALITIES, { message: "Choose how the area was treated." }),
-    regimen: z.string().trim().max(500, "Keep the regimen under 500 characters.").nullable().optional(),
+    regimen: text().trim().max(500, "Keep the regimen under 500 characters.").nullable().optional(),
     arcs: z.array(treatedArcSchema).max(12, "At most 12 arcs per treatment."),
     extentOverrideReason: reason("treating this much of the circumference").nullable().optional(),
     cancerOverrideReason: reason("treating a lesion that may be cancer").nullable().optional(),
-    note: z.string().trim().max(2000, "Keep the note under 2,000 characters.").nullable().optional(),
+    note: text().trim().max(2000, "Keep the note under 2,000 characters.").nullable().optional(),
   })
   .refine((t) => !isTopical(t.modality) || (t.regimen ?? "").length > 0, { message: "Write the regimen for a topical agent (what, how often, how long).", path: ["regimen"] })
   .refine((t) => isTopical(t.modality) || t.arcs.length > 0 || !!t.lesionId, { message: "Name the lesion treated or enter at least one treated arc.", path: ["arcs"] });

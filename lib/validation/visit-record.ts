@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { text } from "@/lib/validation/text";
 import { careDateSchema, careDateTimeSchema } from "./dates";
 import { ADEQUACY, COMPLICATION_KINDS, CYTOLOGY, HPV_RESULTS, POSITIONS, SEVERITIES } from "@/lib/domain/vocab";
 
@@ -9,7 +10,7 @@ const isoDate = careDateSchema("Enter the visit date.");
 const isoDateTime = careDateTimeSchema("Enter a time of day.");
 
 const optionalText = (max: number, what: string) =>
-  z.string().trim().max(max, `Keep the ${what} under ${max.toLocaleString("en")} characters.`).nullable().optional();
+  text().trim().max(max, `Keep the ${what} under ${max.toLocaleString("en")} characters.`).nullable().optional();
 
 export const examDetailsFieldsSchema = z.object({
   visitDate: isoDate,
@@ -49,12 +50,12 @@ export const complicationSchema = z.object({
 export type ComplicationInput = z.infer<typeof complicationSchema>;
 
 export const addendumSchema = z.object({
-  body: z.string({ message: "Write the addendum." }).trim().min(1, "Write the addendum.").max(8000, "Keep the addendum under 8,000 characters."),
+  body: text({ message: "Write the addendum." }).trim().min(1, "Write the addendum.").max(8000, "Keep the addendum under 8,000 characters."),
 });
 export type AddendumInput = z.infer<typeof addendumSchema>;
 
 export const confirmDiagnosisSchema = z.object({
-  code: z.string({ message: "Choose a suggested code." }).trim().regex(/^[A-Z]\d{2}(\.\d{1,4})?$/, "Not an ICD-10-CM code."),
+  code: text({ message: "Choose a suggested code." }).trim().regex(/^[A-Z]\d{2}(\.\d{1,4})?$/, "Not an ICD-10-CM code."),
 });
 export const diagnosisQuery = confirmDiagnosisSchema;
 

@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { text } from "@/lib/validation/text";
 import { POSITIONS } from "@/lib/domain/vocab";
 import { careDateSchema } from "./dates";
 
@@ -7,7 +8,7 @@ const isoDate = careDateSchema();
 export const createVisitSchema = z.object({
   visitDate: isoDate,
   patientPosition: z.enum(POSITIONS, { message: "Choose lithotomy, prone jack-knife or left lateral." }),
-  indication: z.string().trim().max(2000, "Keep the indication under 2,000 characters.").optional(),
+  indication: text().trim().max(2000, "Keep the indication under 2,000 characters.").optional(),
 });
 export type CreateVisitInput = z.infer<typeof createVisitSchema>;
 

@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { text } from "@/lib/validation/text";
 import { listAttachments, uploadAttachment } from "@/lib/server/attachments";
 import { scopeOf } from "@/lib/auth/guard";
 import { AppError } from "@/lib/errors";
@@ -7,7 +8,7 @@ import { maxUploadBytes, readMultipartLimited } from "@/lib/uploads";
 
 const fieldsSchema = z.object({
   lesionId: z.union([z.literal(""), z.string().uuid("Not a lesion of this visit.")]).optional(),
-  caption: z.string().trim().max(500, "Keep the caption under 500 characters.").optional(),
+  caption: text().trim().max(500, "Keep the caption under 500 characters.").optional(),
 });
 
 export const GET = route<{ visitId: string }>({ roles: ["clinician", "reviewer"] }, async ({ user, params, ip }) => {
