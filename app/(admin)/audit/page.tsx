@@ -5,19 +5,11 @@ import { listAuditActions, listAuditEvents } from "@/db/queries/audit-trail";
 import { listStaff } from "@/db/queries/users";
 import { requirePageRole } from "@/lib/auth/page-guard";
 import { detailWords, eventWords } from "@/lib/audit/words";
+import { readAuditFilter } from "@/lib/validation/audit";
 
 export const metadata = { title: "Audit trail" };
 
-const day = z.string().regex(/^\d{4}-\d{2}-\d{2}$/);
-const searchSchema = z.object({
-  user: z.string().max(100).optional().catch(undefined),
-  action: z.string().max(100).optional().catch(undefined),
-  // An MRN as staff know it, or (from older links) the internal id.
-  patient: z.string().trim().max(100).optional().catch(undefined),
-  from: day.optional().catch(undefined),
-  to: day.optional().catch(undefined),
-  page: z.coerce.number().int().min(1).max(100_000).optional().catch(1),
-});
+const pageSchema = z.object({ page: z.coerce.number().int().min(1).max(100_000).optional().catch(1) });
 
 const input = "mt-1 min-h-11 rounded-md border border-rule-strong bg-panel px-2";
 
@@ -25,7 +17,9 @@ const isId = (v: string) => z.string().uuid().safeParse(v).success;
 
 export default async function AuditPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
   const user = await requirePageRole(["admin"]);
-  const q = searchSchema.parse(await searchParams);
+  const raw = await searchParams;
+  const { filter: f, errors } = readAuditFilter(raw);
+  const q = { ...f, page: pageSchema.parse(raw).page };
   const [result, actions, staff] = await Promise.all([
     listAuditEvents(user.siteIds, { userId: q.user || undefined, action: q.action || undefined, ...(q.patient ? (isId(q.patient) ? { patientId: q.patient } : { patientMrn: q.patient }) : {}), fromDate: q.from, toDate: q.to, page: q.page }),
     listAuditActions(),
@@ -56,15 +50,18 @@ export default async function AuditPage({ searchParams }: { searchParams: Promis
         </div>
         <div>
           <label htmlFor="patient" className="block text-sm font-semibold">Patient MRN</label>
-          <input id="patient" name="patient" defaultValue={q.patient ?? ""} placeholder="any" className={`${input} w-48`} />
+          <input id="patient" name="patient" aria-invalid={errors.patient ? true : undefined} aria-describedby={errors.patient ? "patient-error" : undefined} defaultValue={q.patient ?? ""} placeholder="any" className={`${input} w-48`} />
+          {errors.patient ? <p id="patient-error" className="mt-1 text-sm font-semibold text-danger-ink">{errors.patient}</p> : null}
         </div>
         <div>
           <label htmlFor="from" className="block text-sm font-semibold">From</label>
-          <input id="from" name="from" type="date" defaultValue={q.from ?? ""} className={input} />
+          <input id="from" name="from" aria-invalid={errors.from ? true : undefined} aria-describedby={errors.from ? "from-error" : undefined} type="date" defaultValue={errors.from ? "" : q.from ?? ""} className={input} />
+          {errors.from ? <p id="from-error" className="mt-1 text-sm font-semibold text-danger-ink">{errors.from}</p> : null}
         </div>
         <div>
           <label htmlFor="to" className="block text-sm font-semibold">To</label>
-          <input id="to" name="to" type="date" defaultValue={q.to ?? ""} className={input} />
+          <input id="to" name="to" aria-invalid={errors.to ? true : undefined} aria-describedby={errors.to ? "to-error" : undefined} type="date" defaultValue={q.to ?? ""} className={input} />
+          {errors.to ? <p id="to-error" className="mt-1 text-sm font-semibold text-danger-ink">{errors.to}</p> : null}
         </div>
         <button className="min-h-11 rounded-md bg-lagoon-600 px-4 font-semibold text-white hover:bg-lagoon-700">Show</button>
         <Link href="/audit" className="inline-flex min-h-11 items-center rounded-md px-3 font-semibold text-lagoon-700 hover:bg-lagoon-50">Clear</Link>
