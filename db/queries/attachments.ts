@@ -1,7 +1,7 @@
 import "server-only";
 import { and, asc, eq } from "drizzle-orm";
-import { db, type Tx } from "../client";
-import { attachments, lesions, visits } from "../schema";
+import { db, type Db, type Tx } from "../client";
+import { addenda, attachments, lesions, visits } from "../schema";
 import { inScope, type SiteScope } from "./scope";
 import { loadVisit } from "./visit-access";
 
@@ -78,7 +78,7 @@ export interface NewAttachment {
 /** The visit an upload belongs to, share-locked so it cannot be signed or removed meanwhile. */
 export async function visitForUpload(tx: Tx, scope: SiteScope, visitId: string) {
   const [visit] = await tx
-    .select({ id: visits.id, siteId: visits.siteId, patientId: visits.patientId })
+    .select({ id: visits.id, siteId: visits.siteId, patientId: visits.patientId, status: visits.status })
     .from(visits)
     .where(and(eq(visits.id, visitId), inScope(visits.siteId, scope)))
     .for("share")
@@ -131,4 +131,10 @@ export async function attachmentKeysInScope(tx: Tx, scope: SiteScope, attachment
 
 export async function deleteAttachmentRow(tx: Tx, attachmentId: string): Promise<void> {
   await tx.delete(attachments).where(eq(attachments.id, attachmentId));
+}
+
+/** Whether the addendum was written on this visit. */
+export async function addendumIsOnVisit(run: Db | Tx, addendumId: string, visitId: string): Promise<boolean> {
+  const rows = await run.select({ id: addenda.id }).from(addenda).where(and(eq(addenda.id, addendumId), eq(addenda.visitId, visitId))).limit(1);
+  return rows.length > 0;
 }

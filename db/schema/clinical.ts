@@ -270,6 +270,8 @@ export const attachments = pgTable(
     visitId: uuid("visit_id").notNull().references(() => visits.id, { onDelete: "cascade" }),
     siteId: uuid("site_id").notNull().references(() => sites.id),
     lesionId: uuid("lesion_id").references(() => lesions.id, { onDelete: "set null" }),
+    /** Set when the file was added after signing: the addendum it belongs to. */
+    addendumId: uuid("addendum_id").references(() => addenda.id),
     kind: e.attachmentKindEnum("kind").notNull(),
     contentType: text("content_type").notNull(),
     byteSize: integer("byte_size").notNull(),

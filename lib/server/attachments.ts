@@ -2,7 +2,7 @@ import "server-only";
 import { randomUUID } from "node:crypto";
 import { db } from "@/db/client";
 import {
-  attachmentKeysInScope, deleteAttachmentRow, findAttachment, insertAttachmentRow, lesionBelongsToVisit, lesionIsOnVisit, listAttachmentsForVisit, visitForUpload,
+  addendumIsOnVisit, attachmentKeysInScope, deleteAttachmentRow, findAttachment, insertAttachmentRow, lesionBelongsToVisit, lesionIsOnVisit, listAttachmentsForVisit, visitForUpload,
 } from "@/db/queries/attachments";
 import { loadVisit, lockDraftVisit } from "@/db/queries/visit-access";
 import { recordAudit } from "@/db/queries/audit-write";
@@ -21,8 +21,23 @@ export async function listAttachments(scope: SiteScope, visitId: string, ip: str
 export interface UploadRequest {
   bytes: Uint8Array;
   lesionId: string | null;
+  /** Required once the visit is signed: the addendum the file belongs to. */
+  addendumId: string | null;
   caption: string | null;
   maxBytes: number;
+}
+
+/**
+ * A signed visit keeps its files as they were when signed (removing one is refused with 423 too);
+ * a file added later belongs to an addendum of that visit, or it is refused with 423.
+ */
+async function checkSignedLock(run: Parameters<typeof addendumIsOnVisit>[0], visit: { id: string; status: string }, addendumId: string | null) {
+  if (visit.status === "draft") {
+    if (addendumId) throw new AppError("invalid", undefined, { addendumId: ["A draft visit has no addenda: attach the file to the visit itself."] });
+    return;
+  }
+  if (!addendumId) throw new AppError("locked", "This visit is signed: a file added now must belong to an addendum. Write the addendum first, then attach the file to it.");
+  if (!(await addendumIsOnVisit(run, addendumId, visit.id))) throw new AppError("invalid", undefined, { addendumId: ["This addendum is not part of this visit."] });
 }
 
 /**
@@ -32,6 +47,7 @@ export interface UploadRequest {
  */
 export async function uploadAttachment(scope: SiteScope, visitId: string, req: UploadRequest, ip: string) {
   const visit = await loadVisit(db, scope, visitId);
+  await checkSignedLock(db, visit, req.addendumId);
   if (req.lesionId && !(await lesionBelongsToVisit(scope, visitId, req.lesionId))) {
     throw new AppError("invalid", undefined, { lesionId: ["This lesion is not part of this visit."] });
   }
@@ -53,20 +69,22 @@ export async function uploadAttachment(scope: SiteScope, visitId: string, req: U
     await db.transaction(async (tx) => {
       const v = await visitForUpload(tx, scope, visitId);
       if (!v) throw new AppError("not_found");
+      // Checked again under the share lock: a visit signed meanwhile is signed now.
+      await checkSignedLock(tx, v, req.addendumId);
       // Checked again inside the transaction, so a lesion deleted meanwhile cannot leave a dangling link.
       if (req.lesionId && !(await lesionIsOnVisit(tx, req.lesionId, visitId))) {
         throw new AppError("invalid", undefined, { lesionId: ["This lesion is not part of this visit."] });
       }
       await insertAttachmentRow(tx, {
-        id, visitId, siteId: v.siteId, uploadedBy: scope.userId, lesionId: req.lesionId, kind: up.kind, contentType: up.mime,
+        id, visitId, siteId: v.siteId, uploadedBy: scope.userId, lesionId: req.lesionId, addendumId: req.addendumId, kind: up.kind, contentType: up.mime,
         byteSize: up.bytes.byteLength, sha256: up.sha256, objectKey: keys.objectKey, thumbKey: keys.thumbKey, caption: req.caption,
       });
       await recordAudit({
         userId: scope.userId, siteId: v.siteId, patientId: v.patientId, action: "attachment.upload", entityType: "attachment", entityId: id, ip,
-        detail: { visitId, kind: up.kind, contentType: up.mime, byteSize: up.bytes.byteLength, sha256: up.sha256 },
+        detail: { visitId, addendumId: req.addendumId, kind: up.kind, contentType: up.mime, byteSize: up.bytes.byteLength, sha256: up.sha256 },
       }, tx);
     });
-    return { id, kind: up.kind, contentType: up.mime, byteSize: up.bytes.byteLength, sha256: up.sha256, lesionId: req.lesionId };
+    return { id, kind: up.kind, contentType: up.mime, byteSize: up.bytes.byteLength, sha256: up.sha256, lesionId: req.lesionId, addendumId: req.addendumId };
   } catch (err) {
     await deleteObjects([...written]).catch((e) => console.error("[dentate] could not remove objects of a failed upload", written, e));
     if (err instanceof AppError) throw err;

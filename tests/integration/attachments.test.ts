@@ -6,7 +6,7 @@ import { ListObjectsV2Command, S3Client } from "@aws-sdk/client-s3";
 import sharp from "sharp";
 import exifr from "exifr";
 import { db } from "@/db/client";
-import { attachments, auditEvents, lesions, visits } from "@/db/schema";
+import { addenda, attachments, auditEvents, lesions, visits } from "@/db/schema";
 import { GET as listRoute, POST as uploadRoute } from "@/app/api/visits/[visitId]/attachments/route";
 import { DELETE as deleteRoute, GET as downloadRoute } from "@/app/api/attachments/[attachmentId]/route";
 import { actor, ctx, makePatient, makeSite, ORIGIN, type Actor } from "../fixtures/factory";
@@ -208,5 +208,28 @@ describe("a photograph with GPS EXIF", () => {
     const locked = await deleteRoute(new Request(`${ORIGIN}/api/attachments/${attachmentId}`, { method: "DELETE", headers: { cookie: clinician.cookie, origin: ORIGIN, host: "dentate.test" } }), ctx({ attachmentId }));
     expect(locked.status).toBe(423);
     expect(await rowsFor(visitA)).toBe(1);
+  });
+
+  it("refuses a file for a signed visit with 423 unless it belongs to an addendum of that visit, and records which addendum", async () => {
+    // visitA was signed by the test above. A signed record is closed; later additions are
+    // addenda (common practice, no source: the same lock the delete path applies).
+    const before = { rows: await rowsFor(visitA), keys: await bucketKeys() };
+    const png = new Uint8Array(await sharp({ create: { width: 40, height: 30, channels: 3, background: "#a05a50" } }).png().toBuffer());
+    const refused = await upload(clinician, visitA, png, "late.png", "image/png");
+    expect(refused.status).toBe(423);
+    const [other] = await db.insert(addenda).values({ visitId: visitB, siteId: siteB, authorId: otherClinician.userId, body: "Invented note on another visit." }).returning({ id: addenda.id });
+    const wrong = await upload(clinician, visitA, png, "late.png", "image/png", { addendumId: other!.id });
+    expect(wrong.status).toBe(400);
+    expect(await rowsFor(visitA)).toBe(before.rows);
+    expect(await bucketKeys()).toEqual(before.keys);
+
+    const [add] = await db.insert(addenda).values({ visitId: visitA, siteId: siteA, authorId: clinician.userId, body: "Invented: photograph of the healed site added." }).returning({ id: addenda.id });
+    const ok = await upload(clinician, visitA, png, "late.png", "image/png", { addendumId: add!.id });
+    expect(ok.status).toBe(201);
+    const id = (await ok.json()).attachment.id as string;
+    const [row] = await db.select({ addendumId: attachments.addendumId }).from(attachments).where(eq(attachments.id, id));
+    expect(row!.addendumId).toBe(add!.id);
+    const [audit] = await db.select({ detail: auditEvents.detail }).from(auditEvents).where(and(eq(auditEvents.entityId, id), eq(auditEvents.action, "attachment.upload")));
+    expect((audit!.detail as { addendumId?: string }).addendumId).toBe(add!.id);
   });
 });

@@ -8,6 +8,7 @@ import { maxUploadBytes, readMultipartLimited } from "@/lib/uploads";
 
 const fieldsSchema = z.object({
   lesionId: z.union([z.literal(""), z.string().uuid("Not a lesion of this visit.")]).optional(),
+  addendumId: z.union([z.literal(""), z.string().uuid("Not an addendum of this visit.")]).optional(),
   caption: text().trim().max(500, "Keep the caption under 500 characters.").optional(),
 });
 
@@ -26,10 +27,10 @@ export const POST = route<{ visitId: string }>({ roles: ["clinician"] }, async (
     const v = form.get(k);
     return typeof v === "string" ? v : undefined;
   };
-  const fields = parseWith(fieldsSchema, { lesionId: text("lesionId"), caption: text("caption") });
+  const fields = parseWith(fieldsSchema, { lesionId: text("lesionId"), addendumId: text("addendumId"), caption: text("caption") });
   const attachment = await uploadAttachment(
     scopeOf(user), visitId,
-    { bytes: new Uint8Array(await file.arrayBuffer()), lesionId: fields.lesionId || null, caption: fields.caption || null, maxBytes },
+    { bytes: new Uint8Array(await file.arrayBuffer()), lesionId: fields.lesionId || null, addendumId: fields.addendumId || null, caption: fields.caption || null, maxBytes },
     ip,
   );
   return json({ attachment }, 201);

@@ -1,0 +1,2 @@
+ALTER TABLE "attachments" ADD COLUMN "addendum_id" uuid;--> statement-breakpoint
+ALTER TABLE "attachments" ADD CONSTRAINT "attachments_addendum_id_addenda_id_fk" FOREIGN KEY ("addendum_id") REFERENCES "public"."addenda"("id") ON DELETE no action ON UPDATE no action;
