@@ -2,6 +2,7 @@
 
 import { useMemo, useState } from "react";
 import { GRADE_LABEL, GRADES } from "@/lib/domain/vocab";
+import { reasonProblem } from "@/lib/validation/research";
 
 const DATASETS = [
   ["counts", "Lesion counts per visit"],
@@ -11,7 +12,8 @@ const DATASETS = [
 
 /**
  * Builds the download links for the streamed exports. Downloads are plain links, so the browser
- * streams the file to disk and nothing is held in page memory.
+ * streams the file to disk and nothing is held in page memory. An identified export is a form the
+ * administrator submits (POST, Origin-checked) with the reason typed in it: a link cannot start one.
  */
 export function ExportPanel({ studyId, sites, canIdentify }: { studyId: string; sites: { id: string; code: string }[]; canIdentify: boolean }) {
   const [siteId, setSiteId] = useState("");
@@ -28,13 +30,10 @@ export function ExportPanel({ studyId, sites, canIdentify }: { studyId: string; 
     if (from) q.set("from", from);
     if (to) q.set("to", to);
     if (grade) q.set("grade", grade);
-    if (identified) {
-      q.set("identified", "1");
-      q.set("reason", reason);
-    }
     return q.toString();
-  }, [studyId, dates, siteId, from, to, grade, identified, reason]);
-  const blocked = identified && reason.trim().length < 10;
+  }, [studyId, dates, siteId, from, to, grade]);
+  const problem = identified ? reasonProblem(reason) : null;
+  const blocked = identified && problem !== null;
   const field = "min-h-11 rounded-md border border-rule-strong bg-panel px-2 font-normal";
 
   return (
@@ -71,26 +70,43 @@ export function ExportPanel({ studyId, sites, canIdentify }: { studyId: string; 
             Identified export (names, MRNs, full dates)
           </label>
           {identified ? (
-            <label className="mt-2 block">Reason, kept in the audit log (at least 10 characters)<br />
-              <input value={reason} onChange={(e) => setReason(e.target.value)} maxLength={500} className={`${field} w-full`} />
-            </label>
+            <form method="post" action="/api/exports/workbook" className="mt-2 space-y-2">
+              {[...new URLSearchParams(query).entries()].map(([k, v]) => <input key={k} type="hidden" name={k} value={v} />)}
+              <input type="hidden" name="identified" value="1" />
+              <label className="block">Reason, kept in the audit log (say who asked and why, in words)<br />
+                <input name="reason" value={reason} onChange={(e) => setReason(e.target.value)} maxLength={500} required aria-invalid={reason !== "" && blocked ? true : undefined} aria-describedby="identified-reason-rule" className={`${field} w-full`} />
+              </label>
+              <p id="identified-reason-rule" className="text-xs">{reason !== "" && problem ? problem : "At least 10 letters in two words or more."}</p>
+              <div className="flex flex-wrap gap-2" aria-label="Identified downloads">
+                {DATASETS.map(([key, label]) => (
+                  <button key={key} type="submit" formAction={`/api/exports/${key}`} disabled={blocked} className="inline-flex min-h-11 items-center rounded-md border border-rule-strong bg-panel px-3 font-semibold hover:bg-lagoon-50 disabled:opacity-50">
+                    {label}, identified (CSV)
+                  </button>
+                ))}
+                <button type="submit" disabled={blocked} className="inline-flex min-h-11 items-center rounded-md bg-lagoon-600 px-3 font-semibold text-white hover:bg-lagoon-700 disabled:opacity-50">
+                  All three, identified (workbook)
+                </button>
+              </div>
+            </form>
           ) : null}
         </div>
       ) : null}
-      <ul className="flex flex-wrap gap-2" aria-label="Downloads">
-        {DATASETS.map(([key, label]) => (
-          <li key={key}>
-            <a aria-disabled={blocked} href={blocked ? undefined : `/api/exports/${key}?${query}`} className="inline-flex min-h-11 items-center rounded-md border border-rule-strong bg-panel px-3 font-semibold hover:bg-lagoon-50 aria-disabled:opacity-50" download>
-              {label} (CSV)
+      {identified ? null : (
+        <ul className="flex flex-wrap gap-2" aria-label="Downloads">
+          {DATASETS.map(([key, label]) => (
+            <li key={key}>
+              <a href={`/api/exports/${key}?${query}`} className="inline-flex min-h-11 items-center rounded-md border border-rule-strong bg-panel px-3 font-semibold hover:bg-lagoon-50" download>
+                {label} (CSV)
+              </a>
+            </li>
+          ))}
+          <li>
+            <a href={`/api/exports/workbook?${query}`} className="inline-flex min-h-11 items-center rounded-md bg-lagoon-600 px-3 font-semibold text-white hover:bg-lagoon-700" download>
+              All three (workbook)
             </a>
           </li>
-        ))}
-        <li>
-          <a aria-disabled={blocked} href={blocked ? undefined : `/api/exports/workbook?${query}`} className="inline-flex min-h-11 items-center rounded-md bg-lagoon-600 px-3 font-semibold text-white hover:bg-lagoon-700 aria-disabled:opacity-50" download>
-            All three (workbook)
-          </a>
-        </li>
-      </ul>
+        </ul>
+      )}
       <p className="text-xs text-ink-soft">De-identified under HIPAA Safe Harbor: no names, MRNs, contact details or notes; dates as offsets or years; ages over 89 as 90+; ZIP as 3 digits (000 for small areas). Only signed visits, and none on or after a withdrawal. Every export is logged.</p>
     </div>
   );

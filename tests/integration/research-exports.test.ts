@@ -9,10 +9,10 @@ import { and, desc, eq } from "drizzle-orm";
 import { db } from "@/db/client";
 import * as s from "@/db/schema";
 import { refreshTrackStatuses } from "@/lib/server/track-statuses";
-import { GET as getCsv } from "@/app/api/exports/[dataset]/route";
+import { GET as getCsv, POST as postCsv } from "@/app/api/exports/[dataset]/route";
 import { GET as getWorkbook } from "@/app/api/exports/workbook/route";
 import { GET as subjectFhir } from "@/app/api/studies/[studyId]/subjects/[subjectId]/fhir/route";
-import { actor, ctx, makePatient, makeSite, req, type Actor } from "../fixtures/factory";
+import { ORIGIN, actor, ctx, makePatient, makeSite, req, type Actor } from "../fixtures/factory";
 
 // Every string below is invented; none may appear in a de-identified export.
 const SECRET = {
@@ -89,6 +89,17 @@ beforeAll(async () => {
 
 const csv = (dataset: string, who: Actor, query = "") =>
   getCsv(req("GET", `/api/exports/${dataset}?studyId=${studyId}${query}`, who), ctx({ dataset }));
+
+/** The export form as the browser submits it (application/x-www-form-urlencoded, with its Origin). */
+const postForm = (dataset: string, who: Actor, fields: Record<string, string>, origin = ORIGIN) =>
+  postCsv(
+    new Request(`${ORIGIN}/api/exports/${dataset}`, {
+      method: "POST",
+      headers: { host: "dentate.test", cookie: who.cookie, origin, "content-type": "application/x-www-form-urlencoded" },
+      body: new URLSearchParams({ studyId, identified: "1", ...fields }).toString(),
+    }),
+    ctx({ dataset }),
+  );
 
 async function csvRows(dataset: string, query = "") {
   const res = await csv(dataset, nurse, query);
@@ -220,8 +231,21 @@ describe("who may export", () => {
   });
 
   it("refuses an identified export to a nurse and to an admin without a reason", async () => {
-    expect((await csv("counts", nurse, "&identified=1&reason=Statistical%20audit%20request")).status).toBe(403);
-    expect((await csv("counts", admin, "&identified=1")).status).toBe(400);
+    expect((await postForm("counts", nurse, { reason: "Statistical audit request" })).status).toBe(403);
+    expect((await postForm("counts", admin, {})).status).toBe(400);
+  });
+
+  it("refuses an identified export started by a link (GET) or from another site's page, even with a reason", async () => {
+    const reason = "Data-safety board re-identification request 7";
+    expect((await csv("outcomes", admin, `&identified=1&reason=${encodeURIComponent(reason)}`)).status).toBe(403);
+    expect((await postForm("outcomes", admin, { reason }, "https://elsewhere.example")).status).toBe(403);
+  });
+
+  // Common practice, no source: a reason in the audit log must let a reader understand the request.
+  it.each(["..........", "aaaaaaaaaaaaaaa", "x x x x x x x x x x", "!!!! ???? ....", "asdfghjk", "0123456789 0123"])("refuses the meaningless reason %j with 400 on the reason field", async (reason) => {
+    const res = await postForm("counts", admin, { reason });
+    expect(res.status).toBe(400);
+    expect(Object.keys((await res.json()).error.fields)).toEqual(["reason"]);
   });
 
   it("answers bad filters with 400 and an unknown dataset with 404, never reaching SQL", async () => {
@@ -233,7 +257,7 @@ describe("who may export", () => {
 
   it("lets an admin export identified data with a recorded reason", async () => {
     const reason = "Data-safety board re-identification request 7";
-    const res = await csv("outcomes", admin, `&identified=1&reason=${encodeURIComponent(reason)}`);
+    const res = await postForm("outcomes", admin, { reason });
     expect(res.status).toBe(200);
     const text = await res.text();
     expect(text).toContain(SECRET.mrn); // positive control: the identified export does carry the MRN

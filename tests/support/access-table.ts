@@ -28,6 +28,9 @@ export const ACCESS: Record<string, Access> = {
   "GET /api/attachments/[attachmentId]": ["clinician", "reviewer"],
   "GET /api/biopsies/awaiting": ["clinician", "admin"],
   "GET /api/exports/[dataset]": RESEARCH,
+  // An identified export: only from the export form (POST), only by an administrator.
+  "POST /api/exports/[dataset]": ["admin"],
+  "POST /api/exports/workbook": ["admin"],
   "GET /api/exports/workbook": RESEARCH,
   "GET /api/me/preferences": "any",
   "GET /api/patients": CLINICAL,

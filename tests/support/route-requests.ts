@@ -38,6 +38,8 @@ export const SPECS: Record<string, RequestSpec> = {
   "PATCH /api/me/preferences": { noSiteRecord: "the caller's own setting", body: () => ({ displayConvention: "left_lateral" }) },
   "GET /api/exports/[dataset]": { query: (w) => `?studyId=${w.ids.studyId}` },
   "GET /api/exports/workbook": { query: (w) => `?studyId=${w.ids.studyId}` },
+  "POST /api/exports/[dataset]": { body: (w) => ({ studyId: w.ids.studyId, identified: "1", reason: "Invented safety board request for follow-up letters" }) },
+  "POST /api/exports/workbook": { body: (w) => ({ studyId: w.ids.studyId, identified: "1", reason: "Invented safety board request for follow-up letters" }) },
   "GET /api/attachments/[attachmentId]": { skipRightRole: "the fixture row has no stored object (404 'stored file is missing'); downloads are covered by attachments.test.ts" },
   "GET /api/visits/[visitId]/report": { params: (w) => ({ visitId: w.ids.signedVisitId }) },
 

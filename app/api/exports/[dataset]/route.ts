@@ -1,14 +1,14 @@
 import { Readable } from "node:stream";
 import { streamCsvExport } from "@/lib/server/exports";
 import { AppError } from "@/lib/errors";
-import { route } from "@/lib/http/route";
+import { route, type RouteArgs } from "@/lib/http/route";
 import { datasetParam } from "@/lib/validation/research";
 import { EXPORT_ROLES, attachmentHeaders, exportStamp, prepareExport } from "../prepare";
 
 export const dynamic = "force-dynamic";
 
 /** GET /api/exports/{counts|lesions|outcomes}?studyId=…: one dataset as streamed CSV. */
-export const GET = route<{ dataset: string }>({ roles: EXPORT_ROLES }, async ({ req, user, params, ip }) => {
+const exportCsv = async ({ req, user, params, ip }: RouteArgs<{ dataset: string }>) => {
   const dataset = datasetParam.safeParse(params.dataset);
   if (!dataset.success) throw new AppError("not_found");
   const { scope, studyCode } = await prepareExport(req, user);
@@ -16,4 +16,9 @@ export const GET = route<{ dataset: string }>({ roles: EXPORT_ROLES }, async ({ 
   return new Response(Readable.toWeb(stream) as ReadableStream, {
     headers: attachmentHeaders(`${studyCode}-${dataset.data}-${exportStamp(scope.filter.identified)}.csv`, "text/csv; charset=utf-8"),
   });
-});
+};
+
+/** De-identified exports are links (GET); an identified one is refused there (403). */
+export const GET = route<{ dataset: string }>({ roles: EXPORT_ROLES }, exportCsv);
+/** The export form's POST (Origin checked): the only way to an identified export, admins only. */
+export const POST = route<{ dataset: string }>({ roles: ["admin"] }, exportCsv);
