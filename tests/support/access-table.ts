@@ -33,6 +33,8 @@ export const ACCESS: Record<string, Access> = {
   "POST /api/exports/workbook": ["admin"],
   "GET /api/exports/workbook": RESEARCH,
   "GET /api/me/preferences": "any",
+  // The benchmark's write floor: any signed-in user; it reads and changes no record.
+  "POST /api/bench/write-floor": "any",
   "GET /api/patients": CLINICAL,
   "GET /api/patients/[patientId]": CLINICAL,
   "GET /api/patients/[patientId]/fhir": CLINICAL,
