@@ -11,6 +11,7 @@ import * as s from "@/db/schema";
 import { refreshTrackStatuses } from "@/lib/server/track-statuses";
 import { GET as getCsv, POST as postCsv } from "@/app/api/exports/[dataset]/route";
 import { GET as getWorkbook } from "@/app/api/exports/workbook/route";
+import { GET as getStudyRoute } from "@/app/api/studies/[studyId]/route";
 import { GET as subjectFhir } from "@/app/api/studies/[studyId]/subjects/[subjectId]/fhir/route";
 import { ORIGIN, actor, ctx, makePatient, makeSite, req, type Actor } from "../fixtures/factory";
 
@@ -220,6 +221,21 @@ describe("de-identified FHIR bundle of a withdrawn subject", () => {
     const bundle = JSON.parse(text) as { entry: { resource: { resourceType: string; period?: { start: string } } }[] };
     // Signed visits 2024-06-01 and 2024-12-01 only; dates cut to the year (Safe Harbor).
     expect(bundle.entry.filter((e) => e.resource.resourceType === "Encounter").map((e) => e.resource.period?.start)).toEqual(["2024", "2024"]);
+  });
+});
+
+describe("the research nurse's study view agrees with the exports", () => {
+  it("counts a withdrawn subject's signed visits up to the withdrawal, as the counts export does", async () => {
+    // EXP-001 has signed visits on 2024-06-01, 2024-12-01, 2025-03-01 (the withdrawal day) and
+    // 2025-08-01: the exports keep the first two (visits before the withdrawal date).
+    const res = await getStudyRoute(req("GET", `/api/studies/${studyId}`, nurse), ctx({ studyId }));
+    const view = (await res.json()) as { enrolments: { studySubjectId: string; signedVisits: number }[] };
+    const { rows } = await csvRows("counts");
+    for (const subject of ["EXP-001", "EXP-002"]) {
+      const exported = rows.filter((r) => r.study_id === subject).length;
+      expect(view.enrolments.find((e) => e.studySubjectId === subject)?.signedVisits, subject).toBe(exported);
+    }
+    expect(rows.filter((r) => r.study_id === "EXP-001").length).toBe(2);
   });
 });
 

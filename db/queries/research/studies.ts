@@ -67,7 +67,8 @@ export async function listEnrolments(scope: SiteScope, studyId: string): Promise
       siteCode: sites.code,
       consentDate: enrolments.consentDate,
       withdrawnOn: enrolments.withdrawnOn,
-      signedVisits: dsql<number>`(select count(*)::int from ${visits} where ${visits.patientId} = ${enrolments.patientId} and ${visits.status} = 'signed')`,
+      // The exports' rule (export-scope.ts, vis): signed visits at the enrolling site, before any withdrawal.
+      signedVisits: dsql<number>`(select count(*)::int from ${visits} where ${visits.patientId} = ${enrolments.patientId} and ${visits.siteId} = ${enrolments.siteId} and ${visits.status} = 'signed' and (${enrolments.withdrawnOn} is null or ${visits.visitDate} < ${enrolments.withdrawnOn}))`,
     })
     .from(enrolments)
     .innerJoin(sites, eq(sites.id, enrolments.siteId))
