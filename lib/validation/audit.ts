@@ -1,13 +1,14 @@
 import { z } from "zod";
 import { isoDateSchema } from "./dates";
+import { text } from "./text";
 
 // The audit trail's filter form. Its dates go through the shared date schema, so an impossible
 // day (2024-13-45) is answered with the form's message instead of reaching the database.
 
 export const auditFilterSchema = z
   .object({
-    user: z.string().max(100).optional(),
-    action: z.string().max(100).optional(),
+    user: text().max(100).optional(),
+    action: text().max(100).optional(),
     // An MRN as staff know it, or (from older links) the internal id.
     patient: text().trim().max(100, "Too long for an MRN.").optional(),
     from: isoDateSchema().optional(),

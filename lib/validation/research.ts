@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { text } from "@/lib/validation/text";
+import { REASON_RULE, reasonProblem, text } from "@/lib/validation/text";
 import { GRADES } from "@/lib/domain/vocab";
 import { toCalendarDate } from "@/lib/dates/calendar";
 
@@ -37,24 +37,10 @@ export type EnrolInput = z.infer<typeof enrolSchema>;
 export const withdrawSchema = z.object({ withdrawnOn: isoDay });
 export type WithdrawInput = z.infer<typeof withdrawSchema>;
 
+export { reasonProblem };
+
 export const EXPORT_DATASETS = ["counts", "lesions", "outcomes"] as const;
 export type ExportDataset = (typeof EXPORT_DATASETS)[number];
-
-const REASON_RULE = "Say why identified data is needed, in words (at least 10 letters, two words).";
-
-/**
- * Why a typed reason says nothing (it is kept in the audit log beside an identified export), or null.
- * Refused: fewer than 10 letters, fewer than two words, or letters that are nearly all one character
- * ("..........", "aaaaaaaaaa", "x x x x x x"). Common practice, no source: a log entry must let a
- * reader understand the request later.
- */
-export function reasonProblem(reason: string): string | null {
-  const letters = reason.match(/\p{L}/gu) ?? [];
-  const words = reason.match(/\p{L}{2,}/gu) ?? [];
-  if (letters.length < 10 || words.length < 2) return REASON_RULE;
-  if (new Set(letters.map((l) => l.toLowerCase())).size < 4) return REASON_RULE;
-  return null;
-}
 
 export const exportFilterSchema = z
   .object({

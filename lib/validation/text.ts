@@ -17,3 +17,25 @@ export function isSafeText(s: string): boolean {
 export function text(params?: Parameters<typeof z.string>[0]) {
   return z.string(params).refine(isSafeText, UNSAFE_TEXT_MESSAGE);
 }
+
+export const REASON_RULE = "Give the reason in words (at least 10 letters, in two words or more).";
+
+/**
+ * Why a typed reason says nothing (it is kept in the audit log beside a grave action), or null.
+ * Refused: fewer than 10 letters, fewer than two words, or letters that are nearly all one character
+ * ("..........", "aaaaaaaaaa", "x x x x x x"). Common practice, no source: a log entry must let a
+ * reader understand the request later.
+ */
+export function reasonProblem(reason: string): string | null {
+  const letters = reason.match(/\p{L}/gu) ?? [];
+  const words = reason.match(/\p{L}{2,}/gu) ?? [];
+  if (letters.length < 10 || words.length < 2) return REASON_RULE;
+  if (new Set(letters.map((l) => l.toLowerCase())).size < 4) return REASON_RULE;
+  return null;
+}
+
+/** A reason kept in the audit log beside a grave action (an identified export, a discarded visit). */
+export const reasonSchema = text({ message: REASON_RULE }).trim().max(500, "Keep the reason under 500 characters.").superRefine((v, ctx) => {
+  const problem = reasonProblem(v);
+  if (problem) ctx.addIssue({ code: "custom", message: problem });
+});

@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { text } from "@/lib/validation/text";
+import { reasonSchema, text } from "@/lib/validation/text";
 import { POSITIONS } from "@/lib/domain/vocab";
 import { careDateSchema } from "./dates";
 
@@ -15,3 +15,7 @@ export type CreateVisitInput = z.infer<typeof createVisitSchema>;
 export const preferencesSchema = z.object({
   displayConvention: z.enum(POSITIONS, { message: "Choose lithotomy, prone jack-knife or left lateral." }),
 });
+
+/** Discarding a draft visit started by mistake: the reason goes into the audit log. */
+export const discardVisitSchema = z.object({ reason: reasonSchema });
+export type DiscardVisitInput = z.infer<typeof discardVisitSchema>;

@@ -44,6 +44,8 @@ export const ACCESS: Record<string, Access> = {
   "GET /api/studies/[studyId]": RESEARCH,
   "GET /api/studies/[studyId]/subjects/[subjectId]/fhir": RESEARCH,
   "GET /api/visits/[visitId]": CLINICAL,
+  // A draft started by mistake: its examiner (a clinician) or an administrator; the service checks which.
+  "POST /api/visits/[visitId]/discard": ["clinician", "admin"],
   "GET /api/visits/[visitId]/addenda": CLINICAL,
   "GET /api/visits/[visitId]/anaesthetic": CLINICAL,
   "GET /api/visits/[visitId]/attachments": ["clinician", "reviewer"],

@@ -91,6 +91,7 @@ export const SPECS: Record<string, RequestSpec> = {
   "POST /api/visits/[visitId]/sign": { body: "none" },
   "POST /api/visits/[visitId]/tracks": { body: (w) => ({ action: "uncheck", trackId: w.ids.trackId }) },
   "DELETE /api/visits/[visitId]/treatments/[treatmentId]": { body: "none" },
+  "POST /api/visits/[visitId]/discard": { body: () => ({ reason: "Started on the wrong patient by mistake" }) },
   "POST /api/visits/[visitId]/treatments": { body: () => ({ modality: "electrocautery", arcs: [{ startH: 7, endH: 8 }] }) },
 };
 

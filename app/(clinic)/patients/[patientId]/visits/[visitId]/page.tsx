@@ -5,6 +5,7 @@ import { VisitMapEditor } from "@/components/visit/map-editor/visit-map-editor";
 import { LazyVisitGallery, LazyVisitRecordPanels } from "@/components/visit/lazy-panels";
 import { BiopsiesPanel } from "@/components/visit/biopsies-panel";
 import { VisitNumbering } from "@/components/visit/numbering";
+import { DiscardVisit } from "@/components/visit/discard-visit";
 import { getPatient } from "@/db/queries/patients";
 import { listLesionsForVisit } from "@/db/queries/lesions";
 import { scopeOf } from "@/lib/auth/guard";
@@ -63,6 +64,11 @@ export default async function VisitPage({ params }: { params: Promise<{ patientI
           <LazyVisitGallery visitId={visit.id} canUpload={canEdit} convention={visit.patientPosition} />
         </section>
       </VisitNumbering>
+      {visit.status === "draft" && (user.role === "clinician" || user.role === "admin") ? (
+        <div className="no-print mt-8">
+          <DiscardVisit visitId={visit.id} patientId={patient.id} />
+        </div>
+      ) : null}
     </AppShell>
   );
 }
