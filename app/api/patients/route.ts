@@ -3,6 +3,7 @@ import { listPatients } from "@/db/queries/patients";
 import { scopeOf } from "@/lib/auth/guard";
 import { json, readJson, readQuery, route } from "@/lib/http/route";
 import { registerPatient } from "@/lib/server/patients";
+import { recordAudit } from "@/lib/server/audit";
 import { registerPatientSchema } from "@/lib/validation/patients";
 
 const query = z.object({
@@ -10,9 +11,12 @@ const query = z.object({
   page: z.coerce.number({ message: "Page must be a number." }).int().min(1).max(10_000).optional(),
 });
 
-export const GET = route({ roles: ["clinician", "reviewer", "admin"] }, async ({ req, user }) => {
+export const GET = route({ roles: ["clinician", "reviewer", "admin"] }, async ({ req, user, ip }) => {
   const { q, page } = readQuery(req, query);
-  return listPatients(scopeOf(user), { q, page });
+  const list = await listPatients(scopeOf(user), { q, page });
+  // One row per request (with the search typed), not one per patient listed.
+  await recordAudit({ userId: user.id, ip, action: q ? "patient.search" : "patient.list", detail: { q: q ?? null, page: page ?? 1 } });
+  return list;
 });
 
 /** Registers a patient: 201; 409 `mrn_taken` naming the holder; 409 `possible_duplicate` until confirmed. */

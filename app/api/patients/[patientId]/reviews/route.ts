@@ -2,13 +2,17 @@ import { listOpenDisagreements } from "@/db/queries/reviews";
 import { requestReview } from "@/lib/server/reviews";
 import { scopeOf } from "@/lib/auth/guard";
 import { idParam, json, readJson, route } from "@/lib/http/route";
+import { recordAudit } from "@/lib/server/audit";
 import { requestReviewSchema } from "@/lib/validation/tracking";
 
 type P = { patientId: string };
 
-export const GET = route<P>({ roles: ["clinician", "reviewer", "admin"] }, async ({ user, params }) => ({
-  openDisagreements: await listOpenDisagreements(scopeOf(user), idParam(params.patientId)),
-}));
+export const GET = route<P>({ roles: ["clinician", "reviewer", "admin"] }, async ({ user, params, ip }) => {
+  const patientId = idParam(params.patientId);
+  const openDisagreements = await listOpenDisagreements(scopeOf(user), patientId);
+  await recordAudit({ userId: user.id, ip, patientId, action: "review.list", entityType: "patient", entityId: patientId });
+  return { openDisagreements };
+});
 
 export const POST = route<P>({ roles: ["clinician", "reviewer", "admin"] }, async ({ req, user, params, ip }) => {
   const patientId = idParam(params.patientId);
