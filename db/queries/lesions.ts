@@ -59,10 +59,11 @@ const lesionById = prepared((run) => selectLesions(run).where(eq(lesions.id, dsq
  * A visit's map. The read is recorded (`audit`, entity: the visit) by the statement that reads
  * the visit, when the visit is in scope.
  */
-export async function listLesionsForVisit(scope: SiteScope, visitId: string, audit: ReadAudit): Promise<VisitMapDto> {
+/** With `patientId`, a visit of another patient is not found (and no read is recorded). */
+export async function listLesionsForVisit(scope: SiteScope, visitId: string, audit: ReadAudit, patientId?: string): Promise<VisitMapDto> {
   // The lesions are read beside the visit, filtered by the same site scope; kept only if the visit is.
   const [visit, rows] = await Promise.all([
-    loadVisitAudited(db, scope, visitId, audit),
+    loadVisitAudited(db, scope, visitId, audit, patientId),
     lesionsOfVisit(db, { visitId, siteIds: siteIdsParam(scope) }),
   ]);
   return {

@@ -40,6 +40,18 @@ const visitHeaderAudited = prepared((run) =>
     .limit(1),
 );
 
+// The same, narrowed to one patient: a visit page whose visit is not the URL's patient's finds
+// nothing, so it answers 404 without recording a read.
+const visitOfPatientInScope = and(visitInScope, eq(visits.patientId, dsql.placeholder("patientId")));
+const visitHeaderAuditedOfPatient = prepared((run) =>
+  run
+    .with(auditOfRead(run, { siteId: dsql`${visits.siteId}`, patientId: dsql`${visits.patientId}`, entityId: dsql`${visits.id}::text` }, dsql`from ${visits} where ${visitOfPatientInScope}`))
+    .select(visitColumns)
+    .from(visits)
+    .where(visitOfPatientInScope)
+    .limit(1),
+);
+
 export type VisitHeader = Awaited<ReturnType<typeof loadVisit>>;
 
 /** A visit the caller's sites may see, or not_found. */
@@ -53,8 +65,9 @@ export async function loadVisit(run: Db | Tx, scope: SiteScope, visitId: string)
  * loadVisit, and the read recorded in the audit log by the same statement (the visit's site,
  * patient and id completed from the row), only when the visit is in scope.
  */
-export async function loadVisitAudited(run: Db | Tx, scope: SiteScope, visitId: string, audit: ReadAudit) {
-  const [v] = await visitHeaderAudited(run, { visitId, siteIds: siteIdsParam(scope), ...auditValues(audit) });
+export async function loadVisitAudited(run: Db | Tx, scope: SiteScope, visitId: string, audit: ReadAudit, patientId?: string) {
+  const values = { visitId, siteIds: siteIdsParam(scope), ...auditValues(audit) };
+  const [v] = patientId ? await visitHeaderAuditedOfPatient(run, { ...values, patientId }) : await visitHeaderAudited(run, values);
   if (!v) throw new AppError("not_found");
   return v;
 }

@@ -1,7 +1,7 @@
 import "server-only";
 import { db } from "@/db/client";
-import { biopsyInScope, deleteBiopsyRow, insertBiopsy, lesionPlaceOnVisit, specimenLabelsOfVisit, updateBiopsyResult } from "@/db/queries/biopsies";
-import { lockDraftVisit } from "@/db/queries/visit-access";
+import { biopsyInScope, deleteBiopsyRow, insertBiopsy, lesionPlaceOnVisit, listBiopsiesForVisit, specimenLabelsOfVisit, updateBiopsyResult } from "@/db/queries/biopsies";
+import { loadVisit, lockDraftVisit } from "@/db/queries/visit-access";
 import { lockPatientStatusesOfBiopsy, lockPatientStatusesOfVisit } from "@/db/queries/patient-lock";
 import { recordAudit } from "@/db/queries/audit-write";
 import type { SiteScope } from "@/db/queries/scope";
@@ -13,6 +13,13 @@ import { refreshTrackStatuses } from "./track-statuses";
 const LABELS = "ABCDEFGHIJKLMNOPQRSTUVWXYZ";
 
 /** Specimen labels run A, B, C… per visit, as printed on the requisition. */
+/** A visit's specimens, the read audited as a read of the visit (`visit.biopsies.read`). */
+export async function readBiopsiesOfVisit(scope: SiteScope, visitId: string, ip: string) {
+  const [visit, result] = await Promise.all([loadVisit(db, scope, visitId), listBiopsiesForVisit(scope, visitId)]);
+  await recordAudit({ userId: scope.userId, siteId: visit.siteId, patientId: visit.patientId, action: "visit.biopsies.read", entityType: "visit", entityId: visit.id, ip });
+  return result;
+}
+
 export async function createBiopsy(scope: SiteScope, visitId: string, input: CreateBiopsyInput, ip: string) {
   return db.transaction(async (tx) => {
     const [, visit] = await Promise.all([lockPatientStatusesOfVisit(tx, scope, visitId), lockDraftVisit(tx, scope, visitId)]);

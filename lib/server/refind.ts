@@ -19,6 +19,13 @@ import { refreshTrackStatuses } from "./track-statuses";
  * For a follow-up visit: the last sighting of every earlier track (drawn as faint outlines),
  * what was marked at this visit, and suggested links for lesions drawn fresh here.
  */
+/** loadFollowUpContext for a GET: the read audited as a read of the visit (`visit.tracks.read`). */
+export async function readFollowUpContext(scope: SiteScope, visitId: string, ip: string) {
+  const [visit, context] = await Promise.all([loadVisit(db, scope, visitId), loadFollowUpContext(scope, visitId)]);
+  await recordAudit({ userId: scope.userId, siteId: visit.siteId, patientId: visit.patientId, action: "visit.tracks.read", entityType: "visit", entityId: visit.id, ip });
+  return context;
+}
+
 export async function loadFollowUpContext(scope: SiteScope, visitId: string) {
   const visit = await loadVisit(db, scope, visitId);
   const earlier = await earlierSightings(visit.patientId, visit.visitDate);

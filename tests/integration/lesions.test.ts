@@ -166,9 +166,10 @@ describe("lesions route", () => {
     expect(await lesionCount(visitId)).toBe(before);
   });
 
-  it("lets reviewers and research nurses read but not write (403)", async () => {
+  it("lets reviewers read but not write (403); the research nurse may not read a visit's identified map (403)", async () => {
     expect((await GET(req("GET", "/x", reviewer), ctx({ visitId }))).status).toBe(200);
-    expect((await GET(req("GET", "/x", nurse), ctx({ visitId }))).status).toBe(200);
+    // The research nurse's role is de-identified study data only.
+    expect((await GET(req("GET", "/x", nurse), ctx({ visitId }))).status).toBe(403);
     expect((await POST(req("POST", "/x", reviewer, body), ctx({ visitId }))).status).toBe(403);
     expect((await POST(req("POST", "/x", nurse, body), ctx({ visitId }))).status).toBe(403);
   });

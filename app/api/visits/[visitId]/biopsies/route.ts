@@ -1,12 +1,11 @@
-import { listBiopsiesForVisit } from "@/db/queries/biopsies";
-import { createBiopsy } from "@/lib/server/biopsies";
+import { createBiopsy, readBiopsiesOfVisit } from "@/lib/server/biopsies";
 import { scopeOf } from "@/lib/auth/guard";
 import { idParam, json, readJson, route } from "@/lib/http/route";
 import { createBiopsySchema } from "@/lib/validation/biopsies";
 
 type P = { visitId: string };
 
-export const GET = route<P>({ roles: ["clinician", "reviewer", "admin"] }, async ({ user, params }) => listBiopsiesForVisit(scopeOf(user), idParam(params.visitId)));
+export const GET = route<P>({ roles: ["clinician", "reviewer", "admin"] }, async ({ user, params, ip }) => readBiopsiesOfVisit(scopeOf(user), idParam(params.visitId), ip));
 
 export const POST = route<P>({ roles: ["clinician"] }, async ({ req, user, params, ip }) => {
   const visitId = idParam(params.visitId);

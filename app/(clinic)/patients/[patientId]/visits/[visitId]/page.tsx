@@ -25,7 +25,8 @@ export default async function VisitPage({ params }: { params: Promise<{ patientI
   const patient = await getPatient(scope, patientId.data);
   if (!patient) notFound();
   // The visit with its map, drawn in the first paint; the read is audited by the reading statement.
-  const map = await listLesionsForVisit(scope, visitId.data, { userId: user.id, action: "visit.read", entityType: "visit" }).catch((e) =>
+  // Narrowed to the URL's patient, so a visit of another patient answers 404 before any read is recorded.
+  const map = await listLesionsForVisit(scope, visitId.data, { userId: user.id, action: "visit.read", entityType: "visit" }, patient.id).catch((e) =>
     e instanceof AppError ? null : Promise.reject(e),
   );
   if (!map || map.visit.patientId !== patient.id) notFound();
