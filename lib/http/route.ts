@@ -6,6 +6,7 @@ import { clientIp, isHttps, originAllowed } from "@/lib/auth/request-info";
 import { withApiHeaders } from "./security-headers";
 import { AppError, errorToBody } from "@/lib/errors";
 import type { Role } from "@/lib/domain/vocab";
+import { recordAudit } from "@/lib/server/audit";
 
 export interface RouteArgs<P> {
   req: Request;
@@ -35,22 +36,39 @@ export function route<P = Record<string, never>>(opts: RouteOptions, handler: Ha
   const wrapped = async (req: Request, ctx?: { params?: Promise<P> }): Promise<Response> =>
     withApiHeaders(await answer(req, ctx), { https: isHttps(req.headers) });
   const answer = async (req: Request, ctx?: { params?: Promise<P> }): Promise<Response> => {
+    let caller: CurrentUser | null = null;
     try {
       if (MUTATING.has(req.method) && !originAllowed(req.headers)) {
         throw new AppError("forbidden", "This request did not come from a Dentate page.");
       }
-      const user = requireRole(await userFromRequest(req), opts.roles);
+      caller = await userFromRequest(req);
+      const user = requireRole(caller, opts.roles);
       const params = ((await ctx?.params) ?? {}) as P;
       const result = await handler({ req, user, params, ip: clientIp(req.headers) });
       if (result instanceof Response) return result;
       return json(result ?? { ok: true });
     } catch (err) {
       const { status, body } = errorToBody(err);
+      if ((status === 403 || status === 404) && caller) await recordRefusal(req, caller, status);
       return json(body, status);
     }
   };
   (wrapped as unknown as { dentateRoles: RouteOptions["roles"] }).dentateRoles = opts.roles;
   return wrapped;
+}
+
+/** Addresses that hold patient data or exports: a refusal there is worth an audit row. */
+const PATIENT_DATA_PATH = /^\/api\/(patients|visits|biopsies|lesions|attachments|reviews|adjudications|exports|studies\/[^/]+\/subjects)(\/|$)/;
+
+/** A signed-in caller refused (403) or not shown (404) patient data or an export: who, what, from where. */
+async function recordRefusal(req: Request, user: CurrentUser, status: number) {
+  const path = new URL(req.url).pathname;
+  if (!PATIENT_DATA_PATH.test(path)) return;
+  try {
+    await recordAudit({ userId: user.id, action: "access.refused", entityType: "route", ip: clientIp(req.headers), detail: { method: req.method, path, status } });
+  } catch (e) {
+    console.error("[dentate] could not record a refused request", e);
+  }
 }
 
 export function fieldErrors(error: z.ZodError): Record<string, string[]> {

@@ -8,6 +8,7 @@ import * as s from "@/db/schema";
 import { listLesionsForVisit } from "@/db/queries/lesions";
 import { GET as getBiopsies } from "@/app/api/visits/[visitId]/biopsies/route";
 import { GET as getTracks } from "@/app/api/visits/[visitId]/tracks/route";
+import { GET as getVisit } from "@/app/api/visits/[visitId]/route";
 import { actor, ctx, makePatient, makeSite, req, type Actor } from "../fixtures/factory";
 
 let clinician: Actor, siteId: string, patientA: string, patientB: string, visitOfA: string;
@@ -51,5 +52,24 @@ describe("the visit page's read, narrowed to the patient in the address", () => 
     const map = await listLesionsForVisit(scope(), visitOfA, audit(), patientA);
     expect(map.visit.id).toBe(visitOfA);
     expect(await rows("visit.read.page-check", visitOfA)).toHaveLength(1);
+  });
+});
+
+describe("refused attempts on patient data are recorded", () => {
+  const refusals = (userId: string) => db.select().from(s.auditEvents).where(and(eq(s.auditEvents.userId, userId), eq(s.auditEvents.action, "access.refused")));
+
+  it("records another site's clinician asking for this visit's biopsies (404), with the path", async () => {
+    const outsider = await actor("clinician", [(await makeSite("Elsewhere")).id]);
+    const res = await getBiopsies(req("GET", `/api/visits/${visitOfA}/biopsies`, outsider), ctx({ visitId: visitOfA }));
+    expect(res.status).toBe(404);
+    const [row] = await refusals(outsider.userId);
+    expect(row?.detail).toMatchObject({ method: "GET", path: `/api/visits/${visitOfA}/biopsies`, status: 404 });
+  });
+
+  it("records the research nurse refused an identified visit (403)", async () => {
+    const nurse = await actor("research_nurse", [siteId]);
+    const res = await getVisit(req("GET", `/api/visits/${visitOfA}`, nurse), ctx({ visitId: visitOfA }));
+    expect(res.status).toBe(403);
+    expect(await refusals(nurse.userId)).toHaveLength(1);
   });
 });
