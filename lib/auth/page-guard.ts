@@ -1,8 +1,10 @@
 import "server-only";
+import { headers } from "next/headers";
 import { redirect } from "next/navigation";
 import type { Role } from "@/lib/domain/vocab";
 import { currentSession, type CurrentUser } from "./guard";
 import { servableRefusal } from "./servable";
+import { clientIp } from "./request-info";
 
 /** For pages: no session → sign-in; a role that may not open the page → the no-access page. */
 export async function requirePageRole(roles: readonly Role[] | "any"): Promise<CurrentUser> {
@@ -15,3 +17,8 @@ export async function requirePageRole(roles: readonly Role[] | "any"): Promise<C
 }
 
 export const CLINICAL_ROLES = ["clinician", "reviewer", "admin"] as const satisfies readonly Role[];
+
+/** The client's address for a page's audit row, by the same trusted-proxy rule as the API. */
+export async function pageClientIp(): Promise<string> {
+  return clientIp(await headers());
+}

@@ -3,7 +3,8 @@ import { AppShell } from "@/components/shell/app-shell";
 import { ResultForm } from "@/components/biopsies/result-form";
 import { listAwaitingResults } from "@/db/queries/biopsies";
 import { scopeOf } from "@/lib/auth/guard";
-import { requirePageRole } from "@/lib/auth/page-guard";
+import { pageClientIp, requirePageRole } from "@/lib/auth/page-guard";
+import { recordAudit } from "@/lib/server/audit";
 import { GRADE_LABEL } from "@/lib/domain/vocab";
 import { describeSite } from "@/lib/geometry/conventions";
 
@@ -12,6 +13,8 @@ export const metadata = { title: "Biopsies awaiting results" };
 export default async function BiopsiesPage() {
   const user = await requirePageRole(["clinician", "admin"]);
   const rows = await listAwaitingResults(scopeOf(user));
+  // Names, MRNs and specimens of several patients: one audit row per page view, as the API records.
+  await recordAudit({ userId: user.id, ip: await pageClientIp(), action: "biopsy.worklist.read", detail: { count: rows.length, patientIds: [...new Set(rows.map((r) => r.patientId))] } });
   return (
     <AppShell user={user}>
       <h1 className="text-2xl font-bold">Biopsies awaiting results</h1>

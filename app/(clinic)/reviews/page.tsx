@@ -3,7 +3,7 @@ import { ReviewsForMe } from "@/components/review/reviews-for-me";
 import { listOpenReviewsForReviewer } from "@/db/queries/reviews";
 import { recordAudit } from "@/lib/server/audit";
 import { scopeOf } from "@/lib/auth/guard";
-import { requirePageRole } from "@/lib/auth/page-guard";
+import { requirePageRole, pageClientIp } from "@/lib/auth/page-guard";
 
 export const metadata = { title: "Reviews for me" };
 
@@ -11,7 +11,7 @@ export const metadata = { title: "Reviews for me" };
 export default async function ReviewsForMePage() {
   const user = await requirePageRole(["reviewer"]);
   const rows = await listOpenReviewsForReviewer(scopeOf(user));
-  await recordAudit({ userId: user.id, action: "reviews.viewed", detail: { patientIds: [...new Set(rows.map((r) => r.patientId))] } });
+  await recordAudit({ userId: user.id, ip: await pageClientIp(), action: "reviews.viewed", detail: { patientIds: [...new Set(rows.map((r) => r.patientId))] } });
   return (
     <AppShell user={user}>
       <h1 className="text-2xl font-bold">Reviews for me</h1>

@@ -8,7 +8,7 @@ import { listClinicians } from "@/db/queries/worklist";
 import { listWorklist } from "@/lib/server/worklist";
 import { WORKLIST_SORTS, type WorklistSort } from "@/lib/due-dates/worklist";
 import { scopeOf } from "@/lib/auth/guard";
-import { CLINICAL_ROLES, requirePageRole } from "@/lib/auth/page-guard";
+import { CLINICAL_ROLES, requirePageRole, pageClientIp } from "@/lib/auth/page-guard";
 
 export const metadata = { title: "Worklist" };
 
@@ -39,7 +39,7 @@ export default async function WorklistPage({ searchParams }: { searchParams: Pro
     listClinicians(user.siteIds),
     listSiteRules(user.siteIds),
   ]);
-  await recordAudit({ userId: user.id, action: "worklist.viewed", detail: { filters: { clinician: q.clinician, site: q.site, overdue: q.overdue }, patientIds: result.rows.map((r) => r.patientId) } });
+  await recordAudit({ userId: user.id, ip: await pageClientIp(), action: "worklist.viewed", detail: { filters: { clinician: q.clinician, site: q.site, overdue: q.overdue }, patientIds: result.rows.map((r) => r.patientId) } });
   const keep = Object.fromEntries(Object.entries({ clinician: q.clinician, site: q.site, overdue: q.overdue?.toString(), sort: q.sort, dir: q.dir }).filter(([, v]) => v)) as Record<string, string>;
   const link = (over: Record<string, string>) => `/worklist?${new URLSearchParams({ ...keep, ...over })}`;
   const sortLink = (s: WorklistSort) => link({ sort: s, dir: (q.sort ?? "due") === s && q.dir !== "desc" ? "desc" : "asc", page: "1" });

@@ -4,7 +4,7 @@ import { QualityTable } from "@/components/research/quality-table";
 import { recordAudit } from "@/lib/server/audit";
 import { loadQualityPanel } from "@/lib/server/research";
 import { scopeOf } from "@/lib/auth/guard";
-import { requirePageRole } from "@/lib/auth/page-guard";
+import { requirePageRole, pageClientIp } from "@/lib/auth/page-guard";
 import { qualityQuerySchema } from "@/lib/validation/research";
 
 export const metadata = { title: "Clinic quality" };
@@ -17,7 +17,7 @@ export default async function QualityPage({ searchParams }: { searchParams: Prom
   const parsed = qualityQuerySchema.safeParse({ year: (await searchParams).year ?? thisYear });
   const year = parsed.success ? parsed.data.year : thisYear;
   const panel = await loadQualityPanel(scopeOf(user), year);
-  await recordAudit({ userId: user.id, action: "quality.read", detail: { year } });
+  await recordAudit({ userId: user.id, ip: await pageClientIp(), action: "quality.read", detail: { year } });
   return (
     <AppShell user={user}>
       <h1 className="text-2xl font-bold">Clinic quality, {year}</h1>

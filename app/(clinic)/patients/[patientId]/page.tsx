@@ -3,7 +3,7 @@ import { notFound } from "next/navigation";
 import { AppShell } from "@/components/shell/app-shell";
 import { readPatientRecord } from "@/lib/server/patient-record";
 import { scopeOf } from "@/lib/auth/guard";
-import { CLINICAL_ROLES, requirePageRole } from "@/lib/auth/page-guard";
+import { CLINICAL_ROLES, pageClientIp, requirePageRole } from "@/lib/auth/page-guard";
 import { uuidParam } from "@/lib/http/route";
 import { NewVisitForm } from "@/components/patient/new-visit-form";
 import { FollowupBanner } from "@/components/due-dates/overdue-flag";
@@ -21,7 +21,7 @@ export default async function PatientPage({ params }: { params: Promise<{ patien
   const id = uuidParam.safeParse((await params).patientId);
   if (!id.success) notFound();
   const scope = scopeOf(user);
-  const record = await readPatientRecord(scope, id.data);
+  const record = await readPatientRecord(scope, id.data, await pageClientIp());
   if (!record) notFound();
   const { patient, visits: visitList, due, consents, studies } = record;
   return (

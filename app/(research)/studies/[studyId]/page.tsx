@@ -13,7 +13,7 @@ import { getStudy, listEnrolments } from "@/db/queries/research/studies";
 import { listSitesByIds } from "@/db/queries/sites";
 import { StudyForm } from "@/components/research/study-form";
 import { scopeOf } from "@/lib/auth/guard";
-import { requirePageRole } from "@/lib/auth/page-guard";
+import { requirePageRole, pageClientIp } from "@/lib/auth/page-guard";
 import { uuidParam } from "@/lib/http/route";
 import { MIN_AT_RISK_FOR_RATE } from "@/lib/stats/study-figures";
 
@@ -42,7 +42,7 @@ export default async function StudyPage({ params }: { params: Promise<{ studyId:
     loadRegistryDashboard(study.id, siteIds),
     listSitesByIds(user.siteIds),
   ]);
-  await recordAudit({ userId: user.id, action: "study.read", entityType: "study", entityId: study.id });
+  await recordAudit({ userId: user.id, ip: await pageClientIp(), action: "study.read", entityType: "study", entityId: study.id });
   const today = new Date().toISOString().slice(0, 10);
   const r = dash.recurrence;
   const stat = (label: string, value: string | number, note?: string) => (

@@ -6,7 +6,7 @@ import { getPatient } from "@/db/queries/patients";
 import { listReviewersForSite } from "@/db/queries/reviews";
 import { recordAudit } from "@/lib/server/audit";
 import { scopeOf } from "@/lib/auth/guard";
-import { CLINICAL_ROLES, requirePageRole } from "@/lib/auth/page-guard";
+import { CLINICAL_ROLES, requirePageRole, pageClientIp } from "@/lib/auth/page-guard";
 import { uuidParam } from "@/lib/http/route";
 
 export const metadata = { title: "Compare visits" };
@@ -23,7 +23,7 @@ export default async function ComparePage({ params, searchParams }: { params: Pr
   if (!id.success) notFound();
   const patient = await getPatient(scopeOf(user), id.data);
   if (!patient) notFound();
-  await recordAudit({ userId: user.id, siteId: patient.siteId, patientId: patient.id, action: "patient.read" });
+  await recordAudit({ userId: user.id, ip: await pageClientIp(), siteId: patient.siteId, patientId: patient.id, action: "patient.read" });
   const reviewers = await listReviewersForSite(patient.siteId);
   const q = await searchParams;
   return (

@@ -5,7 +5,7 @@ import { PatientForm } from "@/components/patient/patient-form";
 import { cliniciansBySite, getPatient } from "@/db/queries/patients";
 import { listSitesByIds } from "@/db/queries/sites";
 import { scopeOf } from "@/lib/auth/guard";
-import { requirePageRole } from "@/lib/auth/page-guard";
+import { requirePageRole, pageClientIp } from "@/lib/auth/page-guard";
 import { uuidParam } from "@/lib/http/route";
 import { recordAudit } from "@/lib/server/audit";
 
@@ -17,7 +17,7 @@ export default async function EditPatientPage({ params }: { params: Promise<{ pa
   if (!id.success) notFound();
   const patient = await getPatient(scopeOf(user), id.data);
   if (!patient) notFound();
-  await recordAudit({ userId: user.id, siteId: patient.siteId, patientId: patient.id, action: "patient.read" });
+  await recordAudit({ userId: user.id, ip: await pageClientIp(), siteId: patient.siteId, patientId: patient.id, action: "patient.read" });
   const [sites, clinicians] = await Promise.all([listSitesByIds([patient.siteId]), cliniciansBySite([patient.siteId])]);
   return (
     <AppShell user={user}>

@@ -9,7 +9,7 @@ import { DiscardVisit } from "@/components/visit/discard-visit";
 import { getPatient } from "@/db/queries/patients";
 import { listLesionsForVisit } from "@/db/queries/lesions";
 import { scopeOf } from "@/lib/auth/guard";
-import { CLINICAL_ROLES, requirePageRole } from "@/lib/auth/page-guard";
+import { CLINICAL_ROLES, pageClientIp, requirePageRole } from "@/lib/auth/page-guard";
 import { AppError } from "@/lib/errors";
 import { uuidParam } from "@/lib/http/route";
 
@@ -26,7 +26,7 @@ export default async function VisitPage({ params }: { params: Promise<{ patientI
   if (!patient) notFound();
   // The visit with its map, drawn in the first paint; the read is audited by the reading statement.
   // Narrowed to the URL's patient, so a visit of another patient answers 404 before any read is recorded.
-  const map = await listLesionsForVisit(scope, visitId.data, { userId: user.id, action: "visit.read", entityType: "visit" }, patient.id).catch((e) =>
+  const map = await listLesionsForVisit(scope, visitId.data, { userId: user.id, action: "visit.read", entityType: "visit", ip: await pageClientIp() }, patient.id).catch((e) =>
     e instanceof AppError ? null : Promise.reject(e),
   );
   if (!map || map.visit.patientId !== patient.id) notFound();
