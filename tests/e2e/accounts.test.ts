@@ -82,8 +82,8 @@ describe("accounts by invitation, worklist and audit trail", () => {
     await signIn(page, "admin@dentate.example");
     await page.goto(`${BASE_URL}/audit?action=sign_in.`);
     await page.getByRole("heading", { name: "Audit trail" }).waitFor();
-    expect(await page.getByRole("cell", { name: "sign_in.failed" }).count()).toBeGreaterThan(0);
-    expect(await page.getByRole("cell", { name: "sign_in.succeeded" }).count()).toBeGreaterThan(0);
+    expect(await page.getByRole("cell", { name: "Sign-in failed" }).count()).toBeGreaterThan(0);
+    expect(await page.getByRole("cell", { name: "Sign-in succeeded" }).count()).toBeGreaterThan(0);
     await page.goto(`${BASE_URL}/audit`);
     await screenshot(page, "audit");
     await page.close();

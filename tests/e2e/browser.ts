@@ -6,6 +6,7 @@ import path from "node:path";
 import { chromium, type BrowserContext, type Page } from "playwright-core";
 import { radiusOfCm, VIEW } from "@/lib/map/geometry";
 import { overlapH } from "@/lib/geometry";
+import { decodeTimeline, type TimelineWire } from "@/lib/timeline/wire";
 
 export const BASE_URL = process.env.DENTATE_BASE_URL ?? "http://127.0.0.1:3100";
 export const DEMO_PASSWORD = "Demo-pass-2026";
@@ -41,6 +42,11 @@ export async function api<T>(page: Page, method: "GET" | "POST", urlPath: string
     : await page.request.post(`${BASE_URL}${urlPath}`, { data: body ?? {}, headers: { origin: BASE_URL } });
   if (!res.ok()) throw new Error(`${method} ${urlPath} → ${res.status()} ${await res.text()}`);
   return (await res.json()) as T;
+}
+
+/** A patient's timeline as the screens see it: the API sends columns (lib/timeline/wire), decoded here. */
+export async function timelineOf<T>(page: Page, patientId: string): Promise<T> {
+  return decodeTimeline<T>(await api<TimelineWire>(page, "GET", `/api/patients/${patientId}/timeline`));
 }
 
 export type Spot = { clockStartH: number; clockEndH: number; distanceStartCm: number; distanceEndCm: number };

@@ -4,7 +4,7 @@
 // regressed and new. The history is built through the API from the page's own session.
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { BrowserContext } from "playwright-core";
-import { api, BASE_URL, freeSpots, launch, mapPoint, screenshot, signIn, type Spot } from "./browser";
+import { api, BASE_URL, freeSpots, timelineOf, launch, mapPoint, screenshot, signIn, type Spot } from "./browser";
 
 let browser: BrowserContext;
 beforeAll(async () => {
@@ -31,7 +31,7 @@ describe("follow-up visit on a touch tablet", () => {
     const { rows } = await api<{ rows: { id: string }[] }>(page, "GET", "/api/patients");
     let chosen: { id: string; spots: Spot[]; lastDate: string; tracks: number } | null = null;
     for (const p of rows.slice(0, 12)) {
-      const t = await api<{ visits: { visitDate: string }[]; lesions: Spot[]; tracks: unknown[] }>(page, "GET", `/api/patients/${p.id}/timeline`);
+      const t = await timelineOf<{ visits: { visitDate: string }[]; lesions: Spot[]; tracks: unknown[] }>(page, p.id);
       const spots = freeSpots(t.lesions);
       if (spots.length >= 4 && (!chosen || t.tracks.length < chosen.tracks)) chosen = { id: p.id, spots, lastDate: t.visits.map((v) => v.visitDate).sort().at(-1) ?? "2026-01-01", tracks: t.tracks.length };
     }
@@ -98,7 +98,7 @@ describe("follow-up visit on a touch tablet", () => {
     const fresh = lesions.find((l) => ![a.trackId, b.trackId].includes(l.trackId))!;
     expect(lesions.filter((l) => l.trackId === a.trackId)).toHaveLength(1);
     expect(lesions.filter((l) => l.trackId === b.trackId)).toHaveLength(1);
-    const timeline = await api<{ statuses: { trackId: string; visitId: string; status: string }[] }>(page, "GET", `/api/patients/${patientId}/timeline`);
+    const timeline = await timelineOf<{ statuses: { trackId: string; visitId: string; status: string }[] }>(page, patientId);
     const at2 = new Map(timeline.statuses.filter((s) => s.visitId === v2.id).map((s) => [s.trackId, s.status]));
     expect(at2.get(a.trackId)).toBe("persistent");
     expect(at2.get(b.trackId)).toBe("persistent");

@@ -4,7 +4,7 @@
 // (the map editor's follow-up gestures are tested with the editor).
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { BrowserContext, Page } from "playwright-core";
-import { api, BASE_URL, freeSpots, launch, screenshot, signIn, type Spot } from "./browser";
+import { api, BASE_URL, freeSpots, timelineOf, launch, screenshot, signIn, type Spot } from "./browser";
 
 let browser: BrowserContext;
 beforeAll(async () => {
@@ -36,7 +36,7 @@ describe("follow-up tracking, compare and review", () => {
     const { rows } = await api<{ rows: { id: string }[] }>(page, "GET", "/api/patients");
     let chosen: { id: string; spots: Spot[]; lastDate: string } | null = null;
     for (const p of rows) {
-      const t = await api<{ visits: { visitDate: string }[]; lesions: Spot[] }>(page, "GET", `/api/patients/${p.id}/timeline`);
+      const t = await timelineOf<{ visits: { visitDate: string }[]; lesions: Spot[] }>(page, p.id);
       const spots = freeSpots(t.lesions);
       if (spots.length >= 4) {
         chosen = { id: p.id, spots, lastDate: t.visits.map((v) => v.visitDate).sort().at(-1) ?? "2026-01-01" };

@@ -85,7 +85,7 @@ describe("the visit record panels", () => {
     await page.getByLabel("New addendum").fill("Histology requested by phone.");
     await page.getByRole("button", { name: "Add addendum" }).click();
     await page.getByText(/Addendum 1 · Dr /).waitFor();
-    await expect.poll(() => page.locator("ol li").last().innerText()).toContain("Histology requested by phone.");
+    await expect.poll(() => page.getByText("Histology requested by phone.").count()).toBeGreaterThan(0);
     await screenshot(page, "visit-record-signed");
   });
 });
