@@ -17,6 +17,12 @@ afterAll(async () => {
 const POLL = { timeout: 20_000, interval: 250 };
 type Made = { id: string; trackId: string; trackLabel: string; label: string };
 const addDays = (iso: string, days: number) => new Date(Date.parse(`${iso}T00:00:00Z`) + days * 86_400_000).toISOString().slice(0, 10);
+/** Two visit dates after the patient's last one and not after today (dates of care may not lie ahead): halfway, and today. */
+const followUpDates = (lastDate: string): [string, string] => {
+  const today = new Date().toISOString().slice(0, 10);
+  const gap = Math.round((Date.parse(`${today}T00:00:00Z`) - Date.parse(`${lastDate}T00:00:00Z`)) / 86_400_000);
+  return [addDays(lastDate, Math.max(1, Math.floor(gap / 2))), today];
+};
 
 
 
@@ -39,7 +45,7 @@ describe("follow-up visit on a touch tablet", () => {
     const { id: patientId, spots } = chosen!;
 
     // Visit 1, after every visit the patient already has: three lesions, signed.
-    const { visit: v1 } = await api<{ visit: { id: string } }>(page, "POST", `/api/patients/${patientId}/visits`, { visitDate: addDays(chosen!.lastDate, 120), patientPosition: "lithotomy" });
+    const { visit: v1 } = await api<{ visit: { id: string } }>(page, "POST", `/api/patients/${patientId}/visits`, { visitDate: followUpDates(chosen!.lastDate)[0], patientPosition: "lithotomy" });
     const grades = ["hsil", "lsil", "hsil"] as const;
     const first: Made[] = [];
     for (let i = 0; i < 3; i++) first.push((await api<{ lesion: Made }>(page, "POST", `/api/visits/${v1.id}/lesions`, { ...spots[i], grade: grades[i] })).lesion);
@@ -47,7 +53,7 @@ describe("follow-up visit on a touch tablet", () => {
     const [a, b, c] = first as [Made, Made, Made];
 
     // Visit 2, opened in the browser.
-    const { visit: v2 } = await api<{ visit: { id: string } }>(page, "POST", `/api/patients/${patientId}/visits`, { visitDate: addDays(chosen!.lastDate, 300), patientPosition: "lithotomy" });
+    const { visit: v2 } = await api<{ visit: { id: string } }>(page, "POST", `/api/patients/${patientId}/visits`, { visitDate: followUpDates(chosen!.lastDate)[1], patientPosition: "lithotomy" });
     await page.goto(`${BASE_URL}/patients/${patientId}/visits/${v2.id}`);
     await page.getByRole("radio", { name: "Lithotomy" }).click();
     const look = (label: string) => page.getByRole("list", { name: "Earlier tracks" }).locator(`[data-look-again="${label}"]`);

@@ -23,6 +23,12 @@ async function freshPage(email: string): Promise<Page> {
 
 
 const addDays = (iso: string, days: number) => new Date(Date.parse(`${iso}T00:00:00Z`) + days * 86_400_000).toISOString().slice(0, 10);
+/** Two visit dates after the patient's last one and not after today (dates of care may not lie ahead): halfway, and today. */
+const followUpDates = (lastDate: string): [string, string] => {
+  const today = new Date().toISOString().slice(0, 10);
+  const gap = Math.round((Date.parse(`${today}T00:00:00Z`) - Date.parse(`${lastDate}T00:00:00Z`)) / 86_400_000);
+  return [addDays(lastDate, Math.max(1, Math.floor(gap / 2))), today];
+};
 
 
 const state = {} as { patientId: string; earlierId: string; laterId: string; trackLabels: Record<string, string>; refound: string[]; lost: string; fresh: string; disputed: string };
@@ -48,7 +54,7 @@ describe("follow-up tracking, compare and review", () => {
     state.patientId = patientId;
 
     // The earlier visit: three lesions, signed.
-    const { visit: earlier } = await api<{ visit: { id: string } }>(page, "POST", `/api/patients/${patientId}/visits`, { visitDate: addDays(chosen!.lastDate, 120), patientPosition: "lithotomy" });
+    const { visit: earlier } = await api<{ visit: { id: string } }>(page, "POST", `/api/patients/${patientId}/visits`, { visitDate: followUpDates(chosen!.lastDate)[0], patientPosition: "lithotomy" });
     state.earlierId = earlier.id;
     const grades = ["hsil", "lsil", "hsil"] as const;
     const first: { id: string; trackId: string; trackLabel: string }[] = [];
@@ -56,7 +62,7 @@ describe("follow-up tracking, compare and review", () => {
     await api(page, "POST", `/api/visits/${earlier.id}/sign`);
 
     // The follow-up visit, opened in the browser.
-    const { visit: later } = await api<{ visit: { id: string } }>(page, "POST", `/api/patients/${patientId}/visits`, { visitDate: addDays(chosen!.lastDate, 300), patientPosition: "lithotomy" });
+    const { visit: later } = await api<{ visit: { id: string } }>(page, "POST", `/api/patients/${patientId}/visits`, { visitDate: followUpDates(chosen!.lastDate)[1], patientPosition: "lithotomy" });
     state.laterId = later.id;
     const opened = await page.goto(`${BASE_URL}/patients/${patientId}/visits/${later.id}`);
     expect(opened?.status()).toBe(200);
