@@ -99,7 +99,8 @@ describe("canal map on a touch tablet", () => {
     expect((tapped.distanceStartCm + tapped.distanceEndCm) / 2).toBeCloseTo(2, 6);
     // The perianal tap is stored with a negative distance (outside the verge).
     expect(saved.some((l) => l.distanceEndCm <= 0 || l.distanceStartCm < 0)).toBe(true);
-    expect(await page.getByRole("button", { name: /HSIL, 11 to 1 o'clock/ }).count()).toBe(1);
+    // The names follow the position chosen above once the map has re-drawn: wait for it.
+    await expect.poll(() => page.getByRole("button", { name: /HSIL, 11 to 1 o'clock/ }).count(), POLL).toBe(1);
     await page.close();
   });
 

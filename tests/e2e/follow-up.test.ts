@@ -58,7 +58,7 @@ describe("follow-up visit on a touch tablet", () => {
     await page.getByRole("radio", { name: "Lithotomy" }).click();
     const look = (label: string) => page.getByRole("list", { name: "Earlier tracks" }).locator(`[data-look-again="${label}"]`);
     for (const m of first) await expect.poll(() => look(m.trackLabel).count(), POLL).toBe(1);
-    expect(await page.locator(`[data-ghost-label="${a.trackLabel}"]`).count()).toBe(1);
+    await expect.poll(() => page.locator(`[data-ghost-label="${a.trackLabel}"]`).count(), POLL).toBe(1);
     await screenshot(page, "follow-up-ghosts");
 
     // a: tap its outline on the map, then Found — a lesion is drawn there and linked in one go.
