@@ -4,7 +4,8 @@
 // regressed and new. The history is built through the API from the page's own session.
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { BrowserContext } from "playwright-core";
-import { api, BASE_URL, freeSpots, timelineOf, launch, mapPoint, screenshot, signIn, type Spot } from "./browser";
+import path from "node:path";
+import { api, BASE_URL, freeSpots, timelineOf, launch, mapPoint, screenshot, signIn, SHOTS, type Spot } from "./browser";
 
 let browser: BrowserContext;
 beforeAll(async () => {
@@ -60,6 +61,8 @@ describe("follow-up visit on a touch tablet", () => {
     for (const m of first) await expect.poll(() => look(m.trackLabel).count(), POLL).toBe(1);
     await expect.poll(() => page.locator(`[data-ghost-label="${a.trackLabel}"]`).count(), POLL).toBe(1);
     await screenshot(page, "follow-up-ghosts");
+    // The README's legend picture is this element (copy tests/e2e/screenshots/map-legend.png to public/docs/).
+    await page.getByRole("region", { name: "Map legend" }).screenshot({ path: path.join(SHOTS, "map-legend.png") });
 
     // a: tap its outline on the map, then Found — a lesion is drawn there and linked in one go.
     const hit = (await page.locator(`[data-ghost-hit="${a.trackId}"]`).boundingBox())!;
