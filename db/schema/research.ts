@@ -96,3 +96,19 @@ export const mailOutbox = pgTable(
   },
   (t) => [index("mail_outbox_pending_idx").on(t.status, t.nextAttemptAt)],
 );
+
+/**
+ * The study dashboard's figures per study and site, worked out by the exports' own statements
+ * (lib/server/study-figures.ts) and kept here so the dashboard answers in milliseconds at any
+ * registry size. `computedAt` is shown on screen; a load after the documented age starts a refresh.
+ */
+export const studyFigures = pgTable(
+  "study_figures",
+  {
+    studyId: uuid("study_id").notNull().references(() => studies.id, { onDelete: "cascade" }),
+    siteId: uuid("site_id").notNull().references(() => sites.id),
+    computedAt: timestamp("computed_at", { withTimezone: true }).notNull(),
+    figures: jsonb("figures").notNull(),
+  },
+  (t) => [primaryKey({ columns: [t.studyId, t.siteId] })],
+);

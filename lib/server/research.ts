@@ -1,13 +1,13 @@
 import "server-only";
 // Research figures: the clinic-quality panel (IANS 2016 metrics, lib/quality) and the study
 // dashboard (lib/stats), worked out from what their statements read.
-import { readDashboardRows } from "@/db/queries/research/dashboard";
 import { loadQualityVisits } from "@/db/queries/research/quality";
 import type { SiteScope } from "@/db/queries/scope";
 import { GRADES, type Grade } from "@/lib/domain/vocab";
 import { qualityMetrics, type Metric } from "@/lib/quality";
 import { kaplanMeier, medianSurvival, numbersAtRisk, type SurvivalStep } from "@/lib/stats";
 import { rateAt, withEmptyQuarters } from "@/lib/stats/study-figures";
+import { loadStudyFigures, maxAgeSeconds, type SiteFigures } from "./study-figures";
 
 export interface QualityGroup {
   label: string;
@@ -44,6 +44,10 @@ export async function loadQualityPanel(scope: SiteScope, year: number, cytologyW
 }
 
 export interface RegistryDashboard {
+  /** When the figures were worked out (ISO); loads after maxAgeMinutes start a refresh. */
+  asOf: string;
+  refreshing: boolean;
+  maxAgeMinutes: number;
   patients: number;
   visits: number;
   lesions: number;
@@ -60,33 +64,34 @@ export interface RegistryDashboard {
 }
 
 export async function loadRegistryDashboard(studyId: string, siteIds: string[]): Promise<RegistryDashboard> {
-  const { totals, gradeRows, lesionClear, outcomes, patientFollow } = await readDashboardRows(studyId, siteIds);
+  const { sites, asOf, refreshing } = await loadStudyFigures(studyId, siteIds);
+  const sum = (f: (s: SiteFigures) => number) => sites.reduce((n, s) => n + f(s), 0);
   const quarters = new Map<string, { quarter: string } & Record<Grade, number>>();
-  for (const r of gradeRows) {
+  for (const r of sites.flatMap((s) => s.grades)) {
     const row = quarters.get(r.quarter) ?? ({ quarter: r.quarter, ...Object.fromEntries(GRADES.map((g) => [g, 0])) } as { quarter: string } & Record<Grade, number>);
-    row[r.grade] = r.n;
+    row[r.grade] += r.n;
     quarters.set(r.quarter, row);
   }
-  const items = outcomes
-    .filter((o) => o.recurrence !== null && o.days_clearance_to_recurrence_or_censor !== null)
-    .map((o) => ({ time: Number(o.days_clearance_to_recurrence_or_censor), event: Number(o.recurrence) === 1 }));
+  const items = sites.flatMap((s) => s.km).map(([time, event]) => ({ time, event: event === 1 }));
   const steps = kaplanMeier(items);
   const maxTime = items.reduce((m, i) => Math.max(m, i.time), 0);
   const tickStep = maxTime > 720 ? 180 : 90;
   const ticks = Array.from({ length: Math.floor(maxTime / tickStep) + 1 }, (_, i) => i * tickStep);
+  const filled = withEmptyQuarters([...quarters.values()].sort((a, b) => a.quarter.localeCompare(b.quarter)), (quarter) => ({ quarter, ...Object.fromEntries(GRADES.map((g) => [g, 0])) }) as { quarter: string } & Record<Grade, number>);
   return {
-    patients: totals.patients,
-    visits: totals.visits,
-    lesions: totals.lesions,
-    ...(() => {
-      const filled = withEmptyQuarters([...quarters.values()].sort((a, b) => a.quarter.localeCompare(b.quarter)), (quarter) => ({ quarter, ...Object.fromEntries(GRADES.map((g) => [g, 0])) }) as { quarter: string } & Record<Grade, number>);
-      return { gradeByQuarter: filled.rows, emptyQuarters: filled.empty };
-    })(),
+    asOf: asOf.toISOString(),
+    refreshing,
+    maxAgeMinutes: Math.round(maxAgeSeconds() / 60),
+    patients: sum((s) => s.patients),
+    visits: sum((s) => s.visits),
+    lesions: sum((s) => s.lesions),
+    gradeByQuarter: filled.rows,
+    emptyQuarters: filled.empty,
     clearance: {
-      lesionsTreatedFollowed: lesionClear.followed,
-      lesionsCleared: lesionClear.cleared,
-      patientsTreatedFollowed: patientFollow.followed,
-      patientsCleared: outcomes.filter((o) => o.days_treatment_to_clearance !== null).length,
+      lesionsTreatedFollowed: sum((s) => s.lesionsTreatedFollowed),
+      lesionsCleared: sum((s) => s.lesionsCleared),
+      patientsTreatedFollowed: sum((s) => s.patientsTreatedFollowed),
+      patientsCleared: sum((s) => s.patientsCleared),
     },
     recurrence: {
       steps,

@@ -1,4 +1,5 @@
 import { describe, expect, it } from "vitest";
+import fc from "fast-check";
 import { kaplanMeier, medianSurvival, numbersAtRisk, survivalAt } from "./kaplan-meier";
 
 // 6-mercaptopurine arm of the leukaemia remission trial (Freireich EJ et al., Blood 1963; the data
@@ -93,5 +94,36 @@ describe("kaplanMeier edge cases", () => {
     // Convention as stated in Kleinbaum & Klein (from memory): 2 at risk at t = 4, one event → 1/2.
     const steps = kaplanMeier([{ time: 4, event: true }, { time: 4, event: false }]);
     expect(steps[1]).toMatchObject({ time: 4, atRisk: 2, events: 1, censored: 1, survival: 0.5 });
+  });
+});
+
+describe("kaplanMeier on many cases", () => {
+  // The product-limit definition read literally (Kaplan & Meier, JASA 1958): at each distinct event
+  // time t, n = cases with time >= t, d = events at t, S = Π (n − d) / n. The sweep must agree with
+  // it on any input, ties of events and censorings at one time included.
+  const literal = (items: { time: number; event: boolean }[]) => {
+    const times = [...new Set(items.filter((i) => i.event && i.time > 0).map((i) => i.time))].sort((a, b) => a - b);
+    let s = 1;
+    return [0, ...times].map((t, k, all) => {
+      const n = items.filter((i) => i.time >= t).length;
+      const d = items.filter((i) => i.event && i.time === t).length;
+      if (d) s *= (n - d) / n;
+      const next = all[k + 1] ?? Infinity;
+      return { time: t, atRisk: n, events: d, censored: items.filter((i) => !i.event && i.time >= t && i.time < next).length, survival: s };
+    });
+  };
+  it("agrees with the definition read literally, step by step", () => {
+    fc.assert(
+      fc.property(fc.array(fc.record({ time: fc.integer({ min: 0, max: 40 }), event: fc.boolean() }), { minLength: 1, maxLength: 60 }), (items) => {
+        const got = kaplanMeier(items).map(({ time, atRisk, events, censored, survival }) => ({ time, atRisk, events, censored, survival }));
+        const want = literal(items);
+        expect(got.length).toBe(want.length);
+        got.forEach((g, i) => {
+          expect({ ...g, survival: 0 }).toEqual({ ...want[i]!, survival: 0 });
+          expect(g.survival).toBeCloseTo(want[i]!.survival, 12);
+        });
+      }),
+      { numRuns: 300 },
+    );
   });
 });

@@ -36,15 +36,25 @@ export function kaplanMeier(items: readonly SurvivalItem[]): SurvivalStep[] {
   const eventTimes = [...new Set(sorted.filter((i) => i.event && i.time > 0).map((i) => i.time))];
   const stepTimes = [0, ...eventTimes];
 
+  // One sweep over the sorted items (a registry has tens of thousands): at each step time t the
+  // items before index p ended earlier, so n − p are at risk; the items up to the next step time
+  // are this step's events (at t) and censorings.
   const steps: SurvivalStep[] = [];
+  const n = sorted.length;
   let survival = 1;
   let greenwoodSum = 0;
+  let p = 0;
   for (let k = 0; k < stepTimes.length; k++) {
     const t = stepTimes[k];
     const next = k + 1 < stepTimes.length ? stepTimes[k + 1] : Infinity;
-    const atRisk = sorted.filter((i) => i.time >= t).length;
-    const events = sorted.filter((i) => i.event && i.time === t).length;
-    const censoredTimes = sorted.filter((i) => !i.event && i.time >= t && i.time < next).map((i) => i.time);
+    while (p < n && sorted[p].time < t) p++;
+    const atRisk = n - p;
+    let events = 0;
+    const censoredTimes: number[] = [];
+    for (; p < n && sorted[p].time < next; p++) {
+      if (!sorted[p].event) censoredTimes.push(sorted[p].time);
+      else if (sorted[p].time === t) events++;
+    }
     if (events > 0) {
       survival *= (atRisk - events) / atRisk;
       greenwoodSum += atRisk > events ? events / (atRisk * (atRisk - events)) : NaN;

@@ -1,7 +1,8 @@
 // The study dashboard's figures must be the figures a statistician gets from the exports of the
 // same study: here every dashboard figure is worked out again from the three CSV exports (counts,
-// lesions, outcomes) as a reader of those files would, and compared. A signed visit added
-// afterwards shows on the dashboard at once (the dashboard reads the records themselves).
+// lesions, outcomes) as a reader of those files would, and compared. The dashboard keeps its figures
+// (table study_figures) with their time; a signed visit added afterwards shows once a load finds them
+// older than the documented age (lib/server/study-figures.ts) and the refresh it starts has run.
 import { beforeAll, describe, expect, it } from "vitest";
 import { parse } from "csv-parse/sync";
 import { and, eq } from "drizzle-orm";
@@ -9,6 +10,7 @@ import { db } from "@/db/client";
 import * as s from "@/db/schema";
 import { refreshTrackStatuses } from "@/lib/server/track-statuses";
 import { loadRegistryDashboard } from "@/lib/server/research";
+import { settleStudyFigureRefreshes } from "@/lib/server/study-figures";
 import { GET as getCsv } from "@/app/api/exports/[dataset]/route";
 import { GRADES, type Grade, type Histology } from "@/lib/domain/vocab";
 import { decideGrade } from "@/lib/tracking/effective-grade";
@@ -111,12 +113,28 @@ describe("study dashboard against the exports", () => {
     expect(dash.recurrence.events).toBeGreaterThan(0);
   });
 
-  it("a newly signed visit shows on the dashboard at once", async () => {
+  it("a newly signed visit shows after a load finds the figures over their age, and the page says when they are from", async () => {
     const before = await loadRegistryDashboard(studyId, [siteId]);
     const [e] = await db.select({ patientId: s.enrolments.patientId }).from(s.enrolments).where(and(eq(s.enrolments.studyId, studyId), eq(s.enrolments.studySubjectId, "FIG-3")));
     await db.insert(s.visits).values({ patientId: e!.patientId, siteId, visitDate: "2024-07-20", examinerId: clinician.userId, status: "signed", signedAt: new Date() });
+    // Within the age (default 5 minutes): the stored figures, with their time, no refresh.
+    const stored = await loadRegistryDashboard(studyId, [siteId]);
+    expect(stored.visits).toBe(before.visits);
+    expect(stored.asOf).toBe(before.asOf);
+    expect(stored.refreshing).toBe(false);
+    process.env.DENTATE_STUDY_FIGURES_MAX_AGE_S = "0";
+    try {
+      const stale = await loadRegistryDashboard(studyId, [siteId]);
+      expect(stale.refreshing).toBe(true);
+      expect(stale.visits).toBe(before.visits); // served at once, refreshed behind it
+      await settleStudyFigureRefreshes();
+    } finally {
+      delete process.env.DENTATE_STUDY_FIGURES_MAX_AGE_S;
+    }
     const after = await loadRegistryDashboard(studyId, [siteId]);
     expect(after.visits).toBe(before.visits + 1);
     expect(after.clearance.patientsTreatedFollowed).toBe(before.clearance.patientsTreatedFollowed + 1);
+    expect(Date.parse(after.asOf)).toBeGreaterThan(Date.parse(before.asOf));
   });
+
 });

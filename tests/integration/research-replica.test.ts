@@ -12,6 +12,7 @@ import * as s from "@/db/schema";
 import { endReplica } from "@/db/replica";
 import { loadQualityVisits } from "@/db/queries/research/quality";
 import { loadRegistryDashboard } from "@/lib/server/research";
+import { refreshStudyFigures } from "@/lib/server/study-figures";
 import { GET as getCsv } from "@/app/api/exports/[dataset]/route";
 import { GET as subjectFhir } from "@/app/api/studies/[studyId]/subjects/[subjectId]/fhir/route";
 import { actor, ctx, makePatient, makeSite, req, type Actor } from "../fixtures/factory";
@@ -89,6 +90,7 @@ describe("research reads with DATABASE_REPLICA_URL set", () => {
     const [{ n } = { n: 0 }] = await db.select({ n: dsql<number>`count(*)::int` }).from(s.visits).where(eq(s.visits.patientId, patientId));
     expect(n).toBe(2); // the primary has the new visit
     expect(await exportedVisits()).toBe(1); // the replica's state: only the first
+    // The dashboard's first load works its figures out (from the replica) and stores them on the primary.
     expect((await loadRegistryDashboard(studyId, [siteId])).visits).toBe(1);
     expect(await loadQualityVisits({ userId: nurse.userId, siteIds: [siteId] }, 2024)).toHaveLength(1); // the quality panel's rows
     const fhir = await subjectFhir(req("GET", `/api/studies/${studyId}/subjects/REP-001/fhir`, nurse), ctx({ studyId, subjectId: "REP-001" }));
@@ -104,6 +106,7 @@ describe("research reads with DATABASE_REPLICA_URL set", () => {
     await standby`SELECT pg_wal_replay_resume()`;
     await until("the replica has replayed the second visit", async () => (await replicaVisits()) === 2);
     expect(await exportedVisits()).toBe(2);
+    await refreshStudyFigures(studyId, [siteId]); // what a load over the figures' age starts
     expect((await loadRegistryDashboard(studyId, [siteId])).visits).toBe(2);
     expect(await loadQualityVisits({ userId: nurse.userId, siteIds: [siteId] }, 2024)).toHaveLength(2);
   });

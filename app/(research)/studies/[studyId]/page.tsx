@@ -66,6 +66,10 @@ export default async function StudyPage({ params }: { params: Promise<{ studyId:
       <section aria-labelledby="registry" className="mt-6">
         <h2 id="registry" className="text-lg font-bold">Registry</h2>
         <p className="text-sm text-ink-soft">Signed visits of enrolled patients, up to any withdrawal; the same figures as the exports.</p>
+        <p className="text-sm text-ink-soft" data-figures-as-of={dash.asOf}>
+          Figures as of {dash.asOf.slice(0, 10)} {dash.asOf.slice(11, 16)} UTC; they are worked out again when a page load finds them over {dash.maxAgeMinutes} minutes old.
+          {dash.refreshing ? " Newer figures are being worked out now: reload in a minute." : ""}
+        </p>
         <div className="mt-3 grid grid-cols-2 gap-3 sm:grid-cols-4">
           {stat("Patients taking part", dash.patients)}
           {stat("Visits", dash.visits)}

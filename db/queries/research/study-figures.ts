@@ -1,0 +1,34 @@
+import "server-only";
+import { and, eq, inArray, lt, sql as dsql } from "drizzle-orm";
+import { db } from "../../client";
+import { studyFigures } from "../../schema";
+
+// Stored study-dashboard figures (table study_figures). They are read from and written to the
+// primary: the rows are small, and a paused or lagging replica must not hide a refresh just made.
+
+export interface StoredFigures<F> {
+  siteId: string;
+  computedAt: Date;
+  figures: F;
+}
+
+export async function readStudyFigures<F>(studyId: string, siteIds: string[]): Promise<StoredFigures<F>[]> {
+  if (!siteIds.length) return [];
+  const rows = await db
+    .select({ siteId: studyFigures.siteId, computedAt: studyFigures.computedAt, figures: studyFigures.figures })
+    .from(studyFigures)
+    .where(and(eq(studyFigures.studyId, studyId), inArray(studyFigures.siteId, siteIds)));
+  return rows as StoredFigures<F>[];
+}
+
+/** Keeps the newer of two refreshes that raced: a slow, older one never overwrites a newer one. */
+export async function saveStudyFigures<F>(studyId: string, siteId: string, computedAt: Date, figures: F): Promise<void> {
+  await db
+    .insert(studyFigures)
+    .values({ studyId, siteId, computedAt, figures })
+    .onConflictDoUpdate({
+      target: [studyFigures.studyId, studyFigures.siteId],
+      set: { computedAt: dsql`excluded.computed_at`, figures: dsql`excluded.figures` },
+      setWhere: lt(studyFigures.computedAt, dsql`excluded.computed_at`),
+    });
+}
