@@ -112,3 +112,16 @@ export const studyFigures = pgTable(
   },
   (t) => [primaryKey({ columns: [t.studyId, t.siteId] })],
 );
+
+/** The clinic-quality panel's figures per site, calendar year and cytology look-back window (lib/server/research.ts). */
+export const qualityFigures = pgTable(
+  "quality_figures",
+  {
+    siteId: uuid("site_id").notNull().references(() => sites.id),
+    year: integer("year").notNull(),
+    windowDays: integer("window_days").notNull(),
+    computedAt: timestamp("computed_at", { withTimezone: true }).notNull(),
+    figures: jsonb("figures").notNull(),
+  },
+  (t) => [primaryKey({ columns: [t.siteId, t.year, t.windowDays] })],
+);

@@ -4,7 +4,9 @@ import "server-only";
 import { loadQualityVisits } from "@/db/queries/research/quality";
 import type { SiteScope } from "@/db/queries/scope";
 import { GRADES, type Grade } from "@/lib/domain/vocab";
-import { qualityMetrics, type Metric } from "@/lib/quality";
+import { CYTOLOGY_CONFIRMATION_WINDOW_DAYS, qualityMetrics, type Metric } from "@/lib/quality";
+import { readQualityFigures, saveQualityFigures } from "@/db/queries/research/stored-figures";
+import { storedFigures } from "./stored-figures";
 import { kaplanMeier, medianSurvival, numbersAtRisk, type SurvivalStep } from "@/lib/stats";
 import { rateAt, withEmptyQuarters } from "@/lib/stats/study-figures";
 import { loadStudyFigures, maxAgeSeconds, type SiteFigures } from "./study-figures";
@@ -21,26 +23,60 @@ export interface SiteQuality {
   examiners: QualityGroup[];
 }
 
-/** IANS 2016 metrics (lib/quality) per site and per examiner at that site, for one calendar year. */
-export async function loadQualityPanel(scope: SiteScope, year: number, cytologyWindowDays?: number): Promise<SiteQuality[]> {
-  const visits = await loadQualityVisits(scope, year, cytologyWindowDays);
+/** IANS 2016 metrics (lib/quality) for one site and calendar year; null when it had no signed visit. */
+async function computeSiteQuality(siteId: string, year: number, windowDays: number): Promise<SiteQuality | null> {
+  const list = await loadQualityVisits({ userId: "quality-figures", siteIds: [siteId] }, year, windowDays);
+  if (!list.length) return null;
   const from = `${year}-01-01`;
   const to = `${year + 1}-01-01`;
-  const bySite = new Map<string, typeof visits>();
-  for (const v of visits) {
-    const list = bySite.get(v.siteId);
-    if (list) list.push(v);
-    else bySite.set(v.siteId, [v]);
-  }
-  return [...bySite.entries()].map(([siteId, list]) => {
-    const examiners = new Map(list.map((v) => [v.examinerId, v.examinerName]));
-    return {
-      siteId,
-      siteCode: list[0]!.siteCode,
-      site: qualityMetrics({ visits: list, from, to }),
-      examiners: [...examiners.entries()].map(([id, name]) => ({ label: name, metrics: qualityMetrics({ visits: list, from, to, examinerId: id }) })),
-    };
-  });
+  const examiners = new Map(list.map((v) => [v.examinerId, v.examinerName]));
+  return {
+    siteId,
+    siteCode: list[0]!.siteCode,
+    site: qualityMetrics({ visits: list, from, to }),
+    examiners: [...examiners.entries()].map(([id, name]) => ({ label: name, metrics: qualityMetrics({ visits: list, from, to, examinerId: id }) })),
+  };
+}
+
+// Keys are "siteId:year:windowDays"; figures are stored with their time (lib/server/stored-figures.ts).
+const qualityStore = storedFigures<SiteQuality | null>("quality-figures", {
+  read: async (keys) => {
+    if (!keys.length) return [];
+    const [, year, windowDays] = keys[0]!.split(":").map(Number) as [number, number, number];
+    const rows = await readQualityFigures<SiteQuality | null>(keys.map((k) => k.split(":")[0]!), year, windowDays);
+    return rows.map((r) => ({ key: `${r.siteId}:${year}:${windowDays}`, computedAt: r.computedAt, figures: r.figures }));
+  },
+  compute: (key) => {
+    const [siteId, year, windowDays] = key.split(":") as [string, string, string];
+    return computeSiteQuality(siteId, Number(year), Number(windowDays));
+  },
+  save: (key, at, figures) => {
+    const [siteId, year, windowDays] = key.split(":") as [string, string, string];
+    return saveQualityFigures(siteId, Number(year), Number(windowDays), at, figures);
+  },
+  maxAgeSeconds,
+});
+
+const qualityKeys = (siteIds: string[], year: number, windowDays: number) => siteIds.map((id) => `${id}:${year}:${windowDays}`);
+
+export interface QualityPanel {
+  sites: SiteQuality[];
+  /** When the figures were worked out (ISO); loads over the age start a refresh. */
+  asOf: string;
+  refreshing: boolean;
+  maxAgeMinutes: number;
+}
+
+/** IANS 2016 metrics (lib/quality) per site and per examiner at that site, for one calendar year. */
+export async function loadQualityPanel(scope: SiteScope, year: number, cytologyWindowDays = CYTOLOGY_CONFIRMATION_WINDOW_DAYS): Promise<QualityPanel> {
+  const { items, asOf, refreshing } = await qualityStore.load(qualityKeys(scope.siteIds, year, cytologyWindowDays));
+  const sites = items.flatMap((i) => (i.figures ? [i.figures] : [])).sort((a, b) => a.siteCode.localeCompare(b.siteCode));
+  return { sites, asOf: asOf.toISOString(), refreshing, maxAgeMinutes: Math.round(maxAgeSeconds() / 60) };
+}
+
+/** Works a year's quality figures out again now (what a stale load starts; scripts and tests call it). */
+export function refreshQualityFigures(siteIds: string[], year: number, cytologyWindowDays = CYTOLOGY_CONFIRMATION_WINDOW_DAYS): Promise<void> {
+  return qualityStore.refresh(qualityKeys(siteIds, year, cytologyWindowDays));
 }
 
 export interface RegistryDashboard {

@@ -9,8 +9,9 @@ import "server-only";
 // background; a site with no stored figures yet is worked out before the page answers. So a change
 // to a signed visit shows within that age plus one refresh of anyone's load.
 import { readDashboardRows } from "@/db/queries/research/dashboard";
-import { readStudyFigures, saveStudyFigures } from "@/db/queries/research/study-figures";
+import { readStudyFigures, saveStudyFigures } from "@/db/queries/research/stored-figures";
 import type { Grade } from "@/lib/domain/vocab";
+import { storedFigures } from "./stored-figures";
 
 /** One site's figures: counts that add up across sites, and the survival items that concatenate. */
 export interface SiteFigures {
@@ -25,8 +26,6 @@ export interface SiteFigures {
   /** Per patient in the recurrence analysis: [days from clearance to recurrence or censoring, 1 = recurred]. */
   km: [number, 0 | 1][];
 }
-
-export const maxAgeSeconds = () => Number(process.env.DENTATE_STUDY_FIGURES_MAX_AGE_S ?? 300);
 
 export async function computeSiteFigures(studyId: string, siteId: string): Promise<SiteFigures> {
   const { totals, gradeRows, lesionClear, outcomes, patientFollow } = await readDashboardRows(studyId, [siteId]);
@@ -43,50 +42,40 @@ export async function computeSiteFigures(studyId: string, siteId: string): Promi
   };
 }
 
-// One refresh per study and site at a time in this process; a second load joins the first.
-const inFlight = new Map<string, Promise<void>>();
+const maxAge = () => Number(process.env.DENTATE_STUDY_FIGURES_MAX_AGE_S ?? 300);
+export { maxAge as maxAgeSeconds };
 
-function refreshSite(studyId: string, siteId: string): Promise<void> {
-  const key = `${studyId}:${siteId}`;
-  const running = inFlight.get(key);
-  if (running) return running;
-  const started = new Date(); // figures describe the records as of the start of the reads
-  const p = computeSiteFigures(studyId, siteId)
-    .then((f) => saveStudyFigures(studyId, siteId, started, f))
-    .finally(() => inFlight.delete(key));
-  inFlight.set(key, p);
-  return p;
-}
+// Keys are "studyId:siteId".
+const store = storedFigures<SiteFigures>("study-figures", {
+  read: async (keys) => {
+    const studyId = keys[0]?.split(":")[0];
+    if (!studyId) return [];
+    const rows = await readStudyFigures<SiteFigures>(studyId, keys.map((k) => k.split(":")[1]!));
+    return rows.map((r) => ({ key: `${studyId}:${r.siteId}`, computedAt: r.computedAt, figures: r.figures }));
+  },
+  compute: (key) => {
+    const [studyId, siteId] = key.split(":") as [string, string];
+    return computeSiteFigures(studyId, siteId);
+  },
+  save: (key, at, figures) => {
+    const [studyId, siteId] = key.split(":") as [string, string];
+    return saveStudyFigures(studyId, siteId, at, figures);
+  },
+  maxAgeSeconds: maxAge,
+});
 
 /** Works the figures out again now (the refresh a stale load starts, and what scripts and tests call). */
-export async function refreshStudyFigures(studyId: string, siteIds: string[]): Promise<void> {
-  await Promise.all(siteIds.map((id) => refreshSite(studyId, id)));
-}
-
-/** Waits for refreshes started in the background (tests and scripts, before they close the pool). */
-export async function settleStudyFigureRefreshes(): Promise<void> {
-  await Promise.allSettled([...inFlight.values()]);
+export function refreshStudyFigures(studyId: string, siteIds: string[]): Promise<void> {
+  return store.refresh(siteIds.map((id) => `${studyId}:${id}`));
 }
 
 export interface StudyFigures {
   sites: SiteFigures[];
-  /** The oldest of the sites' times: every figure shown is at least this recent. */
   asOf: Date;
-  /** A background refresh was started by this load. */
   refreshing: boolean;
 }
 
 export async function loadStudyFigures(studyId: string, siteIds: string[], now = new Date()): Promise<StudyFigures> {
-  let stored = await readStudyFigures<SiteFigures>(studyId, siteIds);
-  const missing = siteIds.filter((id) => !stored.some((s) => s.siteId === id));
-  if (missing.length) {
-    await refreshStudyFigures(studyId, missing);
-    stored = await readStudyFigures<SiteFigures>(studyId, siteIds);
-  }
-  const stale = stored.filter((s) => now.getTime() - s.computedAt.getTime() > maxAgeSeconds() * 1000);
-  for (const s of stale) {
-    refreshSite(studyId, s.siteId).catch((err: Error) => console.error("[study-figures] refresh failed:", err.message));
-  }
-  const asOf = stored.reduce((t, s) => (s.computedAt < t ? s.computedAt : t), now);
-  return { sites: stored.map((s) => s.figures), asOf, refreshing: stale.length > 0 };
+  const { items, asOf, refreshing } = await store.load(siteIds.map((id) => `${studyId}:${id}`), now);
+  return { sites: items.map((i) => i.figures), asOf, refreshing };
 }

@@ -9,7 +9,7 @@
 import postgres from "postgres";
 import { runScript } from "@/db/client";
 import { endReplica } from "@/db/replica";
-import { loadQualityPanel, loadRegistryDashboard } from "@/lib/server/research";
+import { loadQualityPanel, loadRegistryDashboard, refreshQualityFigures } from "@/lib/server/research";
 import { refreshStudyFigures } from "@/lib/server/study-figures";
 
 const url = process.env.DATABASE_URL;
@@ -49,6 +49,7 @@ async function main() {
   const run = async () => ({
     refresh: await time(() => refreshStudyFigures(study.id, scope.siteIds), Math.min(rounds, 3)),
     dashboard: await time(() => loadRegistryDashboard(study.id, scope.siteIds)),
+    qualityRefresh: await time(() => refreshQualityFigures(scope.siteIds, size!.year), Math.min(rounds, 3)),
     quality: await time(() => loadQualityPanel(scope, size!.year)),
   });
   delete process.env.DATABASE_REPLICA_URL;

@@ -10,7 +10,7 @@ import { db } from "@/db/client";
 import * as s from "@/db/schema";
 import { refreshTrackStatuses } from "@/lib/server/track-statuses";
 import { loadRegistryDashboard } from "@/lib/server/research";
-import { settleStudyFigureRefreshes } from "@/lib/server/study-figures";
+import { settleStoredFigures } from "@/lib/server/stored-figures";
 import { GET as getCsv } from "@/app/api/exports/[dataset]/route";
 import { GRADES, type Grade, type Histology } from "@/lib/domain/vocab";
 import { decideGrade } from "@/lib/tracking/effective-grade";
@@ -127,7 +127,7 @@ describe("study dashboard against the exports", () => {
       const stale = await loadRegistryDashboard(studyId, [siteId]);
       expect(stale.refreshing).toBe(true);
       expect(stale.visits).toBe(before.visits); // served at once, refreshed behind it
-      await settleStudyFigureRefreshes();
+      await settleStoredFigures();
     } finally {
       delete process.env.DENTATE_STUDY_FIGURES_MAX_AGE_S;
     }

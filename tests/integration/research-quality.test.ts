@@ -5,12 +5,14 @@
 import { beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db/client";
 import * as s from "@/db/schema";
-import { loadQualityPanel, type SiteQuality } from "@/lib/server/research";
+import { loadQualityPanel, refreshQualityFigures, type SiteQuality } from "@/lib/server/research";
 import { makePatient, makeSite, makeUser } from "../fixtures/factory";
 
 type Cyto = (typeof s.visits.$inferInsert)["cytology"];
 let panel: SiteQuality[];
 let e1: string;
+let site: string;
+let p3id: string;
 
 async function visit(o: { patientId: string; siteId: string; examinerId: string; date: string; cytology: Cyto; minutes?: number; histology?: "hsil" | "lsil"; pain?: "mild" | "moderate" | "severe"; bleeding?: "mild" | "moderate" | "severe"; draft?: boolean }) {
   const start = new Date(`${o.date}T09:00:00Z`);
@@ -25,7 +27,7 @@ async function visit(o: { patientId: string; siteId: string; examinerId: string;
 }
 
 beforeAll(async () => {
-  const site = (await makeSite("Quality")).id;
+  site = (await makeSite("Quality")).id;
   e1 = await makeUser("clinician", [site]);
   const e2 = await makeUser("clinician", [site]);
   const [p1, p2, p3, p4, p5] = await Promise.all([1, 2, 3, 4, 5].map(() => makePatient(site)));
@@ -38,7 +40,8 @@ beforeAll(async () => {
   // Outside the year, and a draft: neither counts.
   await visit({ ...base, examinerId: e1, patientId: p5!.id, date: "2024-12-31", cytology: "unsatisfactory", minutes: 40 });
   await visit({ ...base, examinerId: e1, patientId: p5!.id, date: "2025-07-01", cytology: "unsatisfactory", minutes: 40, draft: true });
-  panel = await loadQualityPanel({ userId: "test", siteIds: [site] }, 2025);
+  p3id = p3!.id;
+  panel = (await loadQualityPanel({ userId: "test", siteIds: [site] }, 2025)).sites;
 });
 
 const values = (metrics: SiteQuality["site"]) => Object.fromEntries(metrics.map((m) => [m.key, m.value === null ? null : Number(m.value.toFixed(3))]));
@@ -58,5 +61,19 @@ describe("quality panel for 2025", () => {
     // timed 10, 20, 12, 14 → 3 of 4 under 15 = 0.75; moderate pain + severe bleeding = 2 of 5 = 0.4.
     expect(values(panel[0]!.site)).toEqual({ hra_volume: 5, hsil_cases: 2, unsatisfactory_cytology: 0.25, cytology_hsil_confirmed: 0.5, hra_under_15_min: 0.75, problematic_pain_or_bleeding: 0.4 });
     expect(panel[0]!.examiners).toHaveLength(2);
+  });
+
+  it("serves the stored figures with their time; a visit signed later counts after the refresh", async () => {
+    // The panel's figures are stored (lib/server/stored-figures.ts): within their age the same
+    // figures and time come back; working them out again counts the new visit (5 → 6 HRAs).
+    const first = await loadQualityPanel({ userId: "test", siteIds: [site] }, 2025);
+    await visit({ siteId: site, examinerId: e1, patientId: p3id, date: "2025-08-01", cytology: "nilm" });
+    const stored = await loadQualityPanel({ userId: "test", siteIds: [site] }, 2025);
+    expect(stored.asOf).toBe(first.asOf);
+    expect(values(stored.sites[0]!.site).hra_volume).toBe(5);
+    await refreshQualityFigures([site], 2025);
+    const fresh = await loadQualityPanel({ userId: "test", siteIds: [site] }, 2025);
+    expect(values(fresh.sites[0]!.site).hra_volume).toBe(6);
+    expect(Date.parse(fresh.asOf)).toBeGreaterThan(Date.parse(first.asOf));
   });
 });

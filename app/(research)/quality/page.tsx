@@ -29,8 +29,12 @@ export default async function QualityPage({ searchParams }: { searchParams: Prom
           <Link key={y} href={`/quality?year=${y}`} aria-current={y === year ? "page" : undefined} className={`inline-flex min-h-11 items-center rounded-md border px-3 font-semibold ${y === year ? "border-lagoon-700 bg-lagoon-50" : "border-rule-strong hover:bg-lagoon-50"}`}>{y}</Link>
         ))}
       </nav>
-      {panel.length === 0 ? <p className="mt-6 text-ink-soft">No signed visits at your sites in {year}.</p> : null}
-      {panel.map((site) => (
+      <p className="mt-2 text-sm text-ink-soft" data-figures-as-of={panel.asOf}>
+        Figures as of {panel.asOf.slice(0, 10)} {panel.asOf.slice(11, 16)} UTC; they are worked out again when a page load finds them over {panel.maxAgeMinutes} minutes old.
+        {panel.refreshing ? " Newer figures are being worked out now: reload in a minute." : ""}
+      </p>
+      {panel.sites.length === 0 ? <p className="mt-6 text-ink-soft">No signed visits at your sites in {year}.</p> : null}
+      {panel.sites.map((site) => (
         <section key={site.siteId} className="mt-6" aria-labelledby={`site-${site.siteId}`}>
           <h2 id={`site-${site.siteId}`} className="text-lg font-bold">{site.siteCode}</h2>
           <QualityTable groups={[{ label: `${site.siteCode}, whole site`, metrics: site.site }, ...site.examiners]} />

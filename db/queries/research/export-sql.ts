@@ -82,14 +82,21 @@ export function outcomesSelect(scope: ExportScope): string {
       : `dentate_birth_year(p.date_of_birth, enr.consent_date, current_date) AS birth_year,
   dentate_age_category(p.date_of_birth, enr.consent_date) AS age_at_enrolment,
   p.sex_at_birth, p.hiv_status, array_to_string(p.risk_groups, ';') AS risk_groups, dentate_zip3(p.zip) AS zip3${style === "year" ? ",\n  dentate_year_only(enr.consent_date) AS enrolment_year" : ""}`;
-  return `WITH ${baseCtes(scope)}, pv AS (
-  SELECT vis.patient_id, vis.visit_date,
-    EXISTS (SELECT 1 FROM lesions l WHERE l.visit_id = vis.id
-      AND dentate_grade_tier(dentate_lesion_grade(l.id, l.grade)) >= dentate_grade_tier('hsil')) AS hsil_plus,
-    EXISTS (SELECT 1 FROM lesions l WHERE l.visit_id = vis.id
-      AND dentate_lesion_grade(l.id, l.grade) = 'suspected_cancer') AS cancer,
-    (SELECT count(*) FROM treatments t WHERE t.visit_id = vis.id) AS n_treatments
-  FROM vis
+  // Per visit, set-based: each lesion's effective grade once (its worst histology over the
+  // impression, dentate_effective_grade), then per visit whether any is HSIL or worse / cancer.
+  return `WITH ${baseCtes(scope)}, lg AS (
+  SELECT l.visit_id, dentate_effective_grade(l.grade, (SELECT max(b.histology) FROM biopsies b WHERE b.lesion_id = l.id)) AS g
+  FROM vis JOIN lesions l ON l.visit_id = vis.id
+), vg AS (
+  SELECT visit_id, bool_or(dentate_grade_tier(g) >= dentate_grade_tier('hsil')) AS hsil_plus,
+    bool_or(g = 'suspected_cancer') AS cancer
+  FROM lg GROUP BY visit_id
+), vt AS (
+  SELECT t.visit_id, count(*) AS n FROM vis JOIN treatments t ON t.visit_id = vis.id GROUP BY t.visit_id
+), pv AS (
+  SELECT vis.patient_id, vis.visit_date, coalesce(vg.hsil_plus, false) AS hsil_plus, coalesce(vg.cancer, false) AS cancer,
+    coalesce(vt.n, 0) AS n_treatments
+  FROM vis LEFT JOIN vg ON vg.visit_id = vis.id LEFT JOIN vt ON vt.visit_id = vis.id
 ), firsts AS (
   SELECT patient_id, count(*) AS visits, max(visit_date) AS last_visit,
     min(visit_date) FILTER (WHERE hsil_plus) AS first_hsil,

@@ -1,9 +1,9 @@
 import "server-only";
 import { and, eq, inArray, lt, sql as dsql } from "drizzle-orm";
 import { db } from "../../client";
-import { studyFigures } from "../../schema";
+import { qualityFigures, studyFigures } from "../../schema";
 
-// Stored study-dashboard figures (table study_figures). They are read from and written to the
+// Stored research figures (tables study_figures and quality_figures). They are read from and written to the
 // primary: the rows are small, and a paused or lagging replica must not hide a refresh just made.
 
 export interface StoredFigures<F> {
@@ -30,5 +30,26 @@ export async function saveStudyFigures<F>(studyId: string, siteId: string, compu
       target: [studyFigures.studyId, studyFigures.siteId],
       set: { computedAt: dsql`excluded.computed_at`, figures: dsql`excluded.figures` },
       setWhere: lt(studyFigures.computedAt, dsql`excluded.computed_at`),
+    });
+}
+
+/** Stored clinic-quality figures of these sites for one year and look-back window (primary, as above). */
+export async function readQualityFigures<F>(siteIds: string[], year: number, windowDays: number): Promise<StoredFigures<F>[]> {
+  if (!siteIds.length) return [];
+  const rows = await db
+    .select({ siteId: qualityFigures.siteId, computedAt: qualityFigures.computedAt, figures: qualityFigures.figures })
+    .from(qualityFigures)
+    .where(and(inArray(qualityFigures.siteId, siteIds), eq(qualityFigures.year, year), eq(qualityFigures.windowDays, windowDays)));
+  return rows as StoredFigures<F>[];
+}
+
+export async function saveQualityFigures<F>(siteId: string, year: number, windowDays: number, computedAt: Date, figures: F): Promise<void> {
+  await db
+    .insert(qualityFigures)
+    .values({ siteId, year, windowDays, computedAt, figures })
+    .onConflictDoUpdate({
+      target: [qualityFigures.siteId, qualityFigures.year, qualityFigures.windowDays],
+      set: { computedAt: dsql`excluded.computed_at`, figures: dsql`excluded.figures` },
+      setWhere: lt(qualityFigures.computedAt, dsql`excluded.computed_at`),
     });
 }
