@@ -1,5 +1,5 @@
 import { memo, useMemo } from "react";
-import { arcLengthH, arcToRadians, formatClock, toDisplayHours, unionArcs, type Arc, type DisplayConvention } from "@/lib/geometry";
+import { arcLengthH, arcToRadians, isFullCircle, formatClock, toDisplayHours, unionArcs, type Arc, type DisplayConvention } from "@/lib/geometry";
 import { TREATED_RING } from "@/lib/map/encoding";
 import { polar, radiusOfCm, sectorPath } from "@/lib/map/geometry";
 
@@ -31,14 +31,14 @@ function TreatedRingInner({ arcs, conv }: { arcs: readonly TreatedArc[]; conv: D
   const pieces = useMemo(
     () =>
       unionArcs(arcs as readonly Arc[]).map((u, i) => {
-        const startD = toDisplayHours(u.full ? 0 : u.startH, conv);
+        const startD = toDisplayHours(u.startH, conv);
         const length = arcLengthH(u);
-        const { startAngle, endAngle } = arcToRadians({ startH: startD, endH: startD + length, full: u.full });
+        const { startAngle, endAngle } = arcToRadians({ startH: startD, endH: startD + length });
         return {
           key: `${i}-${u.startH}-${u.endH}`,
           outline: sectorPath({ innerRadius: INNER_R, outerRadius: OUTER_R, startAngle, endAngle }) ?? "",
           rungs: circleArc(startAngle, endAngle, MID_R),
-          words: u.full ? "the whole circumference" : `${formatClock(startD)} to ${formatClock(toDisplayHours(u.endH, conv))}`,
+          words: isFullCircle(u) ? "the whole circumference" : `${formatClock(startD)} to ${formatClock(toDisplayHours(u.endH, conv))}`,
         };
       }),
     [arcs, conv],

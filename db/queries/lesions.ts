@@ -34,7 +34,8 @@ const lesionColumns = {
 const decorationColumns = {
   biopsyLabels: dsql<string[]>`array(select ${biopsies.specimenLabel} from ${biopsies} where ${biopsies.lesionId} = ${lesions.id} order by 1)`,
   histologies: dsql<string[]>`array(select ${biopsies.histology}::text from ${biopsies} where ${biopsies.lesionId} = ${lesions.id} and ${biopsies.histology} is not null)`,
-  treated: dsql<boolean>`exists(select 1 from ${treatments} where ${treatments.lesionId} = ${lesions.id})`,
+  // Treated at its visit: named by a treatment, or among the lesions a treatment's arcs treated.
+  treated: dsql<boolean>`exists(select 1 from ${treatments} where ${treatments.lesionId} = ${lesions.id} or (${treatments.visitId} = ${lesions.visitId} and ${lesions.id} = any(${treatments.treatedLesionIds})))`,
 };
 
 export type LesionRow = Omit<LesionDto, "histology" | "biopsyLabels" | "treated">;

@@ -43,9 +43,11 @@ const historyStatement = (ofTracks: Filter) => {
           [biopsies.lesionId, biopsies.histology],
           dsql`from ${biopsies} inner join ${visits} on ${eq(visits.id, biopsies.visitId)} where ${and(ofPatient, isNotNull(biopsies.histology), lesionOfTracks(dsql`${biopsies.lesionId}`))}`,
         ),
+        // One row per lesion a treatment treated: the list stored with it and the named lesion (a row
+        // written without the list, by a bulk load, still treats the lesion it names).
         treatments: rowsOf<[string | null, string]>(
-          [treatments.lesionId, treatments.visitId],
-          dsql`from ${treatments} inner join ${visits} on ${eq(visits.id, treatments.visitId)} where ${and(ofPatient, lesionOfTracks(dsql`${treatments.lesionId}`))}`,
+          [dsql`treated.lesion_id`, treatments.visitId],
+          dsql`from ${treatments} inner join ${visits} on ${eq(visits.id, treatments.visitId)} cross join lateral unnest(array_append(${treatments.treatedLesionIds}, ${treatments.lesionId})) as treated(lesion_id) where ${and(ofPatient, lesionOfTracks(dsql`treated.lesion_id`))}`,
         ),
         checks: rowsOf<[string, string, (typeof trackChecks.$inferSelect)["outcome"]]>(
           [trackChecks.visitId, trackChecks.trackId, trackChecks.outcome],

@@ -10,6 +10,7 @@ const columns = {
   modality: treatments.modality,
   regimen: treatments.regimen,
   arcs: treatments.arcs,
+  treatedLesionIds: treatments.treatedLesionIds,
   treatedFraction: treatments.treatedFraction,
   extentOverrideReason: treatments.extentOverrideReason,
   cancerOverrideReason: treatments.cancerOverrideReason,

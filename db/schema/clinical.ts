@@ -212,6 +212,12 @@ export const treatments = pgTable(
     regimen: text("regimen"),
     /** Treated extent as clockwise arcs [{startH, endH}] in the stored frame. */
     arcs: jsonb("arcs").$type<{ startH: number; endH: number }[]>().notNull().default([]),
+    /**
+     * The lesions of the visit this treatment treated: the named lesion, every lesion whose clock
+     * extent the arcs cover fully, and those they cover in part that the clinician confirmed
+     * (lib/validation/treatments.ts, treatedLesions). Track statuses read this, not the geometry.
+     */
+    treatedLesionIds: uuid("treated_lesion_ids").array().notNull().default(sql`'{}'::uuid[]`),
     /** The treated fraction of the circumference, recomputed by the server on every write. */
     treatedFraction: doublePrecision("treated_fraction").notNull().default(0),
     extentOverrideReason: text("extent_override_reason"),

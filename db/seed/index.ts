@@ -73,7 +73,7 @@ async function main() {
           }
           if (l.treated) {
             const arcs = [{ startH: l.clockStartH, endH: l.clockEndH }];
-            await tx.insert(s.treatments).values({ visitId: visit!.id, siteId: sid, lesionId: lesion!.id, modality: l.treated, arcs, treatedFraction: treatedFraction(arcs) });
+            await tx.insert(s.treatments).values({ visitId: visit!.id, siteId: sid, lesionId: lesion!.id, treatedLesionIds: [lesion!.id], modality: l.treated, arcs, treatedFraction: treatedFraction(arcs) });
             anyTreated = true;
           }
         }

@@ -2,6 +2,8 @@
 // SNOMED CT clock-face positions: FHIR value set bodystructure-bodylandmarkorientation-clockface-position
 // (listed in HL7 FHIR value set, SNOMED CT). Anatomical site codes from the same section.
 
+import { isFullCircle } from "@/lib/geometry/arcs";
+
 export const SNOMED = "http://snomed.info/sct";
 export const UCUM = "http://unitsofmeasure.org";
 export const V3_ACT_CODE = "http://terminology.hl7.org/CodeSystem/v3-ActCode";
@@ -51,6 +53,7 @@ export function nearestClockHour(clockHour: number): number {
 
 /** The whole hours an arc touches, going clockwise from its start hour to its end hour. */
 export function clockHoursCovered(clockStart: number, clockEnd: number): number[] {
+  if (isFullCircle({ startH: clockStart, endH: clockEnd })) return [12, 1, 2, 3, 4, 5, 6, 7, 8, 9, 10, 11];
   const first = nearestClockHour(clockStart);
   const last = nearestClockHour(clockEnd);
   const hours = [first];

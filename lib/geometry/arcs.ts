@@ -1,27 +1,35 @@
 // Circular intervals on the clock face, in stored-frame hours (see clock.ts).
 // An arc runs CLOCKWISE from startH to endH, so 11 → 1 is 2 h, not 10. When
-// startH === endH the arc is a single point; the full circle cannot be told apart
-// from a point by its ends, so it carries the `full` flag (use fullCircle()).
+// startH === endH the arc is a single point. The full circle is written 0 → 12: its end
+// lies one whole turn past its start, which no other arc's does (stored hours are in
+// [0, 12), and 12 is accepted as an end only after a start of 0: lib/validation/clock.ts).
+// Geometry, tracking, the circumference checks, the map and the PDF all read it so.
 
 import { HOURS_PER_CIRCLE, normalizeHours } from "./clock";
 
-export type Arc = { startH: number; endH: number; full?: boolean };
+export type Arc = { startH: number; endH: number };
 
 /** Tolerance for joining pieces that meet, so 10→12 and 12→2 merge despite rounding. */
 const EPS_H = 1e-9;
 
+/** The full circle as stored: 0 → 12. */
 export function fullCircle(): Arc {
-  return { startH: 0, endH: 0, full: true };
+  return { startH: 0, endH: HOURS_PER_CIRCLE };
+}
+
+/** True when the arc goes once round: its end one whole turn (12 h) past its start (0 → 12, or 6 → 18 turned for display). */
+export function isFullCircle(arc: Arc): boolean {
+  return Math.abs(arc.endH - arc.startH - HOURS_PER_CIRCLE) <= EPS_H;
 }
 
 export function arcLengthH(arc: Arc): number {
-  if (arc.full) return HOURS_PER_CIRCLE;
+  if (isFullCircle(arc)) return HOURS_PER_CIRCLE;
   return normalizeHours(arc.endH - arc.startH);
 }
 
 /** True when h lies on the arc, ends included. */
 export function containsHour(arc: Arc, h: number): boolean {
-  if (arc.full) return true;
+  if (isFullCircle(arc)) return true;
   const offset = normalizeHours(h - arc.startH);
   const length = arcLengthH(arc);
   return offset <= length + EPS_H || offset >= HOURS_PER_CIRCLE - EPS_H;
@@ -31,7 +39,7 @@ type Piece = [from: number, to: number];
 
 /** Unroll an arc onto the line [0, 12]: one piece, or two when it crosses 12 o'clock. */
 function toPieces(arc: Arc): Piece[] {
-  if (arc.full) return [[0, HOURS_PER_CIRCLE]];
+  if (isFullCircle(arc)) return [[0, HOURS_PER_CIRCLE]];
   const start = normalizeHours(arc.startH);
   const end = start + arcLengthH(arc);
   if (end <= HOURS_PER_CIRCLE) return [[start, end]];
@@ -90,7 +98,7 @@ export function fractionOfCircumference(arcs: readonly Arc[]): number {
 }
 
 export function rotateArc(arc: Arc, dh: number): Arc {
-  if (arc.full) return fullCircle();
+  if (isFullCircle(arc)) return fullCircle(); // a ring has no start: the stored form
   return { startH: normalizeHours(arc.startH + dh), endH: normalizeHours(arc.endH + dh) };
 }
 

@@ -14,6 +14,7 @@
 
 import type { Position } from "@/lib/domain/vocab";
 import { formatClock, normalizeHours } from "./clock";
+import { isFullCircle } from "./arcs";
 
 export type DisplayConvention = Position;
 
@@ -116,6 +117,7 @@ export function describeSite(
   distEndCm: number,
   conv: DisplayConvention = "lithotomy",
 ): string {
+  if (isFullCircle({ startH, endH })) return `the whole circumference, ${describeDistance(distStartCm, distEndCm)}`;
   const startSector = sectorName(startH);
   const endSector = sectorName(endH);
   const sectors = startSector === endSector ? startSector : `${startSector} to ${endSector}`;

@@ -90,7 +90,7 @@ export function sectorOf(e: MapExtent, conv: DisplayConvention, padPx = 0): Sect
     startH = startD + length / 2 - MIN_DRAWN_H / 2;
     length = MIN_DRAWN_H;
   }
-  const { startAngle, endAngle } = arcToRadians({ startH: normalizeHours(startH), endH: normalizeHours(startH + length) });
+  const { startAngle, endAngle } = arcToRadians({ startH: normalizeHours(startH), endH: normalizeHours(startH) + length }); // keeps 0 → 12 a ring
   const deep = Math.max(e.distanceStartCm, e.distanceEndCm);
   const shallow = Math.min(e.distanceStartCm, e.distanceEndCm);
   let inner = radiusOfCm(deep);

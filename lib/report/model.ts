@@ -1,6 +1,6 @@
 import { GRADE_LABEL, HISTOLOGY_LABEL, type Grade } from "@/lib/domain/vocab";
 import { assessDoses, assessExtent, mgFromPercentAndMl } from "@/lib/dosing";
-import { describeSite, formatClock } from "@/lib/geometry";
+import { describeSite, formatClock, isFullCircle } from "@/lib/geometry";
 import { ainLabel } from "@/lib/codes/last";
 import { decideGrade } from "@/lib/tracking/effective-grade";
 import * as W from "@/lib/domain/labels";
@@ -99,7 +99,7 @@ export function buildReportModel(d: VisitReportData): ReportModel {
     rows: d.treatments.map((t) => [
       W.MODALITY_WORDS[t.modality] + (t.regimen ? ` (${t.regimen})` : ""),
       t.lesionId ? (lesionLabel.get(t.lesionId) ?? "—") : "—",
-      t.arcs.length ? t.arcs.map((a) => `${clockNum(a.startH)} to ${formatClock(a.endH)}`).join("; ") : "—",
+      t.arcs.length ? t.arcs.map((a) => (isFullCircle(a) ? "the whole circumference" : `${clockNum(a.startH)} to ${formatClock(a.endH)}`)).join("; ") : "—",
       pct(assessExtent(t.arcs).fraction),
     ]),
   };

@@ -11,6 +11,7 @@ import type { SiteScope } from "@/db/queries/scope";
 import { AppError } from "@/lib/errors";
 import { DEFAULT_ZONE_BOUNDS, zoneBoundsSchema, zoneForDistance, type ZoneBounds } from "@/lib/geometry/zones";
 import type { CreateLesionInput, LesionDto, UpdateLesionInput } from "@/lib/validation/lesions";
+import { endOf12IsWholeCircle, FULL_CIRCLE_ONLY_MESSAGE } from "@/lib/validation/clock";
 import { refreshTrackStatuses } from "./track-statuses";
 
 function boundsOf(zoneBounds: unknown): ZoneBounds {
@@ -97,6 +98,9 @@ export async function updateLesion(scope: SiteScope, visitId: string, lesionId: 
     const start = fields.distanceStartCm ?? current.distanceStartCm;
     const end = fields.distanceEndCm ?? current.distanceEndCm;
     if (start > end) throw new AppError("invalid", undefined, { distanceEndCm: ["The distance range must run from the lower to the higher value."] });
+    if (!endOf12IsWholeCircle(fields.clockStartH ?? current.clockStartH, fields.clockEndH ?? current.clockEndH)) {
+      throw new AppError("invalid", undefined, { clockEndH: [FULL_CIRCLE_ONLY_MESSAGE] });
+    }
     const zone = zoneFor(boundsOf(visit.zoneBounds), start, end);
     // Track statuses are worked out from each lesion's grade and track, and from the patient's
     // visits, biopsies, treatments and track checks, which a lesion update does not touch. Moving

@@ -7,7 +7,7 @@ import { recordAudit } from "@/db/queries/audit-write";
 import type { SiteScope } from "@/db/queries/scope";
 import { AppError } from "@/lib/errors";
 import { assessExtent, DEFAULT_CAUTION_FRACTION } from "@/lib/dosing";
-import { cancerCautionMessage, cancerLesionsReached, gateExtent, isTopical, type TreatmentInput } from "@/lib/validation/treatments";
+import { cancerCautionMessage, cancerLesionsReached, gateExtent, isTopical, partialCoverMessage, treatedLesions, type TreatmentInput } from "@/lib/validation/treatments";
 import { refreshTrackStatuses } from "./track-statuses";
 
 async function cautionFractionOf(run: Db | Tx, siteId: string): Promise<number> {
@@ -49,19 +49,26 @@ export async function addTreatment(scope: SiteScope, visitId: string, input: Tre
     const arcs = given.length === 0 && lesionArc && !isTopical(input.modality) ? [lesionArc] : given;
     const gate = gateExtent(await treatedArcsOfVisit(tx, v.id), arcs, cautionFraction);
     const reason = input.extentOverrideReason?.trim() || null;
-    const reached = cancerLesionsReached(await lesionRisksOfVisit(tx, v.id), input.lesionId, arcs, input.modality);
+    const lesionsOfVisit = await lesionRisksOfVisit(tx, v.id);
+    const reached = cancerLesionsReached(lesionsOfVisit, input.lesionId, arcs, input.modality);
+    // Which lesions this treats is decided now and stored: arcs covering a lesion's extent fully
+    // treat it; one reached in part is the clinician's call, asked for before anything is stored.
+    const treated = treatedLesions(lesionsOfVisit, input.lesionId, arcs, input.partialCover);
     const cancerReason = reached.length ? input.cancerOverrideReason?.trim() || null : null;
     // Both reasons are asked for at once, so the clinician answers one prompt, not two in turn.
     const missing: Record<string, string[]> = {};
     if (gate.needsReason && !reason) missing[EXTENT_REASON_FIELD] = [`${gate.assessment.message} To save it, give the reason for treating this much in one session.`];
     if (reached.length && !cancerReason) missing.cancerOverrideReason = [`${cancerCautionMessage(reached)} To save it, give the reason for treating it.`];
+    if (treated.undecided.length) missing.partialCover = [partialCoverMessage(treated.undecided)];
     if (Object.keys(missing).length) {
-      throw new AppError("invalid", reached.length && !cancerReason ? cancerCautionMessage(reached) : gate.assessment.message, missing);
+      const message = reached.length && !cancerReason ? cancerCautionMessage(reached) : gate.needsReason && !reason ? gate.assessment.message : partialCoverMessage(treated.undecided);
+      throw new AppError("invalid", message, missing);
     }
     const id = await insertTreatment(tx, {
       visitId: v.id,
       siteId: v.siteId,
       lesionId: input.lesionId ?? null,
+      treatedLesionIds: treated.ids,
       modality: input.modality,
       regimen: input.regimen || null,
       arcs,
@@ -75,7 +82,8 @@ export async function addTreatment(scope: SiteScope, visitId: string, input: Tre
     await recordAudit({
       userId: scope.userId, siteId: v.siteId, patientId: v.patientId, action: "treatment.create", entityType: "treatment", entityId: id, ip,
       detail: { modality: input.modality, arcs, arcsFromLesion: given.length === 0 && arcs.length > 0, visitTreatedFraction: extent.fraction, cautionFraction, extentOverrideReason: gate.needsReason ? input.extentOverrideReason : undefined,
-        cancerOverrideReason: cancerReason ?? undefined, cancerLesions: reached.length ? reached.map((l) => l.label) : undefined },
+        cancerOverrideReason: cancerReason ?? undefined, cancerLesions: reached.length ? reached.map((l) => l.label) : undefined,
+        treatedLesions: lesionsOfVisit.filter((l) => treated.ids.includes(l.id)).map((l) => l.label), partialCover: input.partialCover },
     }, tx);
     return { id, extent, overridden: gate.needsReason, cautionFraction };
   });

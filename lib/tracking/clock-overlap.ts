@@ -1,5 +1,7 @@
-// Private circular-arc arithmetic for the matcher. Kept here on purpose so tracking does not
-// depend on the geometry module while both are being written; 12 clock hours make a full turn.
+// Circular-arc arithmetic for the matcher (widening of point-like arcs, overlap of start + length
+// pairs); 12 clock hours make a full turn. What an arc's length is, the full circle 0 → 12
+// included, is lib/geometry's one definition.
+import { arcLengthH as geometryArcLengthH, isFullCircle } from "@/lib/geometry/arcs";
 
 export const HOURS_PER_TURN = 12;
 
@@ -17,14 +19,9 @@ export function normalizeHour(hour: number): number {
   return wrapped === HOURS_PER_TURN || Object.is(wrapped, -0) ? 0 : wrapped;
 }
 
-/**
- * Clockwise length in hours. startH === endH is a point (length 0); a full ring can be written
- * as endH = startH + 12 (e.g. 0 → 12), because a ring has no natural start inside [0, 12).
- */
+/** Clockwise length in hours: startH === endH is a point (0), 0 → 12 the full ring (lib/geometry/arcs.ts). */
 export function arcLengthH(arc: ClockArc): number {
-  const span = arc.endH - arc.startH;
-  if (Math.abs(span) === HOURS_PER_TURN) return HOURS_PER_TURN;
-  return normalizeHour(span);
+  return geometryArcLengthH(arc);
 }
 
 /** Point-like arcs are widened about their middle so that tiny lesions can still overlap. */
@@ -69,6 +66,6 @@ export function compareArcs(
 /** Rotates an arc clockwise by a number of hours (used for display and for invariance tests). */
 export function rotateArc<T extends ClockArc>(arc: T, byH: number): T {
   const startH = normalizeHour(arc.startH + byH);
-  const isRing = arcLengthH(arc) === HOURS_PER_TURN;
+  const isRing = isFullCircle(arc);
   return { ...arc, startH, endH: isRing ? startH + HOURS_PER_TURN : normalizeHour(arc.endH + byH) };
 }

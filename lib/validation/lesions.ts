@@ -1,15 +1,16 @@
 import { z } from "zod";
 import { text } from "@/lib/validation/text";
 import { ACETOWHITE, GRADES, LUGOL, MORPHOLOGY, VESSELS, type Position } from "@/lib/domain/vocab";
+import { clockEndH, clockStartH, endOf12IsWholeCircle, FULL_CIRCLE_ONLY_MESSAGE } from "@/lib/validation/clock";
 
 // One schema for the lesion form and the lesions route. Clock hours are stored in the
-// lithotomy convention, [0, 12); distance in cm from the verge, negative = perianal skin.
-const clockH = z.number({ message: "Clock position must be a number of hours." }).min(0, "Clock hours run from 0 to 12.").lt(12, "Clock hours run from 0 up to (not including) 12; 12 o'clock is stored as 0.");
+// lithotomy convention, [0, 12), the whole circumference 0 → 12 (lib/validation/clock.ts);
+// distance in cm from the verge, negative = perianal skin.
 const distanceCm = z.number({ message: "Distance must be a number of cm." }).min(-5, "Perianal skin reaches 5 cm outside the verge.").max(15, "Distances beyond 15 cm from the verge are outside the map.");
 
 export const lesionFieldsSchema = z.object({
-  clockStartH: clockH,
-  clockEndH: clockH,
+  clockStartH,
+  clockEndH,
   distanceStartCm: distanceCm,
   distanceEndCm: distanceCm,
   grade: z.enum(GRADES, { message: "Choose an impression grade." }),
@@ -24,6 +25,11 @@ export const lesionFieldsSchema = z.object({
 const ordered = (v: { distanceStartCm?: number; distanceEndCm?: number }) =>
   v.distanceStartCm === undefined || v.distanceEndCm === undefined || v.distanceStartCm <= v.distanceEndCm;
 const orderedMessage = { message: "The distance range must run from the lower to the higher value.", path: ["distanceEndCm"] };
+const wholeCircle = (v: { clockStartH?: number; clockEndH?: number }) => endOf12IsWholeCircle(v.clockStartH, v.clockEndH);
+const wholeCircleMessage = { message: FULL_CIRCLE_ONLY_MESSAGE, path: ["clockEndH"] };
+
+/** The lesion form's schema: the fields with the whole-circumference rule. */
+export const lesionFormSchema = lesionFieldsSchema.refine(wholeCircle, wholeCircleMessage);
 
 export const createLesionSchema = lesionFieldsSchema
   .extend({
@@ -31,7 +37,8 @@ export const createLesionSchema = lesionFieldsSchema
     // a retry after an answer lost on the way finds the lesion already made (no second copy).
     clientKey: text().uuid("Not a valid client key.").optional(),
   })
-  .refine(ordered, orderedMessage);
+  .refine(ordered, orderedMessage)
+  .refine(wholeCircle, wholeCircleMessage);
 export type CreateLesionInput = z.infer<typeof createLesionSchema>;
 
 export const updateLesionSchema = lesionFieldsSchema
@@ -40,7 +47,9 @@ export const updateLesionSchema = lesionFieldsSchema
     version: z.number({ message: "The version you edited is required." }).int().positive(),
     trackId: text().uuid("Not a valid track.").nullable().optional(),
   })
-  .refine(ordered, orderedMessage);
+  .refine(ordered, orderedMessage)
+  // An update may send one end only: the service checks the pair as it will be stored.
+  .refine((v) => v.clockStartH === undefined || wholeCircle(v), wholeCircleMessage);
 export type UpdateLesionInput = z.infer<typeof updateLesionSchema>;
 
 export const deleteLesionQuery = z.object({ version: z.coerce.number({ message: "The version is required." }).int().positive() });

@@ -1,8 +1,10 @@
 import { z } from "zod";
 import { text } from "@/lib/validation/text";
 import { MODALITIES } from "@/lib/domain/vocab";
+import { clockEndH, clockStartH, endOf12IsWholeCircle, FULL_CIRCLE_ONLY_MESSAGE } from "@/lib/validation/clock";
 import { assessDoses, assessExtent, dailyTotals, doseEntrySchema, type DoseAssessment, type DoseEntry, type ExtentAssessment } from "@/lib/dosing";
 import { overlapH, type Arc } from "@/lib/geometry/arcs";
+import { arcCoverage } from "@/lib/geometry/coverage";
 import type { Grade } from "@/lib/domain/vocab";
 
 // Treatment and local-anaesthetic forms, shared by the client and the routes, plus the two
@@ -12,15 +14,11 @@ import type { Grade } from "@/lib/domain/vocab";
 const TOPICAL = new Set(["topical_imiquimod", "topical_fluorouracil", "topical_cidofovir"]);
 export const isTopical = (m: string) => TOPICAL.has(m);
 
-const clockH = z
-  .number({ message: "Clock position must be a number of hours." })
-  .min(0, "Clock hours run from 0 to 12.")
-  .lt(12, "Clock hours run from 0 up to (not including) 12; 12 o'clock is stored as 0.");
-
-/** A clockwise arc in the stored (lithotomy) frame. */
+/** A clockwise arc in the stored (lithotomy) frame; the whole circumference is 0 → 12. */
 export const treatedArcSchema = z
-  .object({ startH: clockH, endH: clockH })
-  .refine((a) => Math.abs(a.startH - a.endH) > 1e-9, { message: "An arc must cover part of the circumference: start and end differ.", path: ["endH"] });
+  .object({ startH: clockStartH, endH: clockEndH })
+  .refine((a) => Math.abs(a.startH - a.endH) > 1e-9, { message: "An arc must cover part of the circumference: start and end differ.", path: ["endH"] })
+  .refine((a) => endOf12IsWholeCircle(a.startH, a.endH), { message: FULL_CIRCLE_ONLY_MESSAGE, path: ["endH"] });
 
 const reason = (what: string) => text().trim().min(3, `Give the reason for ${what} (at least 3 characters).`).max(1000, "Keep the reason under 1,000 characters.");
 
@@ -33,6 +31,11 @@ export const treatmentSchema = z
     extentOverrideReason: reason("treating this much of the circumference").nullable().optional(),
     cancerOverrideReason: reason("treating a lesion that may be cancer").nullable().optional(),
     note: text().trim().max(2000, "Keep the note under 2,000 characters.").nullable().optional(),
+    // The clinician's answer for each lesion the arcs reach only in part: treated or not.
+    partialCover: z
+      .array(z.object({ lesionId: text().uuid("Not a lesion of this visit."), treated: z.boolean({ message: "Say whether the lesion was treated." }) }))
+      .max(200, "Too many lesions.")
+      .optional(),
   })
   .refine((t) => !isTopical(t.modality) || (t.regimen ?? "").length > 0, { message: "Write the regimen for a topical agent (what, how often, how long).", path: ["regimen"] })
   .refine((t) => isTopical(t.modality) || t.arcs.length > 0 || !!t.lesionId, { message: "Name the lesion treated or enter at least one treated arc.", path: ["arcs"] });
@@ -118,4 +121,43 @@ export function cancerLesionsReached(lesions: readonly LesionRisk[], lesionId: s
 export function cancerCautionMessage(reached: readonly LesionRisk[]): string {
   const each = reached.map((l) => `lesion ${l.label} ${l.carcinomaOnHistology ? "shows squamous cell carcinoma on histology" : "is graded suspected cancer"}`);
   return `This treatment reaches ${each.join(" and ")}. Ablating a possible cancer can destroy the tissue needed for diagnosis and staging and delay referral; the usual course is histological confirmation and referral. Your local protocol and the treating clinician decide.`;
+}
+
+export interface LesionExtent { id: string; label: string; startH: number; endH: number }
+
+/** The visit's lesions other than the named one that the arcs cover fully, and those they reach in part. */
+export function lesionsReachedByArcs<L extends LesionExtent>(lesions: readonly L[], lesionId: string | null | undefined, arcs: readonly Arc[]): { full: L[]; partial: L[] } {
+  const full: L[] = [];
+  const partial: L[] = [];
+  for (const l of lesions) {
+    if (l.id === lesionId) continue;
+    const c = arcCoverage({ startH: l.startH, endH: l.endH }, arcs);
+    if (c === "full") full.push(l);
+    else if (c === "partial") partial.push(l);
+  }
+  return { full, partial };
+}
+
+/**
+ * The lesions a treatment treats, as stored with it and read by the track statuses: the named
+ * lesion, each lesion whose clock extent the arcs cover fully, and each lesion they cover in part
+ * that the clinician said was treated. `undecided`: lesions reached in part with no answer yet
+ * (the server asks before it stores anything).
+ */
+export function treatedLesions<L extends LesionExtent>(
+  lesions: readonly L[],
+  lesionId: string | null | undefined,
+  arcs: readonly Arc[],
+  decisions: readonly { lesionId: string; treated: boolean }[] = [],
+): { ids: string[]; undecided: L[] } {
+  const { full, partial } = lesionsReachedByArcs(lesions, lesionId, arcs);
+  const answer = new Map(decisions.map((d) => [d.lesionId, d.treated]));
+  const ids = [...(lesionId ? [lesionId] : []), ...full.map((l) => l.id), ...partial.filter((l) => answer.get(l.id) === true).map((l) => l.id)];
+  return { ids, undecided: partial.filter((l) => !answer.has(l.id)) };
+}
+
+/** The question put to the clinician about lesions the arcs reach only in part. */
+export function partialCoverMessage(undecided: readonly LesionExtent[]): string {
+  const labels = undecided.map((l) => l.label).join(", ");
+  return `The treated arcs reach ${undecided.length === 1 ? "lesion" : "lesions"} ${labels} only in part. Say for each whether it was treated (it then counts as treated for follow-up).`;
 }

@@ -1,14 +1,14 @@
 // Editing arithmetic for lesion extents. Gestures work in DISPLAY hours (what the hand does
 // on screen) and convert to stored hours at the end, so the result never depends on the
 // convention. All values snap to the editor grid: 0.5 h and 0.5 cm.
-import { arcLengthH, fromDisplayHours, normalizeHours, snapCm, snapHours, type DisplayConvention } from "@/lib/geometry";
+import { arcLengthH, fromDisplayHours, isFullCircle, normalizeHours, snapCm, snapHours, type DisplayConvention } from "@/lib/geometry";
 import type { MapExtent } from "@/components/canal-map";
 
 export const STEP_H = 0.5;
 export const STEP_CM = 0.5;
 export const MIN_CM = -5;
 export const MAX_CM = 8;
-/** A full circle cannot be stored as start/end; the widest arc is one step short of it. */
+/** Gestures stop one step short of the full circle; the whole circumference (0 → 12) is the form's control. */
 export const MAX_ARC_H = 12 - STEP_H;
 
 const clampCm = (cm: number) => Math.min(MAX_CM, Math.max(MIN_CM, cm));
@@ -64,9 +64,10 @@ export function moveExtent(e: MapExtent, dH: number, dCm: number): MapExtent {
   const lo = Math.min(e.distanceStartCm, e.distanceEndCm);
   const hi = Math.max(e.distanceStartCm, e.distanceEndCm);
   c = Math.min(MAX_CM - hi, Math.max(MIN_CM - lo, c));
+  const ring = isFullCircle({ startH: e.clockStartH, endH: e.clockEndH }); // turning a ring leaves it as it is
   return {
-    clockStartH: normalizeHours(e.clockStartH + h),
-    clockEndH: normalizeHours(e.clockEndH + h),
+    clockStartH: ring ? e.clockStartH : normalizeHours(e.clockStartH + h),
+    clockEndH: ring ? e.clockEndH : normalizeHours(e.clockEndH + h),
     distanceStartCm: lo + c,
     distanceEndCm: hi + c,
   };
@@ -95,7 +96,8 @@ export function dragHandle(e: MapExtent, kind: HandleKind, displayH: number, cm:
   const hi = Math.max(e.distanceStartCm, e.distanceEndCm);
   switch (kind) {
     case "start":
-      return { ...e, clockStartH: storedH };
+      // Moving the start of a ring opens it: its end stays at 12 o'clock, stored as 0.
+      return { ...e, clockStartH: storedH, clockEndH: normalizeHours(e.clockEndH) };
     case "end":
       return { ...e, clockEndH: storedH };
     case "inner":

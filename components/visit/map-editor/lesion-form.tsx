@@ -1,5 +1,5 @@
 "use client";
-// The inspector for the selected lesion. One schema (lesionFieldsSchema) for the form and the
+// The inspector for the selected lesion. One schema (lesionFieldsSchema; the form adds the whole-circumference rule) for the form and the
 // route. Choices save as soon as they are made; typed fields save on leaving the field or Enter.
 import { useEffect, useRef } from "react";
 import { Controller, useForm, useWatch, type Control } from "react-hook-form";
@@ -8,9 +8,9 @@ import type { z } from "zod";
 import { Caution } from "@/components/ui/caution";
 import { GRADE_ENCODING } from "@/components/canal-map";
 import { GRADE_LABEL, GRADES, HISTOLOGY_AS_GRADE, HISTOLOGY_LABEL } from "@/lib/domain/vocab";
-import type { DisplayConvention } from "@/lib/geometry";
+import { fullCircle, isFullCircle, type DisplayConvention } from "@/lib/geometry";
 import { ClockField } from "./clock-field";
-import { lesionFieldsSchema, type LesionDto } from "@/lib/validation/lesions";
+import { lesionFieldsSchema, lesionFormSchema, type LesionDto } from "@/lib/validation/lesions";
 import type { LesionPatch } from "./use-lesion-store";
 import { SaveLine } from "./save-line";
 import type { SaveInfo } from "./use-lesion-store";
@@ -46,8 +46,8 @@ export interface LesionFormProps {
 }
 
 export function LesionForm({ lesion, convention, readOnly, saveInfo, onCommit, onDelete }: LesionFormProps) {
-  const form = useForm<In, unknown, Out>({ resolver: zodResolver(lesionFieldsSchema), defaultValues: valuesOf(lesion), mode: "onChange" });
-  const { register, control, handleSubmit, reset, formState } = form;
+  const form = useForm<In, unknown, Out>({ resolver: zodResolver(lesionFormSchema), defaultValues: valuesOf(lesion), mode: "onChange" });
+  const { register, control, handleSubmit, reset, formState, setValue } = form;
 
   // The map may change the lesion (drag, keys): take those values, keep what is being typed.
   // Not on mount: the defaults are already this lesion's values.
@@ -67,6 +67,17 @@ export function LesionForm({ lesion, convention, readOnly, saveInfo, onCommit, o
     if (Object.keys(patch).length) onCommit(patch);
   });
   const grade = useWatch({ control, name: "grade" });
+  const [clockStart, clockEnd] = useWatch({ control, name: ["clockStartH", "clockEndH"] });
+  const whole = isFullCircle({ startH: Number(clockStart), endH: Number(clockEnd) });
+  // Unticking the whole circumference gives back the arc drawn before it was ticked (else 12 → 1).
+  const beforeWhole = useRef<{ startH: number; endH: number } | null>(null);
+  function setWhole(on: boolean) {
+    if (on) beforeWhole.current = { startH: Number(clockStart), endH: Number(clockEnd) };
+    const arc = on ? fullCircle() : (beforeWhole.current ?? { startH: 0, endH: 1 });
+    setValue("clockStartH", arc.startH, { shouldDirty: true });
+    setValue("clockEndH", arc.endH, { shouldDirty: true });
+    void save();
+  }
   const err = (k: keyof In) => formState.errors[k]?.message as string | undefined;
   const histGrade = lesion.histology ? HISTOLOGY_AS_GRADE[lesion.histology] : null;
 
@@ -89,9 +100,16 @@ export function LesionForm({ lesion, convention, readOnly, saveInfo, onCommit, o
             Arrange biopsy and onward referral according to local protocol. The impression alone does not diagnose; the clinician decides.
           </Caution>
         ) : null}
+        <label className="inline-flex min-h-11 items-center gap-2 text-sm font-semibold">
+          <input type="checkbox" className="size-5" checked={whole} onChange={(e) => setWhole(e.target.checked)} />
+          Whole circumference
+        </label>
+        {whole ? <p className="text-sm">Clock: the whole circumference (12 of 12 clock hours).{err("clockEndH") ? <span role="alert" className="text-danger-ink"> {err("clockEndH")}</span> : null}</p> : null}
         <div className="grid grid-cols-2 gap-2">
-          <ClockField control={control} name="clockStartH" label="Clock from" conv={convention} onDone={() => void save()} error={err("clockStartH")} />
-          <ClockField control={control} name="clockEndH" label="Clock to (clockwise)" conv={convention} onDone={() => void save()} error={err("clockEndH")} />
+          {whole ? null : <>
+            <ClockField control={control} name="clockStartH" label="Clock from" conv={convention} onDone={() => void save()} error={err("clockStartH")} />
+            <ClockField control={control} name="clockEndH" label="Clock to (clockwise)" conv={convention} onDone={() => void save()} error={err("clockEndH")} />
+          </>}
           <NumberField label="From (cm from verge)" error={err("distanceStartCm")} {...register("distanceStartCm", { valueAsNumber: true, onBlur: () => void save() })} />
           <NumberField label="To (cm from verge)" error={err("distanceEndCm")} {...register("distanceEndCm", { valueAsNumber: true, onBlur: () => void save() })} />
         </div>

@@ -9,11 +9,12 @@ import type { ExtentAssessment } from "@/lib/dosing";
 import type { DisplayConvention } from "@/lib/geometry";
 import { cancerCautionMessage, cancerLesionsReached, gateExtent, isTopical } from "@/lib/validation/treatments";
 import { ArcInputs, describeArc, toArcDraft, toStoredArcs, type ArcDraft } from "./arc-inputs";
+import { LesionCoverage, partialCoverAnswers } from "./lesion-coverage";
 import { Field, FormError, inputClass, Section } from "./field";
 import { MODALITY_WORDS } from "@/lib/domain/labels";
 import { api } from "@/components/data/keys";
 
-interface TreatmentRow { id: string; lesionId: string | null; lesionLabel: string | null; modality: Modality; regimen: string | null; arcs: { startH: number; endH: number }[]; extentOverrideReason: string | null; cancerOverrideReason: string | null; note: string | null }
+interface TreatmentRow { id: string; lesionId: string | null; lesionLabel: string | null; treatedLesionIds: string[]; modality: Modality; regimen: string | null; arcs: { startH: number; endH: number }[]; extentOverrideReason: string | null; cancerOverrideReason: string | null; note: string | null }
 interface TreatmentsDto { treatments: TreatmentRow[]; extent: ExtentAssessment; cautionFraction: number }
 interface LesionsDto { lesions: { id: string; label: string; grade: Grade; clockStartH: number; clockEndH: number; histology: Histology | null }[] }
 
@@ -36,6 +37,7 @@ export function TreatmentsPanel({ visitId, canEdit, conv }: { visitId: string; c
   const [reason, setReason] = useState("");
   const [cancerReason, setCancerReason] = useState("");
   const [note, setNote] = useState("");
+  const [answers, setAnswers] = useState<Record<string, boolean>>({});
   const [fields, setFields] = useState<Record<string, string[]>>({});
   const [serverError, setServerError] = useState<string | null>(null);
   const [busy, setBusy] = useState(false);
@@ -60,8 +62,9 @@ export function TreatmentsPanel({ visitId, canEdit, conv }: { visitId: string; c
     e.preventDefault();
     setBusy(true); setFields({}); setServerError(null);
     try {
-      await sendJson("POST", key, { modality, lesionId: lesionId || null, regimen: regimen || null, arcs: arcs ?? [], extentOverrideReason: reason.trim() || null, cancerOverrideReason: cancerReason.trim() || null, note: note || null });
-      setDrafts([{ start: "", end: "" }]); setReason(""); setCancerReason(""); setNote(""); setRegimen(""); setLesionId("");
+      const partialCover = partialCoverAnswers(risks, lesionId || null, arcs ?? [], answers);
+      await sendJson("POST", key, { modality, lesionId: lesionId || null, regimen: regimen || null, arcs: arcs ?? [], extentOverrideReason: reason.trim() || null, cancerOverrideReason: cancerReason.trim() || null, note: note || null, partialCover });
+      setDrafts([{ start: "", end: "" }]); setReason(""); setCancerReason(""); setNote(""); setRegimen(""); setLesionId(""); setAnswers({});
       await Promise.all([mutate(key), mutate(api.visitPart(visitId, "lesions"))]);
     } catch (err) {
       if (err instanceof ApiError) { setFields(err.fields ?? {}); setServerError(err.fields ? null : err.message); }
@@ -74,6 +77,7 @@ export function TreatmentsPanel({ visitId, canEdit, conv }: { visitId: string; c
     catch (err) { setServerError(err instanceof ApiError ? err.message : "The treatment could not be removed."); }
   }
 
+  const treatedLabels = (t: TreatmentRow) => (map?.lesions ?? []).filter((l) => (t.treatedLesionIds ?? []).includes(l.id) || l.id === t.lesionId).map((l) => l.label);
   const arcError = fields.arcs?.[0] ?? Object.entries(fields).find(([k]) => k.startsWith("arcs."))?.[1][0];
   return (
     <Section id="treatments" title="Treatments">
@@ -91,6 +95,7 @@ export function TreatmentsPanel({ visitId, canEdit, conv }: { visitId: string; c
                 <p className="font-semibold">{MODALITY_WORDS[t.modality]}{t.lesionLabel ? ` · lesion ${t.lesionLabel}` : ""}</p>
                 {t.regimen ? <p className="text-sm">Regimen: {t.regimen}</p> : null}
                 {t.arcs.map((a, i) => <p key={i} className="text-sm">{describeArc(a, conv)}</p>)}
+                {treatedLabels(t).length ? <p className="text-sm">Treated for follow-up: lesion {treatedLabels(t).join(", ")}</p> : null}
                 {t.extentOverrideReason ? <p className="text-sm">△ Saved past the caution level, recorded reason: {t.extentOverrideReason}</p> : null}
                 {t.cancerOverrideReason ? <p className="text-sm">⚠ Treated although it may be cancer, recorded reason: {t.cancerOverrideReason}</p> : null}
                 {t.note ? <p className="text-sm text-ink-soft">{t.note}</p> : null}
@@ -119,6 +124,7 @@ export function TreatmentsPanel({ visitId, canEdit, conv }: { visitId: string; c
             </Field></div>
           ) : null}
           <div className="sm:col-span-2"><ArcInputs drafts={drafts} onChange={setDrafts} conv={conv} error={arcError} /></div>
+          <div className="sm:col-span-2"><LesionCoverage lesions={risks} lesionId={lesionId || null} arcs={arcs ?? []} answers={answers} onAnswer={(id, v) => setAnswers((a) => ({ ...a, [id]: v }))} error={fields.partialCover?.[0]} /></div>
           {preview ? <p className="text-sm sm:col-span-2">With this treatment: {preview.assessment.message}</p> : null}
           {preview?.needsReason || fields.extentOverrideReason ? (
             <div className="flex flex-col gap-2 sm:col-span-2">
