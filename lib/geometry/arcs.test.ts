@@ -7,6 +7,7 @@ import {
   containsHour,
   fractionOfCircumference,
   fullCircle,
+  isFullCircle,
   overlapH,
   rotateArc,
   unionArcs,
@@ -157,5 +158,31 @@ describe("arc properties", () => {
         return f >= 0 && f <= 1;
       }),
     );
+  });
+});
+
+// The whole circumference is written 0 → 12 (the only arc whose end is a whole turn past its
+// start). Full circle = 12 clock hours = 360° = 100 % of the circumference (geometry).
+describe("the full circle written 0 → 12", () => {
+  const ring = arc(0, 12);
+  it("is 12 hours long, 100 % of the circumference, not a point", () => {
+    expect(isFullCircle(ring)).toBe(true);
+    expect(arcLengthH(ring)).toBe(12);
+    expect(fractionOfCircumference([ring])).toBe(1);
+    expect(unionArcs([ring, arc(3, 5)])).toEqual([ring]);
+  });
+  it("contains every hour and overlaps any arc by that arc's length", () => {
+    expect(containsHour(ring, 6)).toBe(true);
+    expect(overlapH(ring, arc(11, 1))).toBe(2);
+  });
+  it("is drawn as the whole turn (2π for d3-shape) and stays a ring when turned", () => {
+    const { startAngle, endAngle } = arcToRadians(ring);
+    expect(endAngle - startAngle).toBeCloseTo(2 * Math.PI, 12);
+    expect(arcLengthH(rotateArc(ring, 6))).toBe(12);
+  });
+  it("keeps a point a point: start = end is 0 % (3 → 3), and 12 → 0 is a point too", () => {
+    expect(arcLengthH(arc(3, 3))).toBe(0);
+    expect(isFullCircle(arc(12, 0))).toBe(false);
+    expect(fractionOfCircumference([arc(0, 0)])).toBe(0);
   });
 });

@@ -1,7 +1,7 @@
 "use client";
 import { memo } from "react";
 import { GRADE_ENCODING, ZONE_ENCODING } from "@/components/canal-map";
-import { formatClock, toDisplayHours, type DisplayConvention } from "@/lib/geometry";
+import { formatClock, isFullCircle, toDisplayHours, type DisplayConvention } from "@/lib/geometry";
 import { numberingSuffix } from "@/components/visit/numbering";
 import type { LesionDto } from "@/lib/validation/lesions";
 import type { SaveInfo } from "./use-lesion-store";
@@ -23,7 +23,7 @@ const Row = memo(function Row({ l, conv, on, s, onSelect }: { l: LesionDto; conv
         <span aria-hidden="true" className="mr-1 inline-block size-3 rounded-full" style={{ background: GRADE_ENCODING[l.grade].hue }} />
         {GRADE_ENCODING[l.grade].label}
       </td>
-      <td className="px-2 py-1 tabular-nums">{formatClock(toDisplayHours(l.clockStartH, conv))} → {formatClock(toDisplayHours(l.clockEndH, conv))}</td>
+      <td className="px-2 py-1 tabular-nums">{isFullCircle({ startH: l.clockStartH, endH: l.clockEndH }) ? "Whole circumference" : <>{formatClock(toDisplayHours(l.clockStartH, conv))} → {formatClock(toDisplayHours(l.clockEndH, conv))}</>}</td>
       <td className="px-2 py-1 tabular-nums">{cm(l.distanceStartCm)} to {cm(l.distanceEndCm)}</td>
       <td className="px-2 py-1">{zoneLabel(l.zone)}</td>
       <td className="px-2 py-1">{l.biopsyLabels.join(", ") || "—"}{l.treated ? " · treated" : ""}</td>
