@@ -33,7 +33,7 @@ export async function readDashboardRows(studyId: string, siteIds: string[]) {
       SELECT id, lead(id) OVER (PARTITION BY patient_id ORDER BY visit_seq) AS next_id FROM vis
     ), treated AS (
       SELECT DISTINCT l.track_id, nv.next_id FROM nv
-      JOIN lesions l ON l.visit_id = nv.id JOIN treatments t ON t.lesion_id = l.id AND t.visit_id = nv.id
+      JOIN lesions l ON l.visit_id = nv.id JOIN treatments t ON (t.lesion_id = l.id OR l.id = ANY(t.treated_lesion_ids)) AND t.visit_id = nv.id
       WHERE l.track_id IS NOT NULL
     )
     SELECT count(*) FILTER (WHERE tr.next_id IS NOT NULL)::int AS followed,

@@ -28,7 +28,7 @@ FROM vis
 ${style === "identified" ? "JOIN patients p ON p.id = vis.patient_id" : ""}
 LEFT JOIN lesions l ON l.visit_id = vis.id
 LEFT JOIN LATERAL (SELECT max(x.histology) AS histology FROM biopsies x WHERE x.lesion_id = l.id) b ON true
-LEFT JOIN LATERAL (SELECT true AS treated FROM treatments t WHERE t.visit_id = l.visit_id AND t.lesion_id = l.id LIMIT 1) tr ON true
+LEFT JOIN LATERAL (SELECT true AS treated FROM treatments t WHERE t.visit_id = l.visit_id AND (t.lesion_id = l.id OR l.id = ANY(t.treated_lesion_ids)) LIMIT 1) tr ON true
 LEFT JOIN LATERAL (SELECT round(least(1, coalesce(sum(t.treated_fraction), 0))::numeric, 3) AS fraction FROM treatments t WHERE t.visit_id = vis.id) tf ON true
 LEFT JOIN LATERAL (SELECT ${statusCounts.join(", ")} FROM track_statuses ts WHERE ts.visit_id = vis.id) st ON true
 ${grade ? `WHERE EXISTS (SELECT 1 FROM lesions g WHERE g.visit_id = vis.id AND g.grade = ${lit(grade, "grade")})` : ""}
@@ -52,7 +52,7 @@ ${style === "identified" ? "JOIN patients p ON p.id = vis.patient_id" : ""}
 JOIN lesions l ON l.visit_id = vis.id
 LEFT JOIN lesion_tracks lt ON lt.id = l.track_id
 LEFT JOIN LATERAL (SELECT max(x.histology) AS histology FROM biopsies x WHERE x.lesion_id = l.id) b ON true
-LEFT JOIN LATERAL (SELECT string_agg(DISTINCT t.modality::text, ';') AS modalities FROM treatments t WHERE t.visit_id = l.visit_id AND t.lesion_id = l.id) tr ON true
+LEFT JOIN LATERAL (SELECT string_agg(DISTINCT t.modality::text, ';') AS modalities FROM treatments t WHERE t.visit_id = l.visit_id AND (t.lesion_id = l.id OR l.id = ANY(t.treated_lesion_ids))) tr ON true
 LEFT JOIN track_statuses ts ON ts.track_id = l.track_id AND ts.visit_id = l.visit_id
 ${grade ? `WHERE l.grade = ${lit(grade, "grade")}` : ""}
 ORDER BY vis.study_subject_id, vis.visit_seq, l.label`;

@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
-import { sectorOf, centreOf } from "./geometry";
-import { buildReportModel } from "@/lib/report/model";
-import { sampleReport } from "@/lib/report/sample.fixture";
+import { sectorOf, centreOf } from "@/lib/map/geometry";
+import { buildReportModel } from "./model";
+import { sampleReport } from "./sample.fixture";
 import { clockHoursCovered } from "@/lib/fhir/terminology";
 import { arcLengthH as trackingArcLengthH, compareArcs } from "@/lib/tracking";
 import { hsilExtent } from "@/lib/tracking/hsil-extent";
