@@ -75,6 +75,8 @@ export function moveExtent(e: MapExtent, dH: number, dCm: number): MapExtent {
 
 /** Widen (+) or narrow (−) the arc at its clockwise end; never below a point, never a full turn. */
 export function resizeArc(e: MapExtent, dH: number): MapExtent {
+  // A ring cannot widen; narrowing opens it from 12 o'clock (0 → 11:30 for one step).
+  if (isFullCircle({ startH: e.clockStartH, endH: e.clockEndH }) && dH >= 0) return e;
   const length = Math.min(MAX_ARC_H, Math.max(0, arcLengthH({ startH: e.clockStartH, endH: e.clockEndH }) + dH));
   return { ...e, clockEndH: normalizeHours(e.clockStartH + length) };
 }
