@@ -7,7 +7,11 @@ import { GRADES, HISTOLOGY, TRACK_STATUSES } from "@/lib/domain/vocab";
 import type { ExportDataset } from "@/lib/validation/research";
 import { IDENTITY_COLUMNS, baseCtes, dateColumn, dateStyle, lit, type ExportScope } from "./export-scope";
 
-/** Lesions counted per visit: by impression grade, by worst histology, treated, and tracks by status. */
+/**
+ * Lesions counted per visit: by impression grade, by worst histology, treated, and tracks by status.
+ * treated_fraction: every treatment row of a visit carries the union of the visit's treated arcs
+ * (stampVisitTreatedFraction), so the visit's figure is any row's, never their sum.
+ */
 export function countsSelect(scope: ExportScope): string {
   const style = dateStyle(scope.filter);
   const grade = scope.filter.grade;
@@ -29,7 +33,7 @@ ${style === "identified" ? "JOIN patients p ON p.id = vis.patient_id" : ""}
 LEFT JOIN lesions l ON l.visit_id = vis.id
 LEFT JOIN LATERAL (SELECT max(x.histology) AS histology FROM biopsies x WHERE x.lesion_id = l.id) b ON true
 LEFT JOIN LATERAL (SELECT true AS treated FROM treatments t WHERE t.visit_id = l.visit_id AND (t.lesion_id = l.id OR l.id = ANY(t.treated_lesion_ids)) LIMIT 1) tr ON true
-LEFT JOIN LATERAL (SELECT round(least(1, coalesce(sum(t.treated_fraction), 0))::numeric, 3) AS fraction FROM treatments t WHERE t.visit_id = vis.id) tf ON true
+LEFT JOIN LATERAL (SELECT round(coalesce(max(t.treated_fraction), 0)::numeric, 3) AS fraction FROM treatments t WHERE t.visit_id = vis.id) tf ON true
 LEFT JOIN LATERAL (SELECT ${statusCounts.join(", ")} FROM track_statuses ts WHERE ts.visit_id = vis.id) st ON true
 ${grade ? `WHERE EXISTS (SELECT 1 FROM lesions g WHERE g.visit_id = vis.id AND g.grade = ${lit(grade, "grade")})` : ""}
 GROUP BY vis.id, vis.study_subject_id, vis.visit_seq, vis.visit_date, vis.consent_date${style === "identified" ? ", p.mrn" : ""}
