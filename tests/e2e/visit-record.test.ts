@@ -74,8 +74,8 @@ describe("the visit record panels", () => {
     await screenshot(page, "visit-record-draft");
     // The whole circumference in one tick: the form names it and asks for the reason (100 % ≥ 50 %).
     await page.getByLabel("Whole circumference treated").check();
-    await page.getByText("The whole circumference (12 of 12 clock hours)").waitFor();
-    await page.getByLabel("Reason for treating this much in one session").waitFor();
+    await page.getByText("The whole circumference (12 of 12 clock hours)").first().waitFor();
+    await page.getByLabel("Reason for treating this much in one session").first().waitFor();
     await screenshot(page, "visit-record-whole-circumference");
     await page.getByLabel("Whole circumference treated").uncheck();
   });
