@@ -1,7 +1,7 @@
 import "server-only";
-import { and, asc, desc, eq, inArray, lt, sql as dsql } from "drizzle-orm";
+import { and, asc, desc, eq, inArray, isNotNull, lt, sql as dsql } from "drizzle-orm";
 import { db, type Tx } from "../client";
-import { lesions, lesionTracks, trackChecks, visits } from "../schema";
+import { biopsies, keptNewLesions, lesions, lesionTracks, trackChecks, users, visits } from "../schema";
 import type { TrackCheckOutcome } from "@/lib/domain/vocab";
 import { nextTrackLabel } from "@/lib/domain/track-label";
 
@@ -18,6 +18,14 @@ export function earlierSightings(patientId: string, beforeDate: string) {
     .innerJoin(lesionTracks, eq(lesionTracks.id, lesions.trackId))
     .where(and(eq(visits.patientId, patientId), lt(visits.visitDate, beforeDate)))
     .orderBy(desc(visits.visitDate));
+}
+
+/** The biopsy results of some lesions (rows without a result left out). */
+export function biopsyResultsOfLesions(lesionIds: string[]) {
+  return db
+    .select({ lesionId: biopsies.lesionId, histology: biopsies.histology })
+    .from(biopsies)
+    .where(and(inArray(biopsies.lesionId, lesionIds), isNotNull(biopsies.histology)));
 }
 
 export function lesionPlacesOfVisit(visitId: string) {
@@ -91,4 +99,21 @@ export async function upsertTrackCheck(tx: Tx, values: { visitId: string; trackI
 
 export async function deleteTrackCheck(tx: Tx, visitId: string, trackId: string): Promise<void> {
   await tx.delete(trackChecks).where(and(eq(trackChecks.visitId, visitId), eq(trackChecks.trackId, trackId)));
+}
+
+/** Lesions of a visit kept as new tracks, with who decided and when. */
+export function keptNewOfVisit(visitId: string) {
+  return db
+    .select({ lesionId: keptNewLesions.lesionId, decidedBy: users.displayName, decidedAt: keptNewLesions.decidedAt })
+    .from(keptNewLesions)
+    .innerJoin(users, eq(users.id, keptNewLesions.decidedBy))
+    .where(eq(keptNewLesions.visitId, visitId));
+}
+
+export async function insertKeptNew(tx: Tx, values: { lesionId: string; visitId: string; siteId: string; decidedBy: string }): Promise<void> {
+  await tx.insert(keptNewLesions).values(values).onConflictDoNothing();
+}
+
+export async function deleteKeptNew(tx: Tx, lesionId: string): Promise<void> {
+  await tx.delete(keptNewLesions).where(eq(keptNewLesions.lesionId, lesionId));
 }

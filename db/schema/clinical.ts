@@ -152,6 +152,18 @@ export const trackChecks = pgTable(
   (t) => [unique("track_checks_visit_track").on(t.visitId, t.trackId), index("track_checks_track_idx").on(t.trackId)],
 );
 
+/**
+ * A lesion drawn fresh at a follow-up visit that the examiner decided is new, not an earlier track
+ * found again: it is no longer offered for linking, for anyone who opens the visit.
+ */
+export const keptNewLesions = pgTable("kept_new_lesions", {
+  lesionId: uuid("lesion_id").primaryKey().references(() => lesions.id, { onDelete: "cascade" }),
+  visitId: uuid("visit_id").notNull().references(() => visits.id, { onDelete: "cascade" }),
+  siteId: uuid("site_id").notNull().references(() => sites.id),
+  decidedBy: text("decided_by").notNull().references(() => users.id),
+  decidedAt: timestamp("decided_at", { withTimezone: true }).notNull().defaultNow(),
+}, (t) => [index("kept_new_lesions_visit_idx").on(t.visitId)]);
+
 /** Derived: each track's status at each visit (lib/tracking), refreshed on every write. */
 export const trackStatuses = pgTable(
   "track_statuses",
@@ -321,6 +333,9 @@ export const adjudications = pgTable(
     comment: text("comment"),
     resolvedAt: timestamp("resolved_at", { withTimezone: true }),
     resolvedBy: text("resolved_by").references(() => users.id),
+    /** Which view stands, recorded when the disagreement is resolved. */
+    outcome: e.disagreementOutcomeEnum("outcome"),
+    outcomeNote: text("outcome_note"),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [unique("adjudications_review_track").on(t.reviewId, t.trackId)],

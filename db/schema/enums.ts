@@ -29,4 +29,7 @@ export const attachmentKindEnum = pgEnum("attachment_kind", ["photo", "document"
 export const reviewStatusEnum = pgEnum("review_status", ["requested", "in_progress", "signed_off"]);
 // not_examined: the reviewer could not judge this track (images or notes do not show it).
 export const verdictEnum = pgEnum("verdict", ["agree", "disagree", "not_examined"]);
+// How a reviewer's disagreement was settled: the reviewer's proposed status accepted (the record was
+// changed to match) or the recorded status kept.
+export const disagreementOutcomeEnum = pgEnum("disagreement_outcome", v.DISAGREEMENT_OUTCOMES);
 export const outboxStatusEnum = pgEnum("outbox_status", ["pending", "sent", "failed"]);

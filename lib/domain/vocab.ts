@@ -75,6 +75,14 @@ export type TrackStatus = (typeof TRACK_STATUSES)[number];
 export const VERDICTS = ["agree", "disagree", "not_examined"] as const;
 export type Verdict = (typeof VERDICTS)[number];
 
+/** How a reviewer's disagreement was settled: which view of the track's status stands. */
+export const DISAGREEMENT_OUTCOMES = ["proposed_accepted", "recorded_kept"] as const;
+export type DisagreementOutcome = (typeof DISAGREEMENT_OUTCOMES)[number];
+export const DISAGREEMENT_OUTCOME_LABEL: Record<DisagreementOutcome, string> = {
+  proposed_accepted: "The reviewer's status stands (record changed to match)",
+  recorded_kept: "The recorded status stands",
+};
+
 export const TRACK_CHECK_OUTCOMES = ["not_found", "treated"] as const;
 export type TrackCheckOutcome = (typeof TRACK_CHECK_OUTCOMES)[number];
 

@@ -3,7 +3,7 @@ import "server-only";
 // clinician's decisions (link, split, merge, not found), each audited.
 import { db } from "@/db/client";
 import {
-  deleteTrackCheck, dropTrackIfEmpty, earlierSightings, insertNextTrack, lesionOfTrackOnVisit, lesionPlacesOfVisit, lesionTrackOnVisit, lockPatientRow,
+  biopsyResultsOfLesions, deleteKeptNew, deleteTrackCheck, insertKeptNew, keptNewOfVisit, dropTrackIfEmpty, earlierSightings, insertNextTrack, lesionOfTrackOnVisit, lesionPlacesOfVisit, lesionTrackOnVisit, lockPatientRow,
   moveTrack, setLesionTrack, sightingsOfTracks, trackChecksOfVisit, trackIsPatients, upsertTrackCheck,
 } from "@/db/queries/track-links";
 import { loadVisit, lockDraftVisit } from "@/db/queries/visit-access";
@@ -12,6 +12,7 @@ import { recordAudit } from "@/db/queries/audit-write";
 import type { SiteScope } from "@/db/queries/scope";
 import { AppError } from "@/lib/errors";
 import { matchLesionsToTracks } from "@/lib/tracking";
+import { lesionGrades } from "@/lib/tracking/effective-grade";
 import type { TrackAction } from "@/lib/validation/tracking";
 import { refreshTrackStatuses } from "./track-statuses";
 
@@ -31,13 +32,21 @@ export async function loadFollowUpContext(scope: SiteScope, visitId: string) {
   const earlier = await earlierSightings(visit.patientId, visit.visitDate);
   const ghosts = new Map<string, (typeof earlier)[number]>();
   for (const l of earlier) if (l.trackId && !ghosts.has(l.trackId)) ghosts.set(l.trackId, l);
-  const here = await lesionPlacesOfVisit(visit.id);
-  const checks = await trackChecksOfVisit(visit.id);
+  const lastSeen = [...ghosts.values()];
+  const [here, checks, kept, results] = await Promise.all([
+    lesionPlacesOfVisit(visit.id),
+    trackChecksOfVisit(visit.id),
+    keptNewOfVisit(visit.id),
+    lastSeen.length ? biopsyResultsOfLesions(lastSeen.map((g) => g.lesionId)) : [],
+  ]);
+  // Shown as the timeline and compare screens show it: histology decides over the impression.
+  const grades = lesionGrades(lastSeen.map((g) => ({ id: g.lesionId, grade: g.grade })), results);
 
   const foundTracks = new Set(here.map((l) => l.trackId));
   const checkedTracks = new Set(checks.map((c) => c.trackId));
-  // Lesions drawn fresh: their track has no sighting before this visit.
-  const fresh = here.filter((l) => !l.trackId || !ghosts.has(l.trackId));
+  // Lesions drawn fresh: their track has no sighting before this visit. One kept as new is decided.
+  const keptIds = new Set(kept.map((k) => k.lesionId));
+  const fresh = here.filter((l) => (!l.trackId || !ghosts.has(l.trackId)) && !keptIds.has(l.id));
   const open = [...ghosts.values()].filter((g) => !foundTracks.has(g.trackId) && !checkedTracks.has(g.trackId!));
   const suggestion = matchLesionsToTracks(
     open.map((g) => ({ trackId: g.trackId!, label: g.trackLabel, startH: g.clockStartH, endH: g.clockEndH, distStartCm: g.distanceStartCm, distEndCm: g.distanceEndCm, zone: g.zone })),
@@ -45,13 +54,14 @@ export async function loadFollowUpContext(scope: SiteScope, visitId: string) {
   );
   return {
     visit: { id: visit.id, status: visit.status, visitDate: visit.visitDate },
-    ghosts: [...ghosts.values()].map((g) => ({ ...g, foundHere: foundTracks.has(g.trackId), checkHere: checks.find((c) => c.trackId === g.trackId)?.outcome ?? null })),
+    ghosts: lastSeen.map(({ grade: impression, ...g }) => ({ ...g, impression, histology: grades.get(g.lesionId)!.histology, grade: grades.get(g.lesionId)!.effectiveGrade, foundHere: foundTracks.has(g.trackId), checkHere: checks.find((c) => c.trackId === g.trackId)?.outcome ?? null })),
     suggestions: suggestion.matches,
     unmatchedLesionIds: suggestion.unmatchedLesionIds,
+    keptNew: kept.filter((k) => here.some((l) => l.id === k.lesionId && (!l.trackId || !ghosts.has(l.trackId)))).map((k) => ({ ...k, decidedAt: k.decidedAt.toISOString() })),
   };
 }
 
-/** Confirm, relink, split or merge tracks, or mark an earlier track not found; every change audited. */
+/** Confirm, relink, split or merge tracks, mark an earlier track not found, or keep a fresh lesion as new; every change audited. */
 export async function applyTrackAction(scope: SiteScope, visitId: string, action: TrackAction, ip: string) {
   return db.transaction(async (tx) => {
     const [, visit] = await Promise.all([lockPatientStatusesOfVisit(tx, scope, visitId), lockDraftVisit(tx, scope, visitId)]);
@@ -72,6 +82,7 @@ export async function applyTrackAction(scope: SiteScope, visitId: string, action
         if (clash && clash.id !== l.id) throw new AppError("conflict", "Another lesion of this visit already continues that track. Split it first.");
         await setLesionTrack(tx, l.id, action.trackId);
         await deleteTrackCheck(tx, visit.id, action.trackId);
+        await deleteKeptNew(tx, l.id);
         await dropTrackIfEmpty(tx, l.trackId);
         break;
       }
@@ -100,8 +111,17 @@ export async function applyTrackAction(scope: SiteScope, visitId: string, action
       case "uncheck":
         await deleteTrackCheck(tx, visit.id, action.trackId);
         break;
+      case "keep_new":
+        await lesionHere(action.lesionId);
+        await insertKeptNew(tx, { lesionId: action.lesionId, visitId: visit.id, siteId: visit.siteId, decidedBy: scope.userId });
+        break;
+      case "unkeep_new":
+        await lesionHere(action.lesionId);
+        await deleteKeptNew(tx, action.lesionId);
+        break;
     }
-    await refreshTrackStatuses(tx, visit.patientId, visit.siteId);
+    // Keeping a lesion as new changes no track, so no status.
+    if (action.action !== "keep_new" && action.action !== "unkeep_new") await refreshTrackStatuses(tx, visit.patientId, visit.siteId);
     await recordAudit({ userId: scope.userId, siteId: visit.siteId, patientId: visit.patientId, action: `track.${action.action}`, entityType: "visit", entityId: visit.id, ip, detail: { ...action } }, tx);
     return { ok: true };
   });

@@ -1,9 +1,9 @@
 // The timeline and compare screens' view of one patient, worked out from the rows the timeline
 // statement reads: each lesion's worst histology and effective grade (histology decides), and per
 // visit the lesion counts by grade and the treated share of the circumference.
-import { HISTOLOGY_AS_GRADE, type Grade, type Histology, type Modality, type Position, type TrackCheckOutcome, type TrackStatus, type Verdict, type VisitStatus, type Zone } from "@/lib/domain/vocab";
+import { type Grade, type Histology, type Modality, type Position, type TrackCheckOutcome, type TrackStatus, type Verdict, type VisitStatus, type Zone } from "@/lib/domain/vocab";
 import { unionLengthH } from "@/lib/geometry/arcs";
-import { worseHistology } from "@/lib/tracking/histories";
+import { lesionGrades } from "@/lib/tracking/effective-grade";
 
 export interface TimelineRows {
   patient: { id: string; siteId: string; familyName: string; givenName: string; mrn: string };
@@ -27,17 +27,15 @@ export interface TimelineRows {
 export function assembleTimeline(rows: TimelineRows) {
   const { visits: visitRows, tracks: trackRows, lesions: lesionRows, biopsies: biopsyRows, treatments: treatmentRows, statuses: statusRows, checks: checkRows, reviews: reviewRows, adjudications: adjudicationRows } = rows;
   const patient = rows.patient;
-  const histologyByLesion = new Map<string, Histology>();
   const biopsyLabels = new Map<string, string[]>();
   for (const b of biopsyRows) {
     if (!b.lesionId) continue;
     biopsyLabels.set(b.lesionId, [...(biopsyLabels.get(b.lesionId) ?? []), b.label]);
-    if (b.histology) histologyByLesion.set(b.lesionId, worseHistology(histologyByLesion.get(b.lesionId), b.histology)!);
   }
+  const grades = lesionGrades(lesionRows, biopsyRows);
   const treatedLesions = new Set(treatmentRows.map((t) => t.lesionId).filter(Boolean));
   const lesionDtos = lesionRows.map((l) => {
-    const histology = histologyByLesion.get(l.id) ?? null;
-    const effectiveGrade: Grade = histology ? HISTOLOGY_AS_GRADE[histology] : l.grade;
+    const { histology, effectiveGrade } = grades.get(l.id)!;
     return { ...l, histology, effectiveGrade, biopsyLabels: biopsyLabels.get(l.id) ?? [], treated: treatedLesions.has(l.id) };
   });
 

@@ -7,6 +7,7 @@ import {
   type Grade,
   type Histology,
 } from "@/lib/domain/vocab";
+import { worstHistologyByLesion } from "./histories";
 
 /** Acronyms stay as written; other labels read as ordinary words inside a sentence. */
 function inSentence(label: string): string {
@@ -36,4 +37,26 @@ export function decideGrade(impression?: Grade, histology?: Histology | null): G
   }
   if (impression) return { grade: impression, basis: `impression ${gradeWords(impression)}` };
   return { grade: null, basis: "no grade recorded" };
+}
+
+/** A lesion's histology and the grade it counts as, as every screen shows it. */
+export interface LesionGrade {
+  histology: Histology | null;
+  effectiveGrade: Grade;
+}
+
+/**
+ * The grade each lesion counts as: its worst biopsy result decides over its impression
+ * (decideGrade). The one source for the visit page's earlier tracks and the timeline and compare
+ * screens, so a track reads the same grade on each.
+ */
+export function lesionGrades(
+  lesions: readonly { id: string; grade: Grade }[],
+  biopsies: readonly { lesionId: string | null; histology: Histology | null }[],
+): Map<string, LesionGrade> {
+  const worst = worstHistologyByLesion(biopsies);
+  return new Map(lesions.map((l) => {
+    const histology = worst.get(l.id) ?? null;
+    return [l.id, { histology, effectiveGrade: decideGrade(l.grade, histology).grade ?? l.grade }];
+  }));
 }

@@ -28,7 +28,7 @@ export function worstHistology(results: readonly (Histology | null | undefined)[
 }
 
 /** The worst histology among each lesion's biopsies (the worst decides). */
-export function worstHistologyByLesion(rows: { lesionId: string | null; histology: Histology | null }[]): Map<string, Histology> {
+export function worstHistologyByLesion(rows: readonly { lesionId: string | null; histology: Histology | null }[]): Map<string, Histology> {
   const out = new Map<string, Histology>();
   for (const b of rows) {
     if (!b.lesionId || !b.histology) continue;

@@ -4,7 +4,7 @@ import { TRACK_CHECK_OUTCOMES, TRACK_STATUSES, VERDICTS } from "@/lib/domain/voc
 
 const id = (what: string) => text().uuid(`Not a valid ${what}.`);
 
-/** The clinician confirms, relinks, splits or merges tracks, and marks earlier tracks not found. */
+/** The clinician confirms, relinks, splits or merges tracks, marks earlier tracks not found, and keeps fresh lesions as new. */
 export const trackActionSchema = z.discriminatedUnion(
   "action",
   [
@@ -13,8 +13,11 @@ export const trackActionSchema = z.discriminatedUnion(
     z.object({ action: z.literal("merge"), trackId: id("track"), intoTrackId: id("track") }),
     z.object({ action: z.literal("check"), trackId: id("track"), outcome: z.enum(TRACK_CHECK_OUTCOMES, { message: "Choose not found or treated." }) }),
     z.object({ action: z.literal("uncheck"), trackId: id("track") }),
+    // A lesion drawn fresh here is a new lesion, not an earlier track found again (and undoing that).
+    z.object({ action: z.literal("keep_new"), lesionId: id("lesion") }),
+    z.object({ action: z.literal("unkeep_new"), lesionId: id("lesion") }),
   ],
-  { message: "Choose link, split, merge, check or uncheck." },
+  { message: "Choose link, split, merge, check, uncheck, keep_new or unkeep_new." },
 );
 export type TrackAction = z.infer<typeof trackActionSchema>;
 

@@ -9,6 +9,11 @@ import type { CheckOutcome, GhostDto, SuggestionDto } from "./use-follow-up";
 export const BTN = "min-h-11 min-w-11 rounded-md px-3 font-semibold disabled:opacity-50";
 export const BTN_MAIN = `${BTN} bg-lagoon-600 text-white hover:bg-lagoon-700`;
 export const BTN_PLAIN = `${BTN} border border-rule-strong bg-panel text-ink hover:bg-lagoon-50`;
+/** A decision that has been made: filled, with a tick, so it does not rely on colour alone. */
+export const BTN_PRESSED = `${BTN} border border-lagoon-700 bg-lagoon-600 text-white`;
+
+/** The three decisions on an earlier track at this visit; none is chosen until the examiner chooses. */
+const DECISIONS: readonly (readonly ["found" | CheckOutcome, string])[] = [["found", "Found"], ["not_found", "Not found"], ["treated", "Treated"]];
 
 /** The mark made at this visit, in words a clinician would say. */
 export function ghostStatusWords(g: Pick<GhostDto, "foundHere" | "checkHere">, foundAs?: string | null): string {
@@ -50,9 +55,10 @@ function LookAgainItemInner(p: LookAgainItemProps) {
         <button type="button" onClick={() => p.onSelect(g.trackId)} className="min-h-11 min-w-11 rounded-md text-left font-bold underline-offset-2 hover:underline" aria-pressed={p.selected}>
           {g.trackLabel}
         </button>
-        <span>
+        <span data-ghost-grade>
           <span aria-hidden="true" className="mr-1 inline-block size-3 rounded-full" style={{ background: enc.hue }} />
           {enc.label}
+          {g.histology ? <span className="text-ink-soft"> (histology{g.impression !== g.grade ? `; impression ${GRADE_ENCODING[g.impression].label}` : ""})</span> : null}
         </span>
         <span className="text-ink-soft">last seen {g.visitDate} as {g.label}</span>
       </div>
@@ -61,20 +67,33 @@ function LookAgainItemInner(p: LookAgainItemProps) {
         {open ? "○ " : g.foundHere ? "● " : "✕ "}
         {ghostStatusWords(g, p.foundAs)}
       </p>
-      {p.readOnly ? null : open ? (
+      {p.readOnly ? null : (
         <div className="mt-1 flex flex-wrap items-center gap-2">
-          <button type="button" disabled={p.busy} className={BTN_MAIN} aria-label={`Found ${g.trackLabel}`} onClick={() => p.onFound(g)}>Found</button>
-          <button type="button" disabled={p.busy} className={BTN_PLAIN} aria-label={`Not found ${g.trackLabel}`} onClick={() => p.onCheck(g, "not_found")}>Not found</button>
-          <button type="button" disabled={p.busy} className={BTN_PLAIN} aria-label={`Treated ${g.trackLabel}`} onClick={() => p.onCheck(g, "treated")}>Treated</button>
-          <span className="text-sm text-ink-soft">
-            {p.suggestion ? `Found links lesion ${p.suggestion.lesionLabel}, drawn here.` : "Found draws a lesion at the earlier place."}
-          </span>
+          <div role="group" aria-label={`Decision on ${g.trackLabel}`} className="flex flex-wrap gap-2">
+            {DECISIONS.map(([key, words]) => {
+              const pressed = state === key;
+              // Once a lesion here continues the track, "not found" or "treated" cannot also be true.
+              const blocked = g.foundHere && !pressed;
+              const choose = () => {
+                if (key === "found") { if (!pressed) p.onFound(g); }
+                else if (pressed) p.onUncheck(g);
+                else p.onCheck(g, key);
+              };
+              return (
+                <button key={key} type="button" disabled={p.busy || blocked} aria-pressed={pressed} className={pressed ? BTN_PRESSED : BTN_PLAIN} aria-label={`${words} ${g.trackLabel}`} onClick={choose}>
+                  {pressed ? <span aria-hidden="true">✓ </span> : null}{words}
+                </button>
+              );
+            })}
+          </div>
+          {g.checkHere ? <button type="button" disabled={p.busy} className={BTN_PLAIN} aria-label={`Undo the mark on ${g.trackLabel}`} onClick={() => p.onUncheck(g)}>Undo</button> : null}
+          {open ? (
+            <span className="text-sm text-ink-soft">
+              {p.suggestion ? `Found links lesion ${p.suggestion.lesionLabel}, drawn here.` : "Found draws a lesion at the earlier place."}
+            </span>
+          ) : null}
         </div>
-      ) : g.checkHere ? (
-        <div className="mt-1">
-          <button type="button" disabled={p.busy} className={BTN_PLAIN} aria-label={`Undo the mark on ${g.trackLabel}`} onClick={() => p.onUncheck(g)}>Undo</button>
-        </div>
-      ) : null}
+      )}
     </li>
   );
 }

@@ -25,7 +25,6 @@ function Relink({ row, open, busy, onLink, onCancel }: { row: Row; open: readonl
 }
 
 export function SuggestionList({ fu, lesions, readOnly }: { fu: FollowUp; lesions: readonly LesionDto[]; readOnly: boolean }) {
-  const [kept, setKept] = useState<ReadonlySet<string>>(new Set());
   const [relinking, setRelinking] = useState<string | null>(null);
   const data = fu.data;
   if (!data) return null;
@@ -35,7 +34,7 @@ export function SuggestionList({ fu, lesions, readOnly }: { fu: FollowUp; lesion
     ...data.suggestions.map((s) => ({ lesionId: s.lesionId, trackId: s.trackId, explanation: s.explanation })),
     ...data.unmatchedLesionIds.map((lesionId) => ({ lesionId, trackId: null, explanation: null })),
   ]
-    .filter((r) => byId.has(r.lesionId) && !kept.has(r.lesionId))
+    .filter((r) => byId.has(r.lesionId))
     .map((r) => ({ ...r, lesionLabel: byId.get(r.lesionId)!.label, ownTrack: byId.get(r.lesionId)!.trackLabel }));
   const suggested = rows.filter((r) => r.trackId);
 
@@ -72,13 +71,35 @@ export function SuggestionList({ fu, lesions, readOnly }: { fu: FollowUp; lesion
                 <div className="mt-1 flex flex-wrap gap-2">
                   {r.trackId ? <button type="button" className={BTN_MAIN} disabled={fu.busy} aria-label={`Accept ${r.lesionLabel} as ${t?.trackLabel ?? "the suggested track"}`} onClick={() => link(r, r.trackId!)}>Accept</button> : null}
                   {open.length > 0 ? <button type="button" className={BTN_PLAIN} disabled={fu.busy} onClick={() => setRelinking(r.lesionId)}>{r.trackId ? "Choose another track" : "Link to an earlier track"}</button> : null}
-                  <button type="button" className={BTN_PLAIN} onClick={() => { setKept((k) => new Set(k).add(r.lesionId)); fu.setNote({ tone: "ok", text: `Lesion ${r.lesionLabel} kept as a new track${r.ownTrack ? ` (${r.ownTrack})` : ""}.` }); }}>Keep as new</button>
+                  <button type="button" className={BTN_PLAIN} disabled={fu.busy} aria-label={`Keep ${r.lesionLabel} as new`} onClick={() => void fu.act({ action: "keep_new", lesionId: r.lesionId }, `Lesion ${r.lesionLabel} kept as a new track${r.ownTrack ? ` (${r.ownTrack})` : ""}.`)}>Keep as new</button>
                 </div>
               )}
             </li>
           );
         })}
       </ul>
+      <KeptNewList fu={fu} byId={byId} readOnly={readOnly} />
     </section>
+  );
+}
+
+/** Fresh lesions already kept as new: who decided, when, and a way back while the visit is a draft. */
+function KeptNewList({ fu, byId, readOnly }: { fu: FollowUp; byId: ReadonlyMap<string, LesionDto>; readOnly: boolean }) {
+  const kept = (fu.data?.keptNew ?? []).filter((k) => byId.has(k.lesionId));
+  if (kept.length === 0) return null;
+  return (
+    <ul className="flex flex-col gap-1" aria-label="Kept as new">
+      {kept.map((k) => {
+        const l = byId.get(k.lesionId)!;
+        return (
+          <li key={k.lesionId} data-kept-new={l.label} className="flex flex-wrap items-center gap-2 rounded-md border border-dashed border-rule px-3 py-1 text-sm">
+            <span><span className="font-bold">{l.label}</span> kept as new{l.trackLabel ? ` (${l.trackLabel})` : ""} by {k.decidedBy}, {k.decidedAt.slice(0, 10)}</span>
+            {readOnly ? null : (
+              <button type="button" className={BTN_PLAIN} disabled={fu.busy} aria-label={`Undo keeping ${l.label} as new`} onClick={() => void fu.act({ action: "unkeep_new", lesionId: k.lesionId }, `Lesion ${l.label} is offered for linking again.`)}>Undo</button>
+            )}
+          </li>
+        );
+      })}
+    </ul>
   );
 }

@@ -5,7 +5,7 @@
 import { useCallback, useMemo, useState } from "react";
 import useSWR, { useSWRConfig } from "swr";
 import { ApiError, fetcher, sendJson } from "@/components/data/fetcher";
-import type { Grade, Zone } from "@/lib/domain/vocab";
+import type { Grade, Histology, Zone } from "@/lib/domain/vocab";
 import type { LesionDto } from "@/lib/validation/lesions";
 import type { TrackAction } from "@/lib/validation/tracking";
 import { api } from "@/components/data/keys";
@@ -24,7 +24,10 @@ export interface GhostDto {
   distanceStartCm: number;
   distanceEndCm: number;
   zone: Zone;
+  /** The grade it counts as (histology decides over the impression), as the compare page shows it. */
   grade: Grade;
+  impression: Grade;
+  histology: Histology | null;
   foundHere: boolean;
   checkHere: CheckOutcome | null;
 }
@@ -34,6 +37,8 @@ export interface FollowUpDto {
   ghosts: GhostDto[];
   suggestions: SuggestionDto[];
   unmatchedLesionIds: string[];
+  /** Fresh lesions an examiner decided are new (no longer offered for linking), with who and when. */
+  keptNew: { lesionId: string; decidedBy: string; decidedAt: string }[];
 }
 export type ActionNote = { tone: "ok" | "danger"; text: string };
 
@@ -79,13 +84,16 @@ export function useFollowUp(visitId: string) {
     [key, setContext, refreshLesions],
   );
 
-  /** Found at its old place: a lesion is drawn where the ghost is, then linked, in one go. */
+  /**
+   * Found at its old place: a lesion is drawn where the ghost is, then linked, in one go. It starts
+   * from the earlier impression (this visit's histology is not known yet).
+   */
   const foundAtGhost = useCallback(
     async (g: GhostDto): Promise<boolean> => {
       setBusy(true);
       let created: LesionDto | null = null;
       try {
-        const extent = { clockStartH: g.clockStartH, clockEndH: g.clockEndH, distanceStartCm: g.distanceStartCm, distanceEndCm: g.distanceEndCm, grade: g.grade };
+        const extent = { clockStartH: g.clockStartH, clockEndH: g.clockEndH, distanceStartCm: g.distanceStartCm, distanceEndCm: g.distanceEndCm, grade: g.impression };
         created = (await sendJson<{ lesion: LesionDto }>("POST", lesionsKey(visitId), extent)).lesion;
         const next = await sendJson<FollowUpDto>("POST", key, { action: "link", lesionId: created.id, trackId: g.trackId });
         await setContext(next, { revalidate: false });
