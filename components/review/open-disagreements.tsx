@@ -4,11 +4,12 @@ import Link from "next/link";
 import { useState } from "react";
 import useSWR from "swr";
 import { Button } from "@/components/ui/button";
-import { fetcher, sendJson, type ApiError } from "@/components/data/fetcher";
+import { fetcher, type ApiError } from "@/components/data/fetcher";
 import { STATUS_LABEL } from "@/components/timeline/status-glyph";
-import type { TrackStatus } from "@/lib/domain/vocab";
+import { DISAGREEMENT_OUTCOME_LABEL, type DisagreementOutcome, type TrackStatus } from "@/lib/domain/vocab";
 import { compareHref } from "./review-model";
 import { api } from "@/components/data/keys";
+import { ResolveDisagreement } from "./resolve-disagreement";
 
 interface Disagreement {
   id: string;
@@ -20,33 +21,25 @@ interface Disagreement {
   reviewId: string;
   visitId: string;
   comparedVisitId: string | null;
+  resolvedAt: string | null;
+  resolvedBy: string | null;
+  outcome: DisagreementOutcome | null;
+  outcomeNote: string | null;
 }
 
 export const disagreementsUrl = (patientId: string) => api.patientReviews(patientId);
 
 /**
  * A reviewer's open disagreements with this patient's track statuses. The clinician reads
- * them, acts in the record, then marks each one resolved.
+ * them, acts in the record, then marks each one resolved, saying which status stands; resolved
+ * ones stay listed with that outcome, who settled it and when.
  */
 export function OpenDisagreements({ patientId, canResolve }: { patientId: string; canResolve: boolean }) {
-  const { data, error, mutate } = useSWR<{ openDisagreements: Disagreement[] }, ApiError>(disagreementsUrl(patientId), fetcher);
-  const [busy, setBusy] = useState<string | null>(null);
-  const [failure, setFailure] = useState<string | null>(null);
-
-  const resolve = async (id: string) => {
-    setBusy(id);
-    setFailure(null);
-    try {
-      await sendJson("POST", api.resolveAdjudication(id));
-      await mutate();
-    } catch (e) {
-      setFailure(e instanceof Error ? e.message : "Not resolved.");
-    } finally {
-      setBusy(null);
-    }
-  };
+  const { data, error, mutate } = useSWR<{ openDisagreements: Disagreement[]; resolvedDisagreements: Disagreement[] }, ApiError>(disagreementsUrl(patientId), fetcher);
+  const [resolving, setResolving] = useState<string | null>(null);
 
   const items = data?.openDisagreements ?? [];
+  const resolved = data?.resolvedDisagreements ?? [];
   return (
     <section aria-labelledby={`disagree-${patientId}`} className="rounded-lg border border-rule bg-panel p-3">
       <h2 id={`disagree-${patientId}`} className="font-bold">Open review disagreements</h2>
@@ -63,21 +56,39 @@ export function OpenDisagreements({ patientId, canResolve }: { patientId: string
                 <span className="text-ink-soft"> · {d.createdAt.slice(0, 10)}</span>
               </p>
               {d.comment ? <p className="italic">“{d.comment}”</p> : null}
-              <div className="mt-1 flex flex-wrap gap-2">
-                {d.comparedVisitId ? (
-                  <Link href={compareHref(patientId, d.comparedVisitId, d.visitId)} className="inline-flex min-h-11 items-center font-semibold text-lagoon-700 underline">
-                    Open in Compare
-                  </Link>
-                ) : null}
-                {canResolve ? (
-                  <Button variant="secondary" disabled={busy === d.id} onClick={() => resolve(d.id)}>Mark resolved</Button>
-                ) : null}
-              </div>
+              {resolving === d.id ? (
+                <ResolveDisagreement adjudicationId={d.id} trackLabel={d.trackLabel} onCancel={() => setResolving(null)} onDone={() => { setResolving(null); void mutate(); }} />
+              ) : (
+                <div className="mt-1 flex flex-wrap gap-2">
+                  {d.comparedVisitId ? (
+                    <Link href={compareHref(patientId, d.comparedVisitId, d.visitId)} className="inline-flex min-h-11 items-center font-semibold text-lagoon-700 underline">
+                      Open in Compare
+                    </Link>
+                  ) : null}
+                  {canResolve ? <Button variant="secondary" onClick={() => setResolving(d.id)}>Mark resolved</Button> : null}
+                </div>
+              )}
             </li>
           ))}
         </ul>
       ) : null}
-      {failure ? <p role="alert" className="mt-2 text-sm text-danger-ink">{failure}</p> : null}
+      {resolved.length ? (
+        <>
+          <h3 className="mt-3 font-bold">Resolved ({resolved.length})</h3>
+          <ul className="mt-1 space-y-1 text-sm">
+            {resolved.map((d) => (
+              <li key={d.id} data-resolved-disagreement={d.trackLabel} className="rounded-md border border-rule px-3 py-2">
+                <p>
+                  <span className="font-bold">{d.trackLabel}</span>: {d.reviewer ?? "The reviewer"} believed {d.proposedStatus ? STATUS_LABEL[d.proposedStatus] : "a different status"}.{" "}
+                  <span className="font-semibold">{d.outcome ? DISAGREEMENT_OUTCOME_LABEL[d.outcome] : "Resolved without a recorded outcome"}</span>
+                  {" "}· {d.resolvedBy ?? "unknown"}, {d.resolvedAt!.slice(0, 10)}
+                </p>
+                {d.outcomeNote ? <p className="italic">“{d.outcomeNote}”</p> : null}
+              </li>
+            ))}
+          </ul>
+        </>
+      ) : null}
     </section>
   );
 }

@@ -1,5 +1,6 @@
 import "server-only";
-import { and, asc, eq, inArray, isNull, sql as dsql } from "drizzle-orm";
+import { and, asc, desc, eq, inArray, sql as dsql } from "drizzle-orm";
+import type { DisagreementOutcome } from "@/lib/domain/vocab";
 import { alias } from "drizzle-orm/pg-core";
 import { db, type Tx } from "../client";
 import { adjudications, lesionTracks, patients, reviews, users, userSites, visits } from "../schema";
@@ -50,7 +51,7 @@ export async function trackIsPatients(tx: Tx, trackId: string, patientId: string
   return Boolean(t);
 }
 
-type Verdict = Pick<typeof adjudications.$inferInsert, "verdict" | "proposedStatus" | "comment" | "resolvedAt" | "resolvedBy">;
+type Verdict = Pick<typeof adjudications.$inferInsert, "verdict" | "proposedStatus" | "comment" | "resolvedAt" | "resolvedBy" | "outcome" | "outcomeNote">;
 export async function upsertAdjudication(tx: Tx, key: { reviewId: string; siteId: string; trackId: string }, values: Verdict) {
   const [a] = await tx.insert(adjudications).values({ ...key, ...values })
     .onConflictDoUpdate({ target: [adjudications.reviewId, adjudications.trackId], set: values }).returning();
@@ -65,28 +66,45 @@ export async function setReviewSignedOff(tx: Tx, reviewId: string, reviewerId: s
   await tx.update(reviews).set({ status: "signed_off", signedOffAt: new Date(), reviewerId }).where(eq(reviews.id, reviewId));
 }
 
-export async function adjudicationInScope(tx: Tx, scope: SiteScope, adjudicationId: string) {
-  const [a] = await tx.select({ id: adjudications.id, siteId: adjudications.siteId, reviewId: adjudications.reviewId }).from(adjudications).where(and(eq(adjudications.id, adjudicationId), inScope(adjudications.siteId, scope)));
+/** The adjudication in scope, locked for the resolution, with its patient and what it said. */
+export async function adjudicationForUpdate(tx: Tx, scope: SiteScope, adjudicationId: string) {
+  const [a] = await tx
+    .select({ id: adjudications.id, siteId: adjudications.siteId, reviewId: adjudications.reviewId, patientId: reviews.patientId, verdict: adjudications.verdict, proposedStatus: adjudications.proposedStatus, resolvedAt: adjudications.resolvedAt })
+    .from(adjudications)
+    .innerJoin(reviews, eq(reviews.id, adjudications.reviewId))
+    .where(and(eq(adjudications.id, adjudicationId), inScope(adjudications.siteId, scope)))
+    .for("update", { of: adjudications });
   return a ?? null;
 }
 
-export async function markAdjudicationResolved(tx: Tx, adjudicationId: string, userId: string): Promise<void> {
-  await tx.update(adjudications).set({ resolvedAt: new Date(), resolvedBy: userId }).where(eq(adjudications.id, adjudicationId));
+export async function markAdjudicationResolved(tx: Tx, adjudicationId: string, values: { resolvedBy: string; outcome: DisagreementOutcome; outcomeNote: string | null }) {
+  const [a] = await tx.update(adjudications).set({ resolvedAt: new Date(), ...values }).where(eq(adjudications.id, adjudicationId)).returning({ resolvedAt: adjudications.resolvedAt });
+  return a!;
 }
 
-/** Open disagreements on a patient, for the patient page. */
-export async function listOpenDisagreements(scope: SiteScope, patientId: string) {
+/**
+ * A patient's reviewer disagreements, for the patient and compare pages: open ones, and resolved
+ * ones with which status stood, who settled it and when (newest first).
+ */
+export async function listDisagreements(scope: SiteScope, patientId: string) {
   // Another site's patient (or none) is not found, not an empty list: the answer must not
   // differ from the one for a record that does not exist, and must not read as "no reviews".
   const [p] = await db.select({ id: patients.id }).from(patients).where(and(eq(patients.id, patientId), inScope(patients.siteId, scope)));
   if (!p) throw new AppError("not_found");
+  const resolver = alias(users, "resolver");
   return db
-    .select({ id: adjudications.id, trackLabel: lesionTracks.label, proposedStatus: adjudications.proposedStatus, comment: adjudications.comment, reviewer: users.displayName, createdAt: adjudications.createdAt, reviewId: reviews.id, visitId: reviews.visitId, comparedVisitId: reviews.comparedVisitId })
+    .select({
+      id: adjudications.id, trackLabel: lesionTracks.label, proposedStatus: adjudications.proposedStatus, comment: adjudications.comment, reviewer: users.displayName,
+      createdAt: adjudications.createdAt, reviewId: reviews.id, visitId: reviews.visitId, comparedVisitId: reviews.comparedVisitId,
+      resolvedAt: adjudications.resolvedAt, resolvedBy: resolver.displayName, outcome: adjudications.outcome, outcomeNote: adjudications.outcomeNote,
+    })
     .from(adjudications)
     .innerJoin(reviews, eq(reviews.id, adjudications.reviewId))
     .innerJoin(lesionTracks, eq(lesionTracks.id, adjudications.trackId))
     .leftJoin(users, eq(users.id, reviews.reviewerId))
-    .where(and(eq(reviews.patientId, patientId), eq(adjudications.verdict, "disagree"), isNull(adjudications.resolvedAt), inScope(adjudications.siteId, scope)));
+    .leftJoin(resolver, eq(resolver.id, adjudications.resolvedBy))
+    .where(and(eq(reviews.patientId, patientId), eq(adjudications.verdict, "disagree"), inScope(adjudications.siteId, scope)))
+    .orderBy(desc(adjudications.resolvedAt), asc(adjudications.createdAt));
 }
 
 export async function listReviewersForSite(siteId: string) {

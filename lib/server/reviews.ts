@@ -1,13 +1,13 @@
 import "server-only";
 import { db } from "@/db/client";
 import {
-  activeReviewerOfSite, adjudicationInScope, insertReview, loadReviewFor, markAdjudicationResolved, patientSiteInScope, reviewForUpdate,
+  activeReviewerOfSite, adjudicationForUpdate, insertReview, loadReviewFor, markAdjudicationResolved, patientSiteInScope, reviewForUpdate,
   setReviewInProgress, setReviewSignedOff, trackIsPatients, upsertAdjudication, visitIsPatients,
 } from "@/db/queries/reviews";
 import { recordAudit } from "@/db/queries/audit-write";
 import type { SiteScope } from "@/db/queries/scope";
 import { AppError } from "@/lib/errors";
-import type { AdjudicationInput } from "@/lib/validation/tracking";
+import type { AdjudicationInput, ResolveDisagreementInput } from "@/lib/validation/tracking";
 import { notifyReviewRequested } from "./notifications";
 
 export async function requestReview(scope: SiteScope, patientId: string, input: { visitId: string; comparedVisitId?: string | null; reviewerId: string }, ip: string) {
@@ -40,7 +40,7 @@ export async function adjudicate(scope: SiteScope, reviewId: string, input: Adju
     if (r.status === "signed_off") throw new AppError("locked", "This review is signed off; open a new review to change it.");
     if (r.reviewerId && r.reviewerId !== scope.userId) throw new AppError("forbidden", "This review is assigned to another reviewer.");
     if (!(await trackIsPatients(tx, input.trackId, r.patientId))) throw new AppError("invalid", undefined, { trackId: ["That track is not this patient's."] });
-    const values = { verdict: input.verdict, proposedStatus: input.verdict === "disagree" ? (input.proposedStatus ?? null) : null, comment: input.comment ?? null, resolvedAt: null, resolvedBy: null };
+    const values = { verdict: input.verdict, proposedStatus: input.verdict === "disagree" ? (input.proposedStatus ?? null) : null, comment: input.comment ?? null, resolvedAt: null, resolvedBy: null, outcome: null, outcomeNote: null };
     const a = await upsertAdjudication(tx, { reviewId: r.id, siteId: r.siteId, trackId: input.trackId }, values);
     await setReviewInProgress(tx, r.id, r.reviewerId ?? scope.userId);
     await recordAudit({ userId: scope.userId, siteId: r.siteId, patientId: r.patientId, action: "review.adjudicate", entityType: "adjudication", entityId: a.id, ip, detail: { ...input } }, tx);
@@ -59,13 +59,22 @@ export async function signOffReview(scope: SiteScope, reviewId: string, ip: stri
   return { ok: true };
 }
 
-/** The clinician acknowledges a disagreement after acting on it. */
-export async function resolveAdjudication(scope: SiteScope, adjudicationId: string, ip: string) {
-  await db.transaction(async (tx) => {
-    const a = await adjudicationInScope(tx, scope, adjudicationId);
+/**
+ * The clinician settles a reviewer's disagreement after acting on it, saying which status stands
+ * (the reviewer's, the record having been changed to match, or the recorded one) and why.
+ */
+export async function resolveAdjudication(scope: SiteScope, adjudicationId: string, input: ResolveDisagreementInput, ip: string) {
+  return db.transaction(async (tx) => {
+    const a = await adjudicationForUpdate(tx, scope, adjudicationId);
     if (!a) throw new AppError("not_found");
-    await markAdjudicationResolved(tx, a.id, scope.userId);
-    await recordAudit({ userId: scope.userId, siteId: a.siteId, action: "review.resolve", entityType: "adjudication", entityId: a.id, ip }, tx);
+    if (a.verdict !== "disagree") throw new AppError("conflict", "Only a disagreement is resolved; this verdict agrees or did not examine.");
+    if (a.resolvedAt) throw new AppError("conflict", "This disagreement is already resolved.");
+    const outcomeNote = input.note || null;
+    const { resolvedAt } = await markAdjudicationResolved(tx, a.id, { resolvedBy: scope.userId, outcome: input.outcome, outcomeNote });
+    await recordAudit({
+      userId: scope.userId, siteId: a.siteId, patientId: a.patientId, action: "review.resolve", entityType: "adjudication", entityId: a.id, ip,
+      detail: { outcome: input.outcome, note: outcomeNote, proposedStatus: a.proposedStatus },
+    }, tx);
+    return { id: a.id, outcome: input.outcome, outcomeNote, resolvedAt, resolvedBy: scope.userId };
   });
-  return { ok: true };
 }

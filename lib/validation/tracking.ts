@@ -1,6 +1,6 @@
 import { z } from "zod";
 import { text } from "@/lib/validation/text";
-import { TRACK_CHECK_OUTCOMES, TRACK_STATUSES, VERDICTS } from "@/lib/domain/vocab";
+import { DISAGREEMENT_OUTCOMES, TRACK_CHECK_OUTCOMES, TRACK_STATUSES, VERDICTS } from "@/lib/domain/vocab";
 
 const id = (what: string) => text().uuid(`Not a valid ${what}.`);
 
@@ -39,3 +39,10 @@ export const adjudicationSchema = z
     path: ["comment"],
   });
 export type AdjudicationInput = z.infer<typeof adjudicationSchema>;
+
+/** Resolving a reviewer's disagreement: which status stands, and optionally why. */
+export const resolveDisagreementSchema = z.object({
+  outcome: z.enum(DISAGREEMENT_OUTCOMES, { message: "Choose which status stands." }),
+  note: text().trim().max(2000, "Keep the note under 2,000 characters.").nullable().optional(),
+});
+export type ResolveDisagreementInput = z.infer<typeof resolveDisagreementSchema>;

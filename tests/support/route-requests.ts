@@ -43,7 +43,7 @@ export const SPECS: Record<string, RequestSpec> = {
   "GET /api/attachments/[attachmentId]": { skipRightRole: "the fixture row has no stored object (404 'stored file is missing'); downloads are covered by attachments.test.ts" },
   "GET /api/visits/[visitId]/report": { params: (w) => ({ visitId: w.ids.signedVisitId }) },
 
-  "POST /api/adjudications/[adjudicationId]/resolve": { body: "none" },
+  "POST /api/adjudications/[adjudicationId]/resolve": { body: () => ({ outcome: "recorded_kept" }) },
   "PUT /api/admin/followup-rules": { body: (w) => ({ siteId: w.siteA, rules: { clear_exam: 24 } }) },
   "POST /api/admin/invitations": { body: (w) => ({ email: `new-${randomUUID()}@test.example`, siteId: w.siteA, role: "reviewer" }) },
   "POST /api/admin/invitations/[invitationId]/resend": { body: "none" },
