@@ -1,7 +1,7 @@
 // Editing arithmetic for lesion extents. Gestures work in DISPLAY hours (what the hand does
 // on screen) and convert to stored hours at the end, so the result never depends on the
 // convention. All values snap to the editor grid: 0.5 h and 0.5 cm.
-import { arcLengthH, fromDisplayHours, isFullCircle, normalizeHours, snapCm, snapHours, type DisplayConvention } from "@/lib/geometry";
+import { arcLengthH, fromDisplayHours, isFullCircle, normalizeHours, snapCm, snapHours, toDisplayHours, type DisplayConvention } from "@/lib/geometry";
 import type { MapExtent } from "@/components/canal-map";
 
 export const STEP_H = 0.5;
@@ -89,6 +89,20 @@ export function resizeDepth(e: MapExtent, dCm: number): MapExtent {
 }
 
 export type HandleKind = "start" | "end" | "inner" | "outer";
+
+/**
+ * Where the edge a handle moves lies now (display hours, cm). A handle is dragged by the pointer's
+ * travel from where it was pressed, added to this: the grip sits a little outside the edge, so
+ * the edge must not jump to the pointer on the first move.
+ */
+export function handleEdge(e: MapExtent, kind: HandleKind, conv: DisplayConvention): { displayH: number; cm: number } {
+  const lo = Math.min(e.distanceStartCm, e.distanceEndCm);
+  const hi = Math.max(e.distanceStartCm, e.distanceEndCm);
+  const midH = toDisplayHours(e.clockStartH, conv) + arcLengthH({ startH: e.clockStartH, endH: e.clockEndH }) / 2;
+  if (kind === "start") return { displayH: toDisplayHours(e.clockStartH, conv), cm: (lo + hi) / 2 };
+  if (kind === "end") return { displayH: toDisplayHours(e.clockEndH, conv), cm: (lo + hi) / 2 };
+  return { displayH: normalizeHours(midH), cm: kind === "inner" ? hi : lo };
+}
 
 /** Drag one handle to a snapped point: an end of the arc, or one edge of the distance range. */
 export function dragHandle(e: MapExtent, kind: HandleKind, displayH: number, cm: number, conv: DisplayConvention): MapExtent {

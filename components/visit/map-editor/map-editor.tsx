@@ -138,8 +138,29 @@ export function MapEditor(props: MapEditorProps) {
   );
 }
 
-const HANDLE_R = 9;
-const HANDLE_HIT_R = 24;
+/**
+ * Handles sit outside the lesion, each on a short stalk from the edge it moves, with their whole
+ * tap target outside the lesion too: a small lesion stays tappable (to select or move it) however
+ * closely its handles crowd. The grip is HANDLE_HIT_R across in viewBox units (about 34 CSS px on
+ * a tablet-sized map, above the 24 px minimum of WCAG 2.2, 2.5.8); the dot drawn is smaller.
+ */
+const HANDLE_R = 6;
+export const HANDLE_HIT_R = 22;
+
+/** Where each handle is drawn: its edge's middle, pushed HANDLE_HIT_R out from the lesion. */
+export function handleSpots(lesion: MapExtent, conv: DisplayConvention): Array<{ kind: HandleKind; edge: { x: number; y: number }; at: { x: number; y: number } }> {
+  const g = sectorOf(lesion, conv);
+  const midR = (g.innerRadius + g.outerRadius) / 2;
+  const midA = (g.startAngle + g.endAngle) / 2;
+  // Turning by asin(d / r) at radius r puts a point d away from the radial edge line.
+  const turn = HANDLE_HIT_R < midR ? Math.asin(HANDLE_HIT_R / midR) : Math.PI / 2;
+  return [
+    { kind: "start", edge: polar(g.startAngle, midR), at: polar(g.startAngle - turn, midR) },
+    { kind: "end", edge: polar(g.endAngle, midR), at: polar(g.endAngle + turn, midR) },
+    { kind: "inner", edge: polar(midA, g.innerRadius), at: polar(midA, Math.max(0, g.innerRadius - HANDLE_HIT_R)) },
+    { kind: "outer", edge: polar(midA, g.outerRadius), at: polar(midA, g.outerRadius + HANDLE_HIT_R) },
+  ];
+}
 
 type HandleStart = (id: string, h: HandleKind, from: MapExtent, e: PointerEvent) => unknown;
 
@@ -150,18 +171,9 @@ const SelectedHandles = memo(function SelectedHandles({ selection, lesions, conv
 });
 
 const Handles = memo(function Handles({ lesion, conv, onStart }: { lesion: MapLesion; conv: DisplayConvention; onStart: HandleStart }) {
-  const g = sectorOf(lesion, conv);
-  const midR = (g.innerRadius + g.outerRadius) / 2;
-  const midA = (g.startAngle + g.endAngle) / 2;
-  const spots: Array<[HandleKind, { x: number; y: number }, string]> = [
-    ["start", polar(g.startAngle, midR), "start of the arc"],
-    ["end", polar(g.endAngle, midR), "end of the arc"],
-    ["inner", polar(midA, g.innerRadius), "deep edge"],
-    ["outer", polar(midA, g.outerRadius), "shallow edge"],
-  ];
   return (
     <g aria-hidden="true">
-      {spots.map(([kind, p]) => (
+      {handleSpots(lesion, conv).map(({ kind, edge, at }) => (
         <g
           key={kind}
           data-handle={kind}
@@ -172,8 +184,9 @@ const Handles = memo(function Handles({ lesion, conv, onStart }: { lesion: MapLe
             onStart(lesion.id, kind, extentOf(lesion), e);
           }}
         >
-          <circle cx={p.x} cy={p.y} r={HANDLE_HIT_R} fill="transparent" />
-          <circle cx={p.x} cy={p.y} r={HANDLE_R} fill="var(--color-panel)" stroke="var(--color-lagoon-600)" strokeWidth={3} />
+          <line x1={edge.x} y1={edge.y} x2={at.x} y2={at.y} stroke="var(--color-lagoon-600)" strokeWidth={2} pointerEvents="none" />
+          <circle cx={at.x} cy={at.y} r={HANDLE_HIT_R} fill="transparent" data-handle-hit />
+          <circle cx={at.x} cy={at.y} r={HANDLE_R} fill="var(--color-panel)" stroke="var(--color-lagoon-600)" strokeWidth={3} />
         </g>
       ))}
     </g>

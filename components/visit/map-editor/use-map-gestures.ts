@@ -4,7 +4,7 @@
 import { useCallback, useRef, useState, type PointerEvent } from "react";
 import { clientToSvg, OUTER_RADIUS, siteOfPoint, type MapExtent } from "@/components/canal-map";
 import { normalizeHours, toDisplayHours, type DisplayConvention } from "@/lib/geometry";
-import { dragHandle, moveExtent, sameExtent, sweepExtent, tapExtent, turnH, type HandleKind } from "./extent-math";
+import { dragHandle, handleEdge, moveExtent, sameExtent, sweepExtent, tapExtent, turnH, type HandleKind } from "./extent-math";
 
 type Gesture =
   | { kind: "create" }
@@ -94,7 +94,10 @@ export function useMapGestures({ svgRef, conv, enabled, onCreate, onChange }: Op
       let extent: MapExtent;
       if (g.kind === "create") extent = sweepExtent(a.anchorDisplayH, a.anchorCm, a.sweepH, at.cm, conv);
       else if (g.kind === "move") extent = moveExtent(g.from, a.sweepH, at.cm - a.anchorCm);
-      else extent = dragHandle(g.from, g.handle, normalizeHours(at.displayH), at.cm, conv);
+      else {
+        const edge = handleEdge(g.from, g.handle, conv);
+        extent = dragHandle(g.from, g.handle, normalizeHours(edge.displayH + a.sweepH), edge.cm + (at.cm - a.anchorCm), conv);
+      }
       if (a.extent && sameExtent(a.extent, extent)) return;
       a.extent = extent;
       setPreview({ id: g.kind === "create" ? null : g.id, extent });
