@@ -3,6 +3,7 @@
 import { useActionState } from "react";
 import { Button } from "@/components/ui/button";
 import type { OverrideState } from "@/lib/validation/due-dates";
+import { ISO_DATE_INPUT } from "@/components/ui/date-input";
 
 export type OverrideAction = (prev: OverrideState, form: FormData) => Promise<OverrideState>;
 
@@ -16,7 +17,7 @@ export function OverrideForm({ patientId, hasOverride, overrideAction }: { patie
         <input type="hidden" name="patientId" value={patientId} />
         <div>
           <label htmlFor="due-date" className="block text-sm font-semibold">Next visit by</label>
-          <input id="due-date" name="date" type="date" required className="mt-1 min-h-11 rounded-md border border-rule-strong bg-panel px-2" />
+          <input id="due-date" name="date" {...ISO_DATE_INPUT} required className="mt-1 min-h-11 rounded-md border border-rule-strong bg-panel px-2" />
           {f.date ? <p className="mt-1 text-sm text-danger-ink">{f.date[0]}</p> : null}
         </div>
         <div className="min-w-64 flex-1">

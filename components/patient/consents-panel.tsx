@@ -4,6 +4,7 @@ import { useState } from "react";
 import { useRouter } from "next/navigation";
 import { Button } from "@/components/ui/button";
 import { sendJson } from "@/components/data/fetcher";
+import { ISO_DATE_INPUT } from "@/components/ui/date-input";
 
 export interface ConsentRow { id: string; studyId: string; studyCode: string; studyTitle: string; consentedOn: string; formVersion: string; withdrawnOn: string | null }
 export interface StudyOption { id: string; code: string; title: string; consentFormVersion: string }
@@ -57,7 +58,7 @@ export function ConsentsPanel({ patientId, consents, studies, canRecord, today }
           </div>
           <div>
             <label htmlFor="consent-date" className="block font-semibold">Consent signed on</label>
-            <input id="consent-date" type="date" value={date} max={today} onChange={(e) => setDate(e.target.value)} className="mt-1 min-h-11 rounded-md border border-rule-strong bg-panel px-2" />
+            <input id="consent-date" {...ISO_DATE_INPUT} value={date} max={today} onChange={(e) => setDate(e.target.value)} className="mt-1 min-h-11 rounded-md border border-rule-strong bg-panel px-2" />
           </div>
           <p className="pb-3 text-ink-soft">Form version {version ?? "—"}</p>
           <Button type="submit" disabled={pending || !studyId}>Record consent</Button>

@@ -4,6 +4,7 @@ import { useState } from "react";
 import { useRouter } from "next/navigation";
 import { ApiError, sendJson } from "@/components/data/fetcher";
 import { api } from "@/components/data/keys";
+import { ISO_DATE_INPUT } from "@/components/ui/date-input";
 
 const POSITIONS = [
   ["lithotomy", "Lithotomy"],
@@ -35,7 +36,7 @@ export function NewVisitForm({ patientId, today }: { patientId: string; today: s
   return (
     <form onSubmit={submit} className="flex flex-wrap items-end gap-3 rounded-lg border border-rule bg-panel p-3" aria-label="Start a new visit">
       <label className="text-sm font-semibold">Visit date<br />
-        <input type="date" value={date} onChange={(e) => setDate(e.target.value)} required className="min-h-11 rounded-md border border-rule-strong px-2 font-normal" />
+        <input {...ISO_DATE_INPUT} value={date} onChange={(e) => setDate(e.target.value)} required className="min-h-11 rounded-md border border-rule-strong px-2 font-normal" />
       </label>
       <label className="text-sm font-semibold">Patient position<br />
         <select value={position} onChange={(e) => setPosition(e.target.value)} className="min-h-11 rounded-md border border-rule-strong bg-panel px-2 font-normal">

@@ -14,6 +14,7 @@ import { HIV_STATUS, PATIENT_STATUSES, RISK_GROUPS, SEX_AT_BIRTH, type PatientSt
 import { GROUP_TEXT } from "@/lib/due-dates/eligibility";
 import { registerPatientSchema } from "@/lib/validation/patients";
 import { Field, SelectField } from "./patient-fields";
+import { ISO_DATE_INPUT } from "@/components/ui/date-input";
 
 type In = z.input<typeof registerPatientSchema>;
 type Out = z.output<typeof registerPatientSchema>;
@@ -79,7 +80,7 @@ export function PatientForm(props: { sites: { id: string; name: string }[]; clin
         ) : null}
         <Field label="Family name" autoComplete="off" error={errors.familyName?.message} {...form.register("familyName")} />
         <Field label="Given name" autoComplete="off" error={errors.givenName?.message} {...form.register("givenName")} />
-        <Field label="Date of birth" type="date" error={errors.dateOfBirth?.message} {...form.register("dateOfBirth")} />
+        <Field label="Date of birth" {...ISO_DATE_INPUT} error={errors.dateOfBirth?.message} {...form.register("dateOfBirth")} />
         <SelectField label="Sex at birth" error={errors.sexAtBirth?.message} {...form.register("sexAtBirth")} options={SEX_AT_BIRTH.map((s) => [s, SEX_WORDS[s]])} placeholder="Choose…" />
         <Field label="Medical record number" hint="unique at the site" error={errors.mrn?.message} {...form.register("mrn")} />
         <Field label="Postal code" hint="optional" error={errors.postalCode?.message} {...form.register("postalCode")} />
@@ -87,7 +88,7 @@ export function PatientForm(props: { sites: { id: string; name: string }[]; clin
       <fieldset className="grid gap-4 sm:grid-cols-2">
         <legend className="mb-2 text-lg font-bold">Screening</legend>
         <SelectField label="HIV status" error={errors.hivStatus?.message} {...form.register("hivStatus")} options={HIV_STATUS.map((s) => [s, HIV_WORDS[s]])} />
-        <Field label="Transplant or vulvar diagnosis date" hint="if needed" type="date" error={errors.riskDate?.message} {...form.register("riskDate")} />
+        <Field label="Transplant or vulvar diagnosis date" hint="if needed" {...ISO_DATE_INPUT} error={errors.riskDate?.message} {...form.register("riskDate")} />
         <div className="sm:col-span-2">
           <p className="text-sm font-semibold">Risk groups (IANS 2024): tick every one that applies</p>
           <div className="mt-1 grid gap-x-4 sm:grid-cols-2">

@@ -4,6 +4,7 @@ import { useState } from "react";
 import { useRouter } from "next/navigation";
 import { ApiError, sendJson } from "@/components/data/fetcher";
 import { api } from "@/components/data/keys";
+import { ISO_DATE_INPUT } from "@/components/ui/date-input";
 
 export interface Candidate {
   ref: string;
@@ -59,7 +60,7 @@ export function EnrolForm({ studyId, candidates, suggestedId, today }: { studyId
         <input value={subjectId} onChange={(e) => setSubjectId(e.target.value)} required maxLength={32} className="min-h-11 w-36 rounded-md border border-rule-strong px-2 font-normal" />
       </label>
       <label className="text-sm font-semibold">Consent date<br />
-        <input type="date" value={consentDate} max={today} onChange={(e) => setConsentDate(e.target.value)} required className="min-h-11 rounded-md border border-rule-strong px-2 font-normal" />
+        <input {...ISO_DATE_INPUT} value={consentDate} max={today} onChange={(e) => setConsentDate(e.target.value)} required className="min-h-11 rounded-md border border-rule-strong px-2 font-normal" />
       </label>
       <button disabled={busy} className="min-h-11 rounded-md bg-lagoon-600 px-4 font-semibold text-white hover:bg-lagoon-700 disabled:bg-rule-strong">{busy ? "Enrolling…" : "Enrol"}</button>
       {error ? <p role="alert" className="w-full text-sm text-danger-ink">{error}</p> : null}

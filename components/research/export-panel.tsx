@@ -3,6 +3,7 @@
 import { useMemo, useState } from "react";
 import { GRADE_LABEL, GRADES } from "@/lib/domain/vocab";
 import { reasonProblem } from "@/lib/validation/research";
+import { ISO_DATE_INPUT } from "@/components/ui/date-input";
 
 const DATASETS = [
   ["counts", "Lesion counts per visit"],
@@ -48,8 +49,8 @@ export function ExportPanel({ studyId, sites, canIdentify }: { studyId: string; 
             </select>
           </label>
         ) : null}
-        <label className="text-sm font-semibold">Visits from<br /><input type="date" value={from} onChange={(e) => setFrom(e.target.value)} className={field} /></label>
-        <label className="text-sm font-semibold">to<br /><input type="date" value={to} onChange={(e) => setTo(e.target.value)} className={field} /></label>
+        <label className="text-sm font-semibold">Visits from<br /><input {...ISO_DATE_INPUT} value={from} onChange={(e) => setFrom(e.target.value)} className={field} /></label>
+        <label className="text-sm font-semibold">to<br /><input {...ISO_DATE_INPUT} value={to} onChange={(e) => setTo(e.target.value)} className={field} /></label>
         <label className="text-sm font-semibold">Grade seen<br />
           <select value={grade} onChange={(e) => setGrade(e.target.value)} className={field}>
             <option value="">Any grade</option>

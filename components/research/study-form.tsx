@@ -8,6 +8,7 @@ import type { z } from "zod";
 import { Button } from "@/components/ui/button";
 import { sendJson } from "@/components/data/fetcher";
 import { studySchema } from "@/lib/validation/studies";
+import { ISO_DATE_INPUT } from "@/components/ui/date-input";
 
 type In = z.input<typeof studySchema>;
 type Out = z.output<typeof studySchema>;
@@ -40,7 +41,7 @@ export function StudyForm({ study, sites }: { study?: StudyValues; sites: { id: 
   const text = (name: "code" | "title" | "startDate" | "consentFormVersion", label: string, extra: { type?: string; width: string }) => (
     <div className={extra.width}>
       <label htmlFor={id(name)} className="block text-sm font-semibold">{label}</label>
-      <input id={id(name)} type={extra.type ?? "text"} {...form.register(name)} aria-invalid={e[name] ? true : undefined} className="mt-1 min-h-11 w-full rounded-md border border-rule-strong bg-panel px-3" />
+      <input id={id(name)} {...(extra.type === "date" ? ISO_DATE_INPUT : { type: "text" })} {...form.register(name)} aria-invalid={e[name] ? true : undefined} className="mt-1 min-h-11 w-full rounded-md border border-rule-strong bg-panel px-3" />
       {e[name] ? <p className="mt-1 text-sm text-danger-ink">{e[name]!.message}</p> : null}
     </div>
   );

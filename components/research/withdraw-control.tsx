@@ -3,6 +3,7 @@
 import { useState } from "react";
 import { useRouter } from "next/navigation";
 import { ApiError, sendJson } from "@/components/data/fetcher";
+import { ISO_DATE_INPUT } from "@/components/ui/date-input";
 
 /** Records a withdrawal date; from that date on, the subject's visits leave every export. */
 export function WithdrawControl({ studyId, enrolmentId, studySubjectId, consentDate, today }: { studyId: string; enrolmentId: string; studySubjectId: string; consentDate: string; today: string }) {
@@ -28,7 +29,7 @@ export function WithdrawControl({ studyId, enrolmentId, studySubjectId, consentD
   }
   return (
     <form onSubmit={submit} className="flex flex-wrap items-center gap-2" aria-label={`Withdraw ${studySubjectId}`}>
-      <input type="date" aria-label="Withdrawal date" value={date} min={consentDate} onChange={(e) => setDate(e.target.value)} required className="min-h-11 rounded-md border border-rule-strong px-2" />
+      <input {...ISO_DATE_INPUT} aria-label="Withdrawal date" value={date} min={consentDate} onChange={(e) => setDate(e.target.value)} required className="min-h-11 rounded-md border border-rule-strong px-2" />
       <button className="min-h-11 rounded-md bg-danger-ink px-3 text-sm font-semibold text-white">Withdraw</button>
       <button type="button" onClick={() => setOpen(false)} className="min-h-11 rounded-md px-3 text-sm font-semibold text-lagoon-700">Cancel</button>
       {error ? <p role="alert" className="w-full text-sm text-danger-ink">{error}</p> : null}

@@ -6,6 +6,7 @@ import { listStaff } from "@/db/queries/users";
 import { requirePageRole } from "@/lib/auth/page-guard";
 import { detailWords, eventWords } from "@/lib/audit/words";
 import { readAuditFilter } from "@/lib/validation/audit";
+import { ISO_DATE_INPUT } from "@/components/ui/date-input";
 
 export const metadata = { title: "Audit trail" };
 
@@ -55,12 +56,12 @@ export default async function AuditPage({ searchParams }: { searchParams: Promis
         </div>
         <div>
           <label htmlFor="from" className="block text-sm font-semibold">From</label>
-          <input id="from" name="from" aria-invalid={errors.from ? true : undefined} aria-describedby={errors.from ? "from-error" : undefined} type="date" defaultValue={errors.from ? "" : q.from ?? ""} className={input} />
+          <input id="from" name="from" aria-invalid={errors.from ? true : undefined} aria-describedby={errors.from ? "from-error" : undefined} {...ISO_DATE_INPUT} defaultValue={errors.from ? "" : q.from ?? ""} className={input} />
           {errors.from ? <p id="from-error" className="mt-1 text-sm font-semibold text-danger-ink">{errors.from}</p> : null}
         </div>
         <div>
           <label htmlFor="to" className="block text-sm font-semibold">To</label>
-          <input id="to" name="to" aria-invalid={errors.to ? true : undefined} aria-describedby={errors.to ? "to-error" : undefined} type="date" defaultValue={q.to ?? ""} className={input} />
+          <input id="to" name="to" aria-invalid={errors.to ? true : undefined} aria-describedby={errors.to ? "to-error" : undefined} {...ISO_DATE_INPUT} defaultValue={q.to ?? ""} className={input} />
           {errors.to ? <p id="to-error" className="mt-1 text-sm font-semibold text-danger-ink">{errors.to}</p> : null}
         </div>
         <button className="min-h-11 rounded-md bg-lagoon-600 px-4 font-semibold text-white hover:bg-lagoon-700">Show</button>

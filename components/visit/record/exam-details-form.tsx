@@ -12,6 +12,7 @@ import { Field, FormError, inputClass, Section } from "./field";
 import { ADEQUACY_WORDS, CYTOLOGY_WORDS, HPV_WORDS, POSITION_WORDS } from "@/lib/domain/labels";
 import { visitKey, type VisitRecordDto } from "./use-visit-record";
 import { api } from "@/components/data/keys";
+import { ISO_DATE_INPUT } from "@/components/ui/date-input";
 
 type In = z.input<typeof examDetailsSchema>;
 type Out = z.output<typeof examDetailsSchema>;
@@ -76,7 +77,7 @@ export function ExamDetailsForm({ visit, canEdit }: { visit: VisitRecordDto; can
         <fieldset disabled={!canEdit || formState.isSubmitting} className="grid gap-3 sm:grid-cols-2 lg:grid-cols-3">
           <legend className="sr-only">Exam details</legend>
           <Field id="visitDate" label="Visit date" error={err("visitDate")}>
-            <input id="visitDate" type="date" className={inputClass} {...register("visitDate")} />
+            <input id="visitDate" {...ISO_DATE_INPUT} className={inputClass} {...register("visitDate")} />
           </Field>
           <Field id="patientPosition" label="Patient position used" error={err("patientPosition")}>
             <select id="patientPosition" className={inputClass} {...register("patientPosition")}>
