@@ -3,7 +3,7 @@
 import { useState } from "react";
 import { useRouter } from "next/navigation";
 import { useForm } from "react-hook-form";
-import { zodResolver } from "@hookform/resolvers/zod";
+import { plainResolver } from "@/components/ui/plain-resolver";
 import type { z } from "zod";
 import { Button } from "@/components/ui/button";
 import { sendJson } from "@/components/data/fetcher";
@@ -33,7 +33,7 @@ export function SiteForm({ site }: { site?: SiteRow }) {
   const router = useRouter();
   const [message, setMessage] = useState<string | null>(null);
   const form = useForm<In, unknown, Out>({
-    resolver: zodResolver(siteSchema),
+    resolver: plainResolver(siteSchema),
     defaultValues: site ? { name: site.name, code: site.code, timeZone: site.timeZone, postalCode: site.postalCode ?? "" } : { name: "", code: "", timeZone: "", postalCode: "" },
   });
   const errors = form.formState.errors;

@@ -5,7 +5,7 @@ import { useState } from "react";
 import Link from "next/link";
 import { useRouter } from "next/navigation";
 import { useForm, useWatch } from "react-hook-form";
-import { zodResolver } from "@hookform/resolvers/zod";
+import { plainResolver } from "@/components/ui/plain-resolver";
 import type { z } from "zod";
 import { Button } from "@/components/ui/button";
 import { ApiError, sendJson } from "@/components/data/fetcher";
@@ -40,7 +40,7 @@ export function PatientForm(props: { sites: { id: string; name: string }[]; clin
   const [candidates, setCandidates] = useState<Candidate[] | null>(null);
   const [status, setStatus] = useState<PatientStatus>(patient?.status ?? "active");
   const form = useForm<In, unknown, Out>({
-    resolver: zodResolver(registerPatientSchema),
+    resolver: plainResolver(registerPatientSchema),
     defaultValues: patient
       ? { ...patient, postalCode: patient.postalCode ?? "", contactEmail: patient.contactEmail ?? "", riskDate: patient.riskDate ?? "", clinicianId: patient.clinicianId ?? "" }
       : { siteId: sites[0]?.id ?? "", familyName: "", givenName: "", dateOfBirth: "", mrn: "", postalCode: "", contactEmail: "", riskDate: "", clinicianId: clinicians.some((c) => c.id === me && c.siteId === sites[0]?.id) ? me : "", riskGroups: [], hivStatus: "unknown", sexAtBirth: undefined },

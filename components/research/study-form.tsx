@@ -3,7 +3,7 @@
 import { useState } from "react";
 import { useRouter } from "next/navigation";
 import { Controller, useForm } from "react-hook-form";
-import { zodResolver } from "@hookform/resolvers/zod";
+import { plainResolver } from "@/components/ui/plain-resolver";
 import type { z } from "zod";
 import { Button } from "@/components/ui/button";
 import { sendJson } from "@/components/data/fetcher";
@@ -19,7 +19,7 @@ export function StudyForm({ study, sites }: { study?: StudyValues; sites: { id: 
   const router = useRouter();
   const [message, setMessage] = useState<string | null>(null);
   const form = useForm<In, unknown, Out>({
-    resolver: zodResolver(studySchema),
+    resolver: plainResolver(studySchema),
     defaultValues: study ? { ...study, siteIds: study.siteIds.filter((s) => sites.some((x) => x.id === s)) } : { code: "", title: "", startDate: "", consentFormVersion: "1", siteIds: sites.length === 1 ? [sites[0]!.id] : [] },
   });
   const e = form.formState.errors;

@@ -3,7 +3,7 @@
 // route. Choices save as soon as they are made; typed fields save on leaving the field or Enter.
 import { useEffect, useRef } from "react";
 import { Controller, useForm, useWatch, type Control } from "react-hook-form";
-import { zodResolver } from "@hookform/resolvers/zod";
+import { plainResolver } from "@/components/ui/plain-resolver";
 import type { z } from "zod";
 import { Caution } from "@/components/ui/caution";
 import { GRADE_ENCODING } from "@/components/canal-map";
@@ -46,7 +46,7 @@ export interface LesionFormProps {
 }
 
 export function LesionForm({ lesion, convention, readOnly, saveInfo, onCommit, onDelete }: LesionFormProps) {
-  const form = useForm<In, unknown, Out>({ resolver: zodResolver(lesionFormSchema), defaultValues: valuesOf(lesion), mode: "onChange" });
+  const form = useForm<In, unknown, Out>({ resolver: plainResolver(lesionFormSchema), defaultValues: valuesOf(lesion), mode: "onChange" });
   const { register, control, handleSubmit, reset, formState, setValue } = form;
 
   // The map may change the lesion (drag, keys): take those values, keep what is being typed.

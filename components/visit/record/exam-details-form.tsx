@@ -1,7 +1,7 @@
 "use client";
 import { useState } from "react";
 import { useForm, useWatch, type Path } from "react-hook-form";
-import { zodResolver } from "@hookform/resolvers/zod";
+import { plainResolver } from "@/components/ui/plain-resolver";
 import type { z } from "zod";
 import { mutate } from "swr";
 import { ApiError, sendJson } from "@/components/data/fetcher";
@@ -42,7 +42,7 @@ function defaults(v: VisitRecordDto): In {
 }
 
 export function ExamDetailsForm({ visit, canEdit }: { visit: VisitRecordDto; canEdit: boolean }) {
-  const form = useForm<In, unknown, Out>({ resolver: zodResolver(examDetailsSchema), values: defaults(visit) });
+  const form = useForm<In, unknown, Out>({ resolver: plainResolver(examDetailsSchema), values: defaults(visit) });
   const { register, handleSubmit, formState, setError, setValue, control } = form;
   const [serverError, setServerError] = useState<string | null>(null);
   const [saved, setSaved] = useState(false);
