@@ -79,7 +79,7 @@ export type Verdict = (typeof VERDICTS)[number];
 export const DISAGREEMENT_OUTCOMES = ["proposed_accepted", "recorded_kept"] as const;
 export type DisagreementOutcome = (typeof DISAGREEMENT_OUTCOMES)[number];
 export const DISAGREEMENT_OUTCOME_LABEL: Record<DisagreementOutcome, string> = {
-  proposed_accepted: "The reviewer's status stands (record changed to match)",
+  proposed_accepted: "The reviewer's status stands: I have changed the record to match",
   recorded_kept: "The recorded status stands",
 };
 
