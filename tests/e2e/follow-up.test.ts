@@ -65,6 +65,7 @@ describe("follow-up visit on a touch tablet", () => {
     await page.getByRole("region", { name: "Map legend" }).screenshot({ path: path.join(SHOTS, "map-legend.png") });
 
     // a: tap its outline on the map, then Found — a lesion is drawn there and linked in one go.
+    await page.locator(`[data-ghost-hit="${a.trackId}"]`).scrollIntoViewIfNeeded(); // the legend shot above scrolled the page
     const hit = (await page.locator(`[data-ghost-hit="${a.trackId}"]`).boundingBox())!;
     await page.touchscreen.tap(hit.x + hit.width / 2, hit.y + hit.height / 2);
     const card = page.locator(`[data-ghost-card="${a.trackLabel}"]`);

@@ -36,7 +36,7 @@ describe("decisions at a follow-up visit", { timeout: 20_000 }, () => {
     const kept = { ...CONTEXT, suggestions: [], keptNew: [{ lesionId: NEW_LESION, decidedBy: "Dr Iris Vane", decidedAt: "2027-07-01T09:30:00.000Z" }] };
     const spy = mount({ on: (url, init) => (init?.method === "POST" && url.endsWith("/tracks") ? reply(200, kept) : undefined) });
     const row = await until('[data-suggestion="L1"]');
-    fireEvent.click(within(row).getByRole("button", { name: "Keep L1 as new" }));
+    fireEvent.click(within(row).getByRole("button", { name: "Keep as new: L1" }));
     await waitFor(() => expect(writes(spy)).toEqual([{ url: "/api/visits/v2/tracks", method: "POST", body: { action: "keep_new", lesionId: NEW_LESION } }]));
 
     // A fresh page (another examiner, or a reload) reads the decision back from the server.
@@ -47,6 +47,6 @@ describe("decisions at a follow-up visit", { timeout: 20_000 }, () => {
     expect(shown.textContent).toContain("kept as new (T9) by Dr Iris Vane, 2027-07-01");
     expect(document.querySelector('[data-suggestion="L1"]')).toBeNull();
     expect(within(shown).getByRole("button", { name: "Undo keeping L1 as new" })).toBeTruthy();
-    expect(screen.queryByRole("button", { name: "Keep L1 as new" })).toBeNull();
+    expect(screen.queryByRole("button", { name: "Keep as new: L1" })).toBeNull();
   });
 });

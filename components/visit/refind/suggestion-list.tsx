@@ -71,7 +71,7 @@ export function SuggestionList({ fu, lesions, readOnly }: { fu: FollowUp; lesion
                 <div className="mt-1 flex flex-wrap gap-2">
                   {r.trackId ? <button type="button" className={BTN_MAIN} disabled={fu.busy} aria-label={`Accept ${r.lesionLabel} as ${t?.trackLabel ?? "the suggested track"}`} onClick={() => link(r, r.trackId!)}>Accept</button> : null}
                   {open.length > 0 ? <button type="button" className={BTN_PLAIN} disabled={fu.busy} onClick={() => setRelinking(r.lesionId)}>{r.trackId ? "Choose another track" : "Link to an earlier track"}</button> : null}
-                  <button type="button" className={BTN_PLAIN} disabled={fu.busy} aria-label={`Keep ${r.lesionLabel} as new`} onClick={() => void fu.act({ action: "keep_new", lesionId: r.lesionId }, `Lesion ${r.lesionLabel} kept as a new track${r.ownTrack ? ` (${r.ownTrack})` : ""}.`)}>Keep as new</button>
+                  <button type="button" className={BTN_PLAIN} disabled={fu.busy} aria-label={`Keep as new: ${r.lesionLabel}`} onClick={() => void fu.act({ action: "keep_new", lesionId: r.lesionId }, `Lesion ${r.lesionLabel} kept as a new track${r.ownTrack ? ` (${r.ownTrack})` : ""}.`)}>Keep as new</button>
                 </div>
               )}
             </li>
