@@ -2,6 +2,7 @@ import "server-only";
 import { findCandidate, insertEnrolment, subjectIdIsSiteMrn, subjectIdTaken } from "@/db/queries/research/enrolment";
 import { getEnrolment, getStudy, withdrawEnrolment } from "@/db/queries/research/studies";
 import { recordAudit } from "@/db/queries/audit-write";
+import { forgetStudyFigures } from "@/db/queries/research/stored-figures";
 import type { SiteScope } from "@/db/queries/scope";
 import { AppError } from "@/lib/errors";
 import { isoDate } from "@/lib/dates/calendar";
@@ -29,6 +30,8 @@ export async function enrolPatient(scope: SiteScope, studyId: string, input: Enr
     if ((err as { code?: string }).code === "23505") throw new AppError("conflict", "This patient or study ID was enrolled a moment ago.");
     throw err;
   }
+  // Who takes part changes every study figure: the dashboard works them out again on its next load.
+  await forgetStudyFigures(studyId, input.siteId);
   await recordAudit({ userId: scope.userId, ip, siteId: input.siteId, patientId, action: "enrolment.create", entityType: "enrolment", entityId: id, detail: { studyId, studySubjectId: input.studySubjectId } });
   return { id, studySubjectId: input.studySubjectId };
 }
@@ -40,6 +43,7 @@ export async function withdrawPatient(scope: SiteScope, studyId: string, enrolme
   if (input.withdrawnOn < enrolment.consentDate) throw new AppError("invalid", undefined, { withdrawnOn: ["Withdrawal cannot come before consent."] });
   if (enrolment.withdrawnOn) throw new AppError("conflict", `Already withdrawn on ${enrolment.withdrawnOn}.`);
   await withdrawEnrolment(enrolmentId, input.withdrawnOn);
+  await forgetStudyFigures(studyId, enrolment.siteId);
   await recordAudit({ userId: scope.userId, ip, siteId: enrolment.siteId, patientId: enrolment.patientId, action: "enrolment.withdraw", entityType: "enrolment", entityId: enrolmentId, detail: { studyId, withdrawnOn: input.withdrawnOn } });
   return { id: enrolmentId, withdrawnOn: input.withdrawnOn };
 }

@@ -11,6 +11,7 @@ import * as s from "@/db/schema";
 import { refreshTrackStatuses } from "@/lib/server/track-statuses";
 import { loadRegistryDashboard } from "@/lib/server/research";
 import { settleStoredFigures } from "@/lib/server/stored-figures";
+import { withdrawPatient } from "@/lib/server/enrolment";
 import { GET as getCsv } from "@/app/api/exports/[dataset]/route";
 import { GRADES, type Grade, type Histology } from "@/lib/domain/vocab";
 import { decideGrade } from "@/lib/tracking/effective-grade";
@@ -137,4 +138,13 @@ describe("study dashboard against the exports", () => {
     expect(Date.parse(after.asOf)).toBeGreaterThan(Date.parse(before.asOf));
   });
 
+
+  it("a withdrawal recorded through the study page shows on the dashboard's next load, whatever the figures' age", async () => {
+    const before = await loadRegistryDashboard(studyId, [siteId]);
+    const [e] = await db.select({ id: s.enrolments.id }).from(s.enrolments).where(and(eq(s.enrolments.studyId, studyId), eq(s.enrolments.studySubjectId, "FIG-2")));
+    await withdrawPatient({ userId: nurse.userId, siteIds: [siteId] }, studyId, e!.id, { withdrawnOn: "2024-12-01" }, "127.0.0.1");
+    const after = await loadRegistryDashboard(studyId, [siteId]);
+    expect(after.patients).toBe(before.patients - 1);
+    expect(after.refreshing).toBe(false);
+  });
 });

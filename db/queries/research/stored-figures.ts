@@ -53,3 +53,8 @@ export async function saveQualityFigures<F>(siteId: string, year: number, window
       setWhere: lt(qualityFigures.computedAt, dsql`excluded.computed_at`),
     });
 }
+
+/** Drops a study site's stored figures, so the next load works them out before it answers. */
+export async function forgetStudyFigures(studyId: string, siteId: string): Promise<void> {
+  await db.delete(studyFigures).where(and(eq(studyFigures.studyId, studyId), eq(studyFigures.siteId, siteId)));
+}
