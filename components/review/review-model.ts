@@ -1,4 +1,5 @@
 // Small pure helpers for the compare screen: which visits, which review, which lesions.
+import type { TrackCheckOutcome } from "@/lib/domain/vocab";
 import type { DiffLesion } from "@/lib/tracking/visit-diff";
 import type { Timeline, TimelineReview, TimelineVisit } from "@/components/timeline/timeline-types";
 import type { TrackLesion } from "@/components/timeline/track-map";
@@ -38,8 +39,8 @@ export function toDiffLesion(l: TrackLesion): DiffLesion {
   };
 }
 
-/** Outcomes recorded at a visit for earlier tracks (not found, treated), by track. */
-export function checksAt(t: Timeline, visitId: string): Record<string, "not_found" | "treated"> {
+/** Outcomes recorded at a visit for earlier tracks (not found, treated, not examined), by track. */
+export function checksAt(t: Timeline, visitId: string): Record<string, TrackCheckOutcome> {
   return Object.fromEntries(t.checks.filter((c) => c.visitId === visitId).map((c) => [c.trackId, c.outcome]));
 }
 

@@ -1,6 +1,7 @@
 "use client";
 
-import { GRADE_LABEL, type Grade, type TrackStatus } from "@/lib/domain/vocab";
+import { GRADE_LABEL, type Grade, type TrackCheckOutcome, type TrackStatus } from "@/lib/domain/vocab";
+import { CHECK_WORDS } from "@/lib/domain/labels";
 import { STATUS_LABEL, StatusMark } from "./status-glyph";
 
 export interface GridVisit {
@@ -21,10 +22,8 @@ export interface GridStatus {
 export interface GridCheck {
   trackId: string;
   visitId: string;
-  outcome: "not_found" | "treated";
+  outcome: TrackCheckOutcome;
 }
-
-const CHECK_WORDS = { not_found: "looked for, not found", treated: "marked treated" } as const;
 
 /**
  * Tracks down, visits across (oldest left): a real table, so a screen reader announces the

@@ -1,19 +1,39 @@
 import "server-only";
-import { and, asc, eq } from "drizzle-orm";
+import { and, asc, eq, isNotNull, lt } from "drizzle-orm";
 import { db, type Tx } from "../client";
-import { addenda, users, visits } from "../schema";
+import { addenda, lesions, lesionTracks, trackChecks, users, visits } from "../schema";
 import { inScope, type SiteScope } from "./scope";
 import { loadVisit } from "./visit-access";
 
 /** The visit row for signing, locked, when it is in the caller's scope. */
 export async function visitForSigning(tx: Tx, scope: SiteScope, visitId: string) {
   const [v] = await tx
-    .select({ id: visits.id, patientId: visits.patientId, siteId: visits.siteId, status: visits.status, examinerId: visits.examinerId, version: visits.version })
+    .select({ id: visits.id, patientId: visits.patientId, siteId: visits.siteId, status: visits.status, examinerId: visits.examinerId, version: visits.version, visitDate: visits.visitDate })
     .from(visits)
     .where(and(eq(visits.id, visitId), inScope(visits.siteId, scope)))
     .for("update")
     .limit(1);
   return v ?? null;
+}
+
+/**
+ * What signing checks about earlier tracks, read inside the signing transaction: every track seen
+ * at a visit of the patient dated before this one (as the follow-up list shows them), the tracks
+ * this visit's lesions continue, and the marks made here. Sent together.
+ */
+export async function trackDecisionsAtVisit(tx: Tx, v: { id: string; patientId: string; visitDate: string }) {
+  const [earlier, found, checks] = await Promise.all([
+    tx
+      .selectDistinct({ trackId: lesionTracks.id, label: lesionTracks.label })
+      .from(lesions)
+      .innerJoin(visits, eq(visits.id, lesions.visitId))
+      .innerJoin(lesionTracks, eq(lesionTracks.id, lesions.trackId))
+      .where(and(eq(visits.patientId, v.patientId), lt(visits.visitDate, v.visitDate)))
+      .execute(),
+    tx.select({ trackId: lesions.trackId }).from(lesions).where(and(eq(lesions.visitId, v.id), isNotNull(lesions.trackId))).execute(),
+    tx.select({ trackId: trackChecks.trackId, outcome: trackChecks.outcome }).from(trackChecks).where(eq(trackChecks.visitId, v.id)).execute(),
+  ]);
+  return { earlier, foundHere: found.map((f) => f.trackId), checks };
 }
 
 export async function markVisitSigned(tx: Tx, visitId: string, signedBy: string, signedAt: Date, version: number): Promise<void> {

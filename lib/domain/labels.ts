@@ -1,5 +1,5 @@
 import type {
-  Acetowhite, Adequacy, AnaestheticAgent, Cytology, HpvResult, Lugol, Modality, Morphology, P16, Position, TrackStatus, Zone,
+  Acetowhite, Adequacy, AnaestheticAgent, Cytology, HpvResult, Lugol, Modality, Morphology, P16, Position, TrackCheckOutcome, TrackStatus, Zone,
 } from "@/lib/domain/vocab";
 
 // Words for stored codes, one set for the screens, the printed report and FHIR texts. Trade
@@ -48,6 +48,13 @@ export const LUGOL_WORDS: Record<Lugol, string> = {
 
 export const STATUS_WORDS: Record<TrackStatus, string> = {
   new: "new", persistent: "persistent", regressed: "regressed", progressed: "progressed", cleared: "cleared", recurrent: "recurrent",
+};
+
+/** An earlier track's decision at a later visit, as a phrase after the track's label. */
+export const CHECK_WORDS: Record<TrackCheckOutcome, string> = {
+  not_found: "looked for, not found",
+  treated: "marked treated",
+  not_examined: "not examined",
 };
 
 export const COMPLICATION_WORDS = { pain: "Pain", bleeding: "Bleeding", other: "Other" } as const;

@@ -70,7 +70,6 @@ export type AnaestheticAgent = (typeof ANAESTHETIC_AGENTS)[number];
 export const TRACK_STATUSES = ["new", "persistent", "regressed", "progressed", "cleared", "recurrent"] as const;
 export type TrackStatus = (typeof TRACK_STATUSES)[number];
 
-/** What the examiner recorded for a previous track at a follow-up visit. */
 /** A reviewer's verdict on one track's status; not_examined when the record does not let them judge it. */
 export const VERDICTS = ["agree", "disagree", "not_examined"] as const;
 export type Verdict = (typeof VERDICTS)[number];
@@ -83,7 +82,12 @@ export const DISAGREEMENT_OUTCOME_LABEL: Record<DisagreementOutcome, string> = {
   recorded_kept: "The recorded status stands",
 };
 
-export const TRACK_CHECK_OUTCOMES = ["not_found", "treated"] as const;
+/**
+ * What the examiner decided at a follow-up visit for an earlier track without a lesion drawn there:
+ * looked for and not found, treated, or not examined (the site could not be or was not looked at;
+ * it never counts as clear).
+ */
+export const TRACK_CHECK_OUTCOMES = ["not_found", "treated", "not_examined"] as const;
 export type TrackCheckOutcome = (typeof TRACK_CHECK_OUTCOMES)[number];
 
 export const SEX_AT_BIRTH = ["female", "male", "intersex", "unknown"] as const;

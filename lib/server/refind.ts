@@ -11,7 +11,7 @@ import { lockPatientStatusesOfVisit } from "@/db/queries/patient-lock";
 import { recordAudit } from "@/db/queries/audit-write";
 import type { SiteScope } from "@/db/queries/scope";
 import { AppError } from "@/lib/errors";
-import { matchLesionsToTracks } from "@/lib/tracking";
+import { matchLesionsToTracks, undecidedTracks } from "@/lib/tracking";
 import { lesionGrades } from "@/lib/tracking/effective-grade";
 import type { TrackAction } from "@/lib/validation/tracking";
 import { refreshTrackStatuses } from "./track-statuses";
@@ -43,11 +43,11 @@ export async function loadFollowUpContext(scope: SiteScope, visitId: string) {
   const grades = lesionGrades(lastSeen.map((g) => ({ id: g.lesionId, grade: g.grade })), results);
 
   const foundTracks = new Set(here.map((l) => l.trackId));
-  const checkedTracks = new Set(checks.map((c) => c.trackId));
   // Lesions drawn fresh: their track has no sighting before this visit. One kept as new is decided.
   const keptIds = new Set(kept.map((k) => k.lesionId));
   const fresh = here.filter((l) => (!l.trackId || !ghosts.has(l.trackId)) && !keptIds.has(l.id));
-  const open = [...ghosts.values()].filter((g) => !foundTracks.has(g.trackId) && !checkedTracks.has(g.trackId!));
+  // Still to look for: the same rule signing applies (lib/tracking/undecided.ts).
+  const open = undecidedTracks([...ghosts.values()].map((g) => ({ ...g, trackId: g.trackId!, label: g.trackLabel })), foundTracks, checks);
   const suggestion = matchLesionsToTracks(
     open.map((g) => ({ trackId: g.trackId!, label: g.trackLabel, startH: g.clockStartH, endH: g.clockEndH, distStartCm: g.distanceStartCm, distEndCm: g.distanceEndCm, zone: g.zone })),
     fresh.map((l) => ({ lesionId: l.id, startH: l.clockStartH, endH: l.clockEndH, distStartCm: l.distanceStartCm, distEndCm: l.distanceEndCm, zone: l.zone })),

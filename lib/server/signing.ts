@@ -1,17 +1,20 @@
 import "server-only";
 import { db } from "@/db/client";
-import { insertAddendum, listAddenda, markVisitSigned, visitForAddendum, visitForSigning } from "@/db/queries/signing";
+import { insertAddendum, listAddenda, markVisitSigned, trackDecisionsAtVisit, visitForAddendum, visitForSigning } from "@/db/queries/signing";
 import { lockPatientStatusesOfVisit } from "@/db/queries/patient-lock";
 import { recordAudit } from "@/db/queries/audit-write";
 import type { SiteScope } from "@/db/queries/scope";
 import type { Role } from "@/lib/domain/vocab";
 import { AppError } from "@/lib/errors";
+import { undecidedMessage, undecidedTracks } from "@/lib/tracking";
 import { refreshTrackStatuses } from "./track-statuses";
 
 /**
  * Signs a draft: only its examiner or an admin. Once signed every write to the visit or its
  * children is refused by lockDraftVisit; later words go in addenda. A signed visit counts as a
- * complete exam for tracking, hence the refresh.
+ * complete exam for tracking, hence the refresh: so every earlier track must have a decision here
+ * (found, not found, treated or not examined) first. An undecided one would be read as not found
+ * and could count as clear; signing is refused (409) naming each of them.
  */
 export async function signVisit(scope: SiteScope, signer: { id: string; role: Role }, visitId: string, ip: string) {
   return db.transaction(async (tx) => {
@@ -21,6 +24,15 @@ export async function signVisit(scope: SiteScope, signer: { id: string; role: Ro
       throw new AppError("forbidden", "Only the examining clinician or an admin can sign this visit.");
     }
     if (v.status === "signed") throw new AppError("conflict", "This visit is already signed. Add an addendum instead.");
+    const decisions = await trackDecisionsAtVisit(tx, v);
+    const undecided = undecidedTracks(decisions.earlier, decisions.foundHere, decisions.checks);
+    if (undecided.length) {
+      throw new AppError(
+        "conflict",
+        undecidedMessage(undecided.map((t) => t.label)),
+        Object.fromEntries(undecided.map((t) => [`track.${t.trackId}`, [`${t.label} is still to look for: found, not found or not examined?`]])),
+      );
+    }
     const signedAt = new Date();
     const version = v.version + 1;
     await markVisitSigned(tx, v.id, signer.id, signedAt, version);

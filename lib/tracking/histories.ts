@@ -1,6 +1,9 @@
 // A patient's track histories from the rows the history statement reads: one observation per
-// track and visit. A signed visit is a complete exam: a track without a lesion there was looked
-// for and not found. On a draft only an explicit "not found" counts.
+// track and signed visit. A draft is work in progress: it neither clears nor finds anything until
+// it is signed, so it takes no part in statuses (nor in the summaries behind the metachronous flag).
+// At a signed visit, a track without a lesion there was looked for and not found, unless the
+// examiner marked it "not examined" (no status, never cleared). Signing now asks for a decision on
+// every earlier track (lib/server/signing.ts); a visit signed before that asked keeps the old rule.
 import { HISTOLOGY, type Grade, type Histology, type TrackCheckOutcome, type VisitStatus } from "@/lib/domain/vocab";
 import type { TrackHistory } from "./patient-summary";
 
@@ -38,23 +41,24 @@ export function worstHistologyByLesion(rows: readonly { lesionId: string | null;
 }
 
 export function trackHistoriesOf(h: HistoryRows): TrackHistory[] {
-  if (h.visits.length === 0 || h.tracks.length === 0) return [];
+  if (!h.visits.some((v) => v.status === "signed") || h.tracks.length === 0) return [];
   const histologyByLesion = worstHistologyByLesion(h.biopsies);
   const treatedLesions = new Set(h.treatments.map((t) => t.lesionId).filter(Boolean));
   const lesionAt = new Map<string, HistoryRows["lesions"][number]>();
   for (const l of h.lesions) lesionAt.set(`${l.trackId}|${l.visitId}`, l);
   const checkAt = new Map(h.checks.map((c) => [`${c.trackId}|${c.visitId}`, c.outcome]));
 
+  const signed = h.visits.filter((v) => v.status === "signed");
   return h.tracks.map((t) => ({
     trackId: t.id,
     label: t.label,
-    observations: h.visits.map((v) => {
+    observations: signed.map((v) => {
       const l = lesionAt.get(`${t.id}|${v.id}`);
       const check = checkAt.get(`${t.id}|${v.id}`);
       if (l) {
         return { visitId: v.id, visitDate: v.visitDate, seen: true, lookedFor: true, impressionGrade: l.grade, histology: histologyByLesion.get(l.id) ?? null, treatedAtVisit: treatedLesions.has(l.id) };
       }
-      return { visitId: v.id, visitDate: v.visitDate, seen: false, lookedFor: check !== undefined || v.status === "signed", treatedAtVisit: check === "treated" };
+      return { visitId: v.id, visitDate: v.visitDate, seen: false, lookedFor: check !== "not_examined", treatedAtVisit: check === "treated" };
     }),
   }));
 }

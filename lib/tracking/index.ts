@@ -27,3 +27,4 @@ export {
   type TrackObservation,
   type TrackVisitStatus,
 } from "./status";
+export { undecidedMessage, undecidedTracks, type EarlierTrack } from "./undecided";

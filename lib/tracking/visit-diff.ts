@@ -1,6 +1,6 @@
 // What changed between two visits of one patient, track by track, for the compare screen.
 // Identity comes from the track (the clinician confirmed it); geometry only decides "moved".
-import { GRADE_LABEL, GRADE_TIER, type Grade } from "@/lib/domain/vocab";
+import { GRADE_LABEL, GRADE_TIER, type Grade, type TrackCheckOutcome } from "@/lib/domain/vocab";
 import { arcMidpointH, describeSite, formatClock, toDisplayHours, type DisplayConvention } from "@/lib/geometry";
 
 export interface DiffLesion {
@@ -40,7 +40,7 @@ export interface DiffOptions {
   minDistanceShiftCm: number;
   convention: DisplayConvention;
   /** Outcome recorded at the later visit for a track that was looked for and not drawn. */
-  laterChecks?: Readonly<Record<string, "not_found" | "treated" | undefined>>;
+  laterChecks?: Readonly<Record<string, TrackCheckOutcome | undefined>>;
   /** Tracks seen at some visit BEFORE the earlier one: absent from it, they come back rather than appear. */
   seenBeforeEarlier?: ReadonlySet<string>;
 }
@@ -89,7 +89,10 @@ export function diffVisits(earlier: readonly DiffLesion[], later: readonly DiffL
     if (after.has(key)) continue;
     const check = b.trackId ? opt.laterChecks?.[b.trackId] : undefined;
     const how = check === "not_found" ? "looked for and not found" : check === "treated" ? "marked treated" : "not drawn";
-    out.push({ kind: "gone", key, trackId: b.trackId, name: b.name, before: b, after: null, words: `${b.name} is gone at the later visit (${how}); it was ${GRADE_LABEL[b.grade]} at ${site(b)}.` });
+    const was = `it was ${GRADE_LABEL[b.grade]} at ${site(b)}.`;
+    // Not examined is no finding: the track is not called gone.
+    const words = check === "not_examined" ? `${b.name} was not examined at the later visit; ${was}` : `${b.name} is gone at the later visit (${how}); ${was}`;
+    out.push({ kind: "gone", key, trackId: b.trackId, name: b.name, before: b, after: null, words });
   }
   for (const [key, b] of before) {
     const a = after.get(key);

@@ -11,7 +11,7 @@ export const trackActionSchema = z.discriminatedUnion(
     z.object({ action: z.literal("link"), lesionId: id("lesion"), trackId: id("track") }),
     z.object({ action: z.literal("split"), lesionId: id("lesion") }),
     z.object({ action: z.literal("merge"), trackId: id("track"), intoTrackId: id("track") }),
-    z.object({ action: z.literal("check"), trackId: id("track"), outcome: z.enum(TRACK_CHECK_OUTCOMES, { message: "Choose not found or treated." }) }),
+    z.object({ action: z.literal("check"), trackId: id("track"), outcome: z.enum(TRACK_CHECK_OUTCOMES, { message: "Choose not found, treated or not examined." }) }),
     z.object({ action: z.literal("uncheck"), trackId: id("track") }),
     // A lesion drawn fresh here is a new lesion, not an earlier track found again (and undoing that).
     z.object({ action: z.literal("keep_new"), lesionId: id("lesion") }),

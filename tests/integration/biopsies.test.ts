@@ -6,6 +6,7 @@ import { POST as createLesion } from "@/app/api/visits/[visitId]/lesions/route";
 import { POST as createBiopsy } from "@/app/api/visits/[visitId]/biopsies/route";
 import { PATCH as enterResult } from "@/app/api/biopsies/[biopsyId]/route";
 import { GET as awaiting } from "@/app/api/biopsies/awaiting/route";
+import { POST as sign } from "@/app/api/visits/[visitId]/sign/route";
 import { actor, ctx, makePatient, makeSite, req, type Actor } from "../fixtures/factory";
 
 let siteId: string, patientId: string, visitId: string;
@@ -46,10 +47,12 @@ describe("biopsies and histology", () => {
   it("histology entered later re-grades the lesion for tracking (histology decides), even after signing", async () => {
     const { lesion } = await (await createLesion(req("POST", "/x", clinician, { clockStartH: 8, clockEndH: 9, distanceStartCm: 1, distanceEndCm: 2, grade: "lsil" }), ctx({ visitId }))).json();
     const { biopsy } = await (await createBiopsy(req("POST", "/x", clinician, { lesionId: lesion.id }), ctx({ visitId }))).json();
+    // A draft drives no status; signing gives the track its first one.
+    expect(await db.select().from(trackStatuses).where(eq(trackStatuses.trackId, lesion.trackId))).toEqual([]);
+    // The result comes back after the visit was signed.
+    expect((await sign(req("POST", "/x", clinician), ctx({ visitId }))).status).toBe(200);
     const before = await db.select().from(trackStatuses).where(eq(trackStatuses.trackId, lesion.trackId));
     expect(before[0]!.effectiveGrade).toBe("lsil");
-    // The result comes back after the visit was signed.
-    await db.update(visits).set({ status: "signed", signedAt: new Date(), signedBy: clinician.userId }).where(eq(visits.id, visitId));
     const list = await (await awaiting(req("GET", "/x", clinician))).json();
     expect(list.biopsies.map((x: { id: string }) => x.id)).toContain(biopsy.id);
     // LAST (Darragh 2012): AIN2 with block-positive p16 is HSIL.

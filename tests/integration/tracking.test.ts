@@ -11,6 +11,7 @@ import type { Timeline } from "@/lib/api/types";
 import { GET as patientReviews, POST as requestReview } from "@/app/api/patients/[patientId]/reviews/route";
 import { PUT as adjudicate } from "@/app/api/reviews/[reviewId]/adjudications/route";
 import { POST as signOff } from "@/app/api/reviews/[reviewId]/sign-off/route";
+import { POST as signVisit } from "@/app/api/visits/[visitId]/sign/route";
 import { actor, ctx, makePatient, makeSite, req, type Actor } from "../fixtures/factory";
 
 let siteId: string;
@@ -59,6 +60,9 @@ describe("follow-up: re-finding earlier lesions", () => {
       expect(r.status).toBe(200);
     }
     expect((await trackAction(req("POST", "/x", clinician, { action: "check", trackId: c.trackId, outcome: "not_found" }), ctx({ visitId: v2 }))).status).toBe(200);
+    // Statuses come from signed visits: none at the draft, then every earlier track decided, it signs.
+    expect(await db.select().from(trackStatuses).where(eq(trackStatuses.visitId, v2))).toEqual([]);
+    expect((await signVisit(req("POST", "/x", clinician), ctx({ visitId: v2 }))).status).toBe(200);
 
     const statuses = await db.select().from(trackStatuses).where(eq(trackStatuses.visitId, v2));
     const statusOf = (trackId: string) => statuses.find((s) => s.trackId === trackId)?.status;

@@ -8,10 +8,12 @@ import { Field, FormError, inputClass, Section } from "./field";
 import { formatDateTime } from "./labels";
 import { visitKey, type VisitRecordDto } from "./use-visit-record";
 import { api } from "@/components/data/keys";
+import type { DisplayConvention } from "@/lib/geometry";
+import { SigningPrompt } from "./signing-prompt";
 
 interface Addendum { id: string; body: string; authorName: string; createdAt: string }
 
-export function SigningPanel({ visit, permissions }: { visit: VisitRecordDto; permissions: VisitPermissions }) {
+export function SigningPanel({ visit, permissions, conv }: { visit: VisitRecordDto; permissions: VisitPermissions; conv: DisplayConvention }) {
   const addendaKey = api.visitPart(visit.id, "addenda");
   const { data } = useSWR<{ addenda: Addendum[] }>(visit.status === "signed" ? addendaKey : null, fetcher);
   const [confirming, setConfirming] = useState(false);
@@ -27,7 +29,11 @@ export function SigningPanel({ visit, permissions }: { visit: VisitRecordDto; pe
       setConfirming(false);
       // Every panel turns read-only: refresh everything under this visit.
       await mutate((k) => typeof k === "string" && k.startsWith(visitKey(visit.id)));
-    } catch (err) { setServerError(err instanceof ApiError ? err.message : "The visit could not be signed."); }
+    } catch (err) {
+      setServerError(err instanceof ApiError ? err.message : "The visit could not be signed.");
+      // Refused for an undecided earlier track (someone changed the tracks meanwhile): show the list again.
+      if (err instanceof ApiError && err.status === 409) await mutate(api.visitPart(visit.id, "tracks"));
+    }
     finally { setBusy(false); }
   }
 
@@ -49,10 +55,7 @@ export function SigningPanel({ visit, permissions }: { visit: VisitRecordDto; pe
         <p className="text-sm">○ Draft. Once signed, the record can no longer be changed; later words go in addenda with their author and time.</p>
         {permissions.canSign ? (
           confirming ? (
-            <div className="flex flex-wrap gap-3">
-              <Button onClick={sign} disabled={busy}>{busy ? "Signing…" : "Yes, sign this visit"}</Button>
-              <Button variant="secondary" onClick={() => setConfirming(false)}>Not yet</Button>
-            </div>
+            <SigningPrompt visitId={visit.id} conv={conv} busy={busy} onSign={sign} onCancel={() => setConfirming(false)} />
           ) : <div><Button onClick={() => setConfirming(true)}>Sign visit…</Button></div>
         ) : <p className="text-sm text-ink-soft">Only the examining clinician ({visit.examinerName}) or an admin can sign this visit.</p>}
         <FormError message={serverError} />

@@ -37,7 +37,7 @@ export function VisitRecordPanels({ visitId, part = "all" }: { visitId: string; 
       {part !== "procedure" ? (
         <>
           <DiagnosesPanel visitId={visitId} canEdit={permissions.canEdit} />
-          <SigningPanel visit={visit} permissions={permissions} />
+          <SigningPanel visit={visit} permissions={permissions} conv={conv} />
         </>
       ) : null}
     </div>

@@ -13,13 +13,14 @@ export const BTN_PLAIN = `${BTN} border border-rule-strong bg-panel text-ink hov
 export const BTN_PRESSED = `${BTN} border border-lagoon-700 bg-lagoon-600 text-white`;
 
 /** The three decisions on an earlier track at this visit; none is chosen until the examiner chooses. */
-const DECISIONS: readonly (readonly ["found" | CheckOutcome, string])[] = [["found", "Found"], ["not_found", "Not found"], ["treated", "Treated"]];
+const DECISIONS: readonly (readonly ["found" | CheckOutcome, string])[] = [["found", "Found"], ["not_found", "Not found"], ["treated", "Treated"], ["not_examined", "Not examined"]];
 
 /** The mark made at this visit, in words a clinician would say. */
 export function ghostStatusWords(g: Pick<GhostDto, "foundHere" | "checkHere">, foundAs?: string | null): string {
   if (g.foundHere) return foundAs ? `Found here as ${foundAs}` : "Found here";
   if (g.checkHere === "not_found") return "Not found at this visit";
   if (g.checkHere === "treated") return "Marked treated at this visit";
+  if (g.checkHere === "not_examined") return "Not examined at this visit (not counted as clear)";
   return "Still to look for";
 }
 

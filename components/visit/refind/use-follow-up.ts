@@ -5,12 +5,12 @@
 import { useCallback, useMemo, useState } from "react";
 import useSWR, { useSWRConfig } from "swr";
 import { ApiError, fetcher, sendJson } from "@/components/data/fetcher";
-import type { Grade, Histology, Zone } from "@/lib/domain/vocab";
+import type { Grade, Histology, TrackCheckOutcome, Zone } from "@/lib/domain/vocab";
 import type { LesionDto } from "@/lib/validation/lesions";
 import type { TrackAction } from "@/lib/validation/tracking";
 import { api } from "@/components/data/keys";
 
-export type CheckOutcome = "not_found" | "treated";
+export type CheckOutcome = TrackCheckOutcome;
 
 /** The last sighting of one earlier track, as GET /api/visits/:id/tracks returns it. */
 export interface GhostDto {

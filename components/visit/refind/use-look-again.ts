@@ -5,7 +5,7 @@ import { useCallback, useMemo } from "react";
 import type { LesionDto } from "@/lib/validation/lesions";
 import type { CheckOutcome, FollowUp, GhostDto, SuggestionDto } from "./use-follow-up";
 
-const OUTCOME_WORDS: Record<CheckOutcome, string> = { not_found: "not found", treated: "treated" };
+const OUTCOME_WORDS: Record<CheckOutcome, string> = { not_found: "not found", treated: "treated", not_examined: "not examined" };
 
 export function useLookAgain(fu: FollowUp, lesions: readonly LesionDto[]) {
   const { act, foundAtGhost, data } = fu;

@@ -67,7 +67,8 @@ ORDER BY vis.study_subject_id, vis.visit_seq, l.label`;
  * - HSIL or worse at a visit: a lesion whose effective grade is HSIL or worse, where histology, when
  *   there is one, overrides the impression (dentate_lesion_grade, db/migrations/0010_effective_grade.sql;
  *   the same rule as lib/tracking/effective-grade.ts).
- * - Clearance: the first visit after the first treatment with no HSIL or worse.
+ * - Clearance: the first visit after the first treatment with no HSIL or worse, where no earlier
+ *   track was marked not examined (a visit that left a known site unexamined clears nothing).
  * - Recurrence (column recurrence): HSIL or worse at any visit after a clear visit, at the treated
  *   site or elsewhere alike; censored at the last exported visit.
  * - Overall recurrence (column hsil_after_treatment): HSIL or worse at any visit after the first
@@ -97,10 +98,12 @@ export function outcomesSelect(scope: ExportScope): string {
   FROM lg GROUP BY visit_id
 ), vt AS (
   SELECT t.visit_id, count(*) AS n FROM vis JOIN treatments t ON t.visit_id = vis.id GROUP BY t.visit_id
+), vx AS (
+  SELECT DISTINCT c.visit_id FROM vis JOIN track_checks c ON c.visit_id = vis.id AND c.outcome = 'not_examined'
 ), pv AS (
   SELECT vis.patient_id, vis.visit_date, coalesce(vg.hsil_plus, false) AS hsil_plus, coalesce(vg.cancer, false) AS cancer,
-    coalesce(vt.n, 0) AS n_treatments
-  FROM vis LEFT JOIN vg ON vg.visit_id = vis.id LEFT JOIN vt ON vt.visit_id = vis.id
+    coalesce(vt.n, 0) AS n_treatments, vx.visit_id IS NOT NULL AS part_unexamined
+  FROM vis LEFT JOIN vg ON vg.visit_id = vis.id LEFT JOIN vt ON vt.visit_id = vis.id LEFT JOIN vx ON vx.visit_id = vis.id
 ), firsts AS (
   SELECT patient_id, count(*) AS visits, max(visit_date) AS last_visit,
     min(visit_date) FILTER (WHERE hsil_plus) AS first_hsil,
@@ -110,7 +113,7 @@ export function outcomesSelect(scope: ExportScope): string {
   FROM pv GROUP BY patient_id
 ), cleared AS (
   SELECT f.patient_id, min(pv.visit_date) AS cleared_on FROM firsts f
-  JOIN pv ON pv.patient_id = f.patient_id AND pv.visit_date > f.first_treatment AND NOT pv.hsil_plus
+  JOIN pv ON pv.patient_id = f.patient_id AND pv.visit_date > f.first_treatment AND NOT pv.hsil_plus AND NOT pv.part_unexamined
   GROUP BY f.patient_id
 ), after_tx AS (
   SELECT f.patient_id, min(pv.visit_date) AS hsil_on FROM firsts f

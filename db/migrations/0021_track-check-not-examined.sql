@@ -1,0 +1,1 @@
+ALTER TYPE "public"."track_check_outcome" ADD VALUE 'not_examined';
