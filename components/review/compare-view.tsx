@@ -54,7 +54,7 @@ export function CompareView(props: {
     return (
       <div className="space-y-3">
         <h1 className="text-2xl font-bold">Compare: {data.patient.name}</h1>
-        <p>Compare needs two visits; this patient has {data.visits.length}.</p>
+        <p>Compare opens on the latest two signed visits; this patient has {data.visits.filter((v) => v.status === "signed").length} signed of {data.visits.length}. A draft is compared only when both visits are chosen in the address.</p>
       </div>
     );
   }

@@ -4,16 +4,22 @@ import type { DiffLesion } from "@/lib/tracking/visit-diff";
 import type { Timeline, TimelineReview, TimelineVisit } from "@/components/timeline/timeline-types";
 import type { TrackLesion } from "@/components/timeline/track-map";
 
-/** The pair in time order (earlier, later), whatever order they were picked in; default the latest two. */
+/** The latest two signed visits, oldest first; null with fewer than two. A draft is never a default. */
+export function latestSignedPair<V extends Pick<TimelineVisit, "status">>(visits: readonly V[]): [V, V] | null {
+  const signed = visits.filter((v) => v.status === "signed");
+  return signed.length < 2 ? null : [signed[signed.length - 2]!, signed[signed.length - 1]!];
+}
+
+/**
+ * The pair in time order (earlier, later), whatever order they were picked in. Two visits picked
+ * are kept, drafts included (the pickers say which are drafts); otherwise the latest two signed
+ * visits: a draft has no statuses yet and would compare as if nothing were found.
+ */
 export function orderedPair(visits: readonly TimelineVisit[], a?: string | null, b?: string | null): [TimelineVisit, TimelineVisit] | null {
   const idx = (id?: string | null) => visits.findIndex((v) => v.id === id);
-  let i = idx(a);
-  let j = idx(b);
-  if (i < 0 || j < 0 || i === j) {
-    if (visits.length < 2) return null;
-    i = visits.length - 2;
-    j = visits.length - 1;
-  }
+  const i = idx(a);
+  const j = idx(b);
+  if (i < 0 || j < 0 || i === j) return latestSignedPair(visits);
   return i < j ? [visits[i]!, visits[j]!] : [visits[j]!, visits[i]!];
 }
 

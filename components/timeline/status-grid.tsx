@@ -7,6 +7,8 @@ import { STATUS_LABEL, StatusMark } from "./status-glyph";
 export interface GridVisit {
   id: string;
   visitDate: string;
+  /** A draft's column is labelled as such: it has no statuses until signed. */
+  status?: "draft" | "signed";
 }
 export interface GridTrack {
   id: string;
@@ -48,7 +50,10 @@ export function StatusGrid(props: {
           <tr>
             <th scope="col" className="sticky left-0 bg-lagoon-50 px-3 py-2">Track</th>
             {visits.map((v) => (
-              <th key={v.id} scope="col" className="whitespace-nowrap px-3 py-2 tabular-nums">{v.visitDate}</th>
+              <th key={v.id} scope="col" className="whitespace-nowrap px-3 py-2 tabular-nums">
+                {v.visitDate}
+                {v.status === "draft" ? <span className="block text-xs font-normal">draft, not signed</span> : null}
+              </th>
             ))}
           </tr>
         </thead>
@@ -72,7 +77,9 @@ export function StatusGrid(props: {
                   const s = byCell.get(`${t.id}|${v.id}`);
                   const check = checkByCell.get(`${t.id}|${v.id}`);
                   const gradeWords = s?.effectiveGrade ? GRADE_LABEL[s.effectiveGrade] : null;
-                  const title = s ? `${STATUS_LABEL[s.status]}${gradeWords ? `, ${gradeWords}` : ""}: ${s.reason}` : check ? `No status: ${CHECK_WORDS[check]}` : "No record at this visit";
+                  const title = s
+                    ? `${STATUS_LABEL[s.status]}${gradeWords ? `, ${gradeWords}` : ""}: ${s.reason}`
+                    : v.status === "draft" ? "No status: the visit is a draft" : check ? `No status: ${CHECK_WORDS[check]}` : "No record at this visit";
                   return (
                     <td key={v.id} title={title} data-status={s?.status ?? "none"} className="px-3 py-2 align-top">
                       <StatusMark status={s?.status ?? null} />

@@ -50,6 +50,27 @@ describe("summarizeTimeline", () => {
   });
 });
 
+describe("summarizeTimeline with a draft after the signed visits", () => {
+  // The same history plus an unsigned draft (2026-06-01) holding an HSIL lesion on T2, a treatment
+  // and a "not found" mark on T1: a draft is work in progress and changes nothing in the summary.
+  const withDraft = {
+    ...timeline,
+    visits: [...timeline.visits, { ...v("v4", "2026-06-01"), status: "draft" as const }],
+    lesions: [...timeline.lesions, lesion("e", "v4", "t2", "hsil", true)],
+    statuses: [...timeline.statuses, { trackId: "t1", visitId: "v4", status: "cleared" as const, effectiveGrade: null, reason: "draft" }],
+    checks: [...timeline.checks, { visitId: "v4", trackId: "t1", outcome: "not_found" as const }],
+  } as unknown as Timeline;
+  const d = summarizeTimeline(withDraft);
+  it("keeps each track's status at its latest signed visit", () => {
+    expect(d.countsByStatus.cleared).toBe(0);
+    expect(d.current.map((c) => [c.label, c.status, c.visitDate])).toEqual([["T1", "recurrent", "2026-01-10"], ["T2", "persistent", "2026-01-10"]]);
+  });
+  it("takes neither the draft's findings nor its treatment", () => {
+    expect(d.lastHsilOrWorse).toEqual({ visitDate: "2026-01-10", trackLabels: ["T1"] });
+    expect(d.treated).toEqual([{ trackId: "t1", label: "T1", visitDates: ["2025-01-10"] }]);
+  });
+});
+
 describe("timeSinceWords (calendar months counted by hand)", () => {
   it("2025-01-15 to 2026-03-20 is 1 year 2 months", () => expect(timeSinceWords("2025-01-15", "2026-03-20")).toBe("1 year 2 months"));
   it("a month not yet complete does not count: 2025-01-31 to 2025-02-27 is 27 days", () => expect(timeSinceWords("2025-01-31", "2025-02-27")).toBe("27 days"));

@@ -24,7 +24,19 @@ export interface TimelineSummary {
   confirmedCancer: string[];
 }
 
-export function summarizeTimeline(t: Timeline): TimelineSummary {
+/**
+ * Signed visits only: statuses are stored for them alone, and a draft's lesions and marks are work
+ * in progress, so they count as no finding here (the timeline still shows the draft, labelled).
+ */
+export function summarizeTimeline(all: Timeline): TimelineSummary {
+  const signed = new Set(all.visits.filter((v) => v.status === "signed").map((v) => v.id));
+  const t: Timeline = {
+    ...all,
+    visits: all.visits.filter((v) => signed.has(v.id)),
+    statuses: all.statuses.filter((x) => signed.has(x.visitId)),
+    lesions: all.lesions.filter((x) => signed.has(x.visitId)),
+    checks: all.checks.filter((x) => signed.has(x.visitId)),
+  };
   const dateOf = new Map(t.visits.map((v) => [v.id, v.visitDate]));
   const order = new Map(t.visits.map((v, i) => [v.id, i]));
   const labelOf = new Map(t.tracks.map((x) => [x.id, x.label]));

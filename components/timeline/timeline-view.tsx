@@ -13,6 +13,7 @@ import { CancerCautions, SummaryPanel } from "./summary-panel";
 import { summarizeTimeline } from "./timeline-summary";
 import { timelineFetcher, timelineUrl, trackLabelOf, type Timeline } from "./timeline-types";
 import { TrackMap, type TrackLesion } from "./track-map";
+import { compareHref, latestSignedPair } from "@/components/review/review-model";
 
 export function lesionsByVisit(t: Timeline): Map<string, TrackLesion[]> {
   const out = new Map<string, TrackLesion[]>(t.visits.map((v) => [v.id, []]));
@@ -37,7 +38,8 @@ export function TimelineView({ patientId, convention, todayIso }: { patientId: s
   if (!data || !summary) return <LoadState error={error} />;
 
   const selectedLabel = trackLabelOf(data, selectedTrackId);
-  const latestTwo = data.visits.slice(-2);
+  // Signed visits only: an unsigned draft has no statuses yet and would compare as if nothing were found.
+  const latestTwo = latestSignedPair(data.visits);
   return (
     <div className="space-y-6">
       <header className="flex flex-wrap items-end gap-x-6 gap-y-2">
@@ -47,8 +49,8 @@ export function TimelineView({ patientId, convention, todayIso }: { patientId: s
           <p className="text-sm text-ink-soft">MRN <span className="tabular-nums">{data.patient.mrn}</span> · {data.visits.length} visits · {data.tracks.length} tracks · oldest visit on the left</p>
         </div>
         <div className="no-print ml-auto flex gap-2">
-          {latestTwo.length === 2 ? (
-            <Link href={`/patients/${patientId}/compare?a=${latestTwo[0]!.id}&b=${latestTwo[1]!.id}`} className="inline-flex min-h-11 items-center rounded-md border border-rule-strong bg-panel px-4 font-semibold hover:bg-lagoon-50">Compare the latest two visits</Link>
+          {latestTwo ? (
+            <Link href={compareHref(patientId, latestTwo[0].id, latestTwo[1].id)} className="inline-flex min-h-11 items-center rounded-md border border-rule-strong bg-panel px-4 font-semibold hover:bg-lagoon-50">Compare the latest two signed visits</Link>
           ) : null}
           <button type="button" onClick={() => window.print()} className="min-h-11 rounded-md border border-rule-strong bg-panel px-4 font-semibold hover:bg-lagoon-50">Print</button>
         </div>
@@ -69,13 +71,13 @@ export function TimelineView({ patientId, convention, todayIso }: { patientId: s
             <li key={v.id} className="w-64 flex-none break-inside-avoid rounded-lg border border-rule bg-panel p-2 print:w-[31%]" data-visit-card={v.visitDate}>
               <p className="flex items-baseline justify-between text-sm">
                 <span className="font-bold tabular-nums">{v.visitDate}</span>
-                <span className="text-ink-soft">{v.status === "signed" ? "Signed" : "Draft"}</span>
+                {v.status === "signed" ? <span className="text-ink-soft">Signed</span> : <span className="rounded-full border border-dashed border-ink px-2 font-semibold" title="Not signed: its findings give no status yet">Draft</span>}
               </p>
               <p className="truncate text-xs text-ink-soft">{v.examiner}</p>
               <div className="mt-1 aspect-[720/564]">
                 <TrackMap lesions={byVisit.get(v.id) ?? []} convention={convention} title={`Canal map, visit of ${v.visitDate}`} selectedTrackId={selectedTrackId} onSelectTrack={setSelectedTrackId} emphasiseSelected />
               </div>
-              <p className="text-xs text-ink-soft">{lesionCountWords((byVisit.get(v.id) ?? []).length)}</p>
+              <p className="text-xs text-ink-soft">{lesionCountWords((byVisit.get(v.id) ?? []).length)}{v.status === "signed" ? "" : " · draft: no statuses until signed"}</p>
             </li>
           ))}
         </ol>

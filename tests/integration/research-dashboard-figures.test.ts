@@ -3,6 +3,8 @@
 // lesions, outcomes) as a reader of those files would, and compared. The dashboard keeps its figures
 // (table study_figures) with their time; a signed visit added afterwards shows once a load finds them
 // older than the documented age (lib/server/study-figures.ts) and the refresh it starts has run.
+// Both count signed visits only: a draft is never exported and drives no track status; a visit
+// where the examiner marked a treated track "not examined" is no clearance.
 import { beforeAll, describe, expect, it } from "vitest";
 import { parse } from "csv-parse/sync";
 import { and, eq } from "drizzle-orm";
@@ -13,20 +15,27 @@ import { loadRegistryDashboard } from "@/lib/server/research";
 import { settleStoredFigures } from "@/lib/server/stored-figures";
 import { withdrawPatient } from "@/lib/server/enrolment";
 import { GET as getCsv } from "@/app/api/exports/[dataset]/route";
-import { GRADES, type Grade, type Histology } from "@/lib/domain/vocab";
+import { GRADES, type Grade, type Histology, type TrackCheckOutcome } from "@/lib/domain/vocab";
 import { decideGrade } from "@/lib/tracking/effective-grade";
 import { actor, ctx, makePatient, makeSite, req, type Actor } from "../fixtures/factory";
 
 let siteId: string, studyId: string;
 let nurse: Actor, clinician: Actor;
 
-type Plan = { date: string; lesions: { track: number; grade: Grade; histology?: "lsil" | "hsil"; treat?: boolean }[] }[];
+type Plan = {
+  date: string;
+  draft?: boolean;
+  lesions: { track: number; grade: Grade; histology?: "lsil" | "hsil"; treat?: boolean }[];
+  checks?: { track: number; outcome: TrackCheckOutcome }[];
+}[];
 
 async function patientWith(subject: string, plan: Plan, withdrawnOn: string | null = null) {
   const p = await makePatient(siteId, { consentResearch: true });
   const tracks = await db.insert(s.lesionTracks).values([1, 2].map((i) => ({ patientId: p.id, siteId, label: `T${i}` }))).returning({ id: s.lesionTracks.id });
   for (const visit of plan) {
-    const [v] = await db.insert(s.visits).values({ patientId: p.id, siteId, visitDate: visit.date, examinerId: clinician.userId, status: "signed", signedAt: new Date() }).returning({ id: s.visits.id });
+    const status = visit.draft ? "draft" : "signed";
+    const [v] = await db.insert(s.visits).values({ patientId: p.id, siteId, visitDate: visit.date, examinerId: clinician.userId, status, signedAt: visit.draft ? null : new Date() }).returning({ id: s.visits.id });
+    for (const c of visit.checks ?? []) await db.insert(s.trackChecks).values({ visitId: v!.id, trackId: tracks[c.track]!.id, siteId, outcome: c.outcome });
     let n = 0;
     for (const l of visit.lesions) {
       const [row] = await db.insert(s.lesions).values({ visitId: v!.id, siteId, trackId: tracks[l.track]!.id, label: `L${++n}`, clockStartH: 1 + l.track * 4, clockEndH: 2 + l.track * 4, distanceStartCm: 1, distanceEndCm: 2, zone: "transformation_zone", grade: l.grade }).returning({ id: s.lesions.id });
@@ -70,6 +79,18 @@ beforeAll(async () => {
     { date: "2023-06-01", lesions: [{ track: 0, grade: "hsil", treat: true }] },
     { date: "2024-06-01", lesions: [] },
   ], "2024-06-01");
+  // An unsigned draft between two signed visits, its "not found" mark on the treated track: no
+  // clearance, so HSIL at the next signed look is persistent, not recurrent (Liu 2018).
+  await patientWith("FIG-5", [
+    { date: "2023-04-01", lesions: [{ track: 0, grade: "hsil", treat: true }] },
+    { date: "2023-10-01", draft: true, lesions: [], checks: [{ track: 0, outcome: "not_found" }] },
+    { date: "2024-04-01", lesions: [{ track: 0, grade: "hsil" }] },
+  ]);
+  // Treated, then a signed visit where the treated site was not examined: no clearance.
+  await patientWith("FIG-6", [
+    { date: "2023-02-01", lesions: [{ track: 0, grade: "hsil", treat: true }] },
+    { date: "2023-08-01", lesions: [], checks: [{ track: 0, outcome: "not_examined" }] },
+  ]);
 });
 
 describe("study dashboard against the exports", () => {
@@ -112,6 +133,20 @@ describe("study dashboard against the exports", () => {
     expect(dash.recurrence.patients).toBe(inKm.length);
     expect(dash.recurrence.events).toBe(inKm.filter((r) => r.recurrence === "1").length);
     expect(dash.recurrence.events).toBeGreaterThan(0);
+  });
+
+  it("counts signed visits only: a draft's mark clears nothing, and a visit that left the treated site unexamined is no clearance", async () => {
+    const [counts, lesions, outcomes] = [await csv("counts"), await csv("lesions"), await csv("outcomes")];
+    // FIG-5: the draft is not exported; the later signed HSIL is persistent at the treated site.
+    expect(counts.filter((r) => r.study_id === "FIG-5").map((r) => r.visit_seq)).toEqual(["1", "2"]);
+    expect(lesions.filter((r) => r.study_id === "FIG-5").map((r) => [r.visit_seq, r.track_status])).toEqual([["1", "new"], ["2", "persistent"]]);
+    expect(outcomes.find((r) => r.study_id === "FIG-5")!.days_treatment_to_clearance).toBe("");
+    // FIG-6: followed, not cleared, in the files and on the dashboard alike.
+    const fig6 = counts.find((r) => r.study_id === "FIG-6" && r.visit_seq === "2")!;
+    expect([fig6.tracks_cleared, fig6.tracks_regressed]).toEqual(["0", "0"]);
+    expect(outcomes.find((r) => r.study_id === "FIG-6")!.days_treatment_to_clearance).toBe("");
+    const dash = await loadRegistryDashboard(studyId, [siteId]);
+    expect(dash.clearance.patientsCleared).toBe(outcomes.filter((r) => r.days_treatment_to_clearance !== "").length);
   });
 
   it("a newly signed visit shows after a load finds the figures over their age, and the page says when they are from", async () => {
