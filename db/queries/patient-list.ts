@@ -1,6 +1,7 @@
 import "server-only";
 // The patient list in one statement: each patient of the caller's sites with the latest visit, the
-// worst effective grade of their tracks at that visit, and the open review disagreements.
+// worst effective grade of their tracks at the latest signed visit (a draft has no statuses), and
+// the open review disagreements.
 import { sql } from "drizzle-orm";
 import { db } from "../client";
 import { pgArrayLiteral, type SiteScope } from "./scope";
@@ -56,7 +57,7 @@ export async function patientList(scope: SiteScope, f: PatientListQuery) {
     listed AS (
       SELECT p.id, p.mrn, p.family_name, p.given_name, p.date_of_birth, p.status, lv.visit_date AS last_visit,
         (SELECT max(array_position(ranked.g, ts.effective_grade::text)) FROM track_statuses ts
-          WHERE ts.visit_id = lv.id AND ts.effective_grade IS NOT NULL) AS grade_rank,
+          WHERE ts.visit_id = ls.id AND ts.effective_grade IS NOT NULL) AS grade_rank,
         (SELECT count(*) FROM adjudications a JOIN reviews r ON r.id = a.review_id
           WHERE r.patient_id = p.id AND a.verdict = 'disagree' AND a.resolved_at IS NULL)::int AS disagreements,
         array_position(${pgArrayLiteral(f.orderIds ?? [])}::uuid[], p.id) AS order_pos
@@ -64,6 +65,8 @@ export async function patientList(scope: SiteScope, f: PatientListQuery) {
       CROSS JOIN ranked
       LEFT JOIN LATERAL (SELECT v.id, v.visit_date FROM visits v WHERE v.patient_id = p.id
         ORDER BY v.visit_date DESC, v.created_at DESC LIMIT 1) lv ON true
+      LEFT JOIN LATERAL (SELECT v.id FROM visits v WHERE v.patient_id = p.id AND v.status = 'signed'
+        ORDER BY v.visit_date DESC, v.created_at DESC LIMIT 1) ls ON true
       WHERE p.site_id = any(${pgArrayLiteral(scope.siteIds)}::uuid[])
         AND (${like}::text IS NULL OR p.family_name ILIKE ${like} OR p.given_name ILIKE ${like} OR p.mrn ILIKE ${like})
     )

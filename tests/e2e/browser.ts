@@ -44,6 +44,30 @@ export async function api<T>(page: Page, method: "GET" | "POST", urlPath: string
   return (await res.json()) as T;
 }
 
+/**
+ * Signing asks for a decision on every earlier track still to look for at the visit: this marks
+ * each undecided one (through the API, as the Look again list would) so a test that is about
+ * something else can sign. Returns the labels it marked.
+ */
+export async function decideEarlierTracks(page: Page, visitId: string, outcome: "not_found" | "not_examined" = "not_found"): Promise<string[]> {
+  const ctx = await api<{ ghosts: { trackId: string; trackLabel: string; foundHere: boolean; checkHere: string | null }[] }>(page, "GET", `/api/visits/${visitId}/tracks`);
+  const open = ctx.ghosts.filter((g) => !g.foundHere && !g.checkHere);
+  for (const g of open) await api(page, "POST", `/api/visits/${visitId}/tracks`, { action: "check", trackId: g.trackId, outcome });
+  return open.map((g) => g.trackLabel);
+}
+
+/** In the signing prompt, answers every track still to look for with one choice, by its buttons. */
+export async function answerSigningPrompt(page: Page, choice: "Not found" | "Not examined" = "Not examined"): Promise<void> {
+  const items = page.locator("[data-undecided]");
+  await page.locator("[data-signing-prompt]").waitFor();
+  while ((await items.count()) > 0) {
+    const label = (await items.first().getAttribute("data-undecided"))!;
+    const button = page.getByRole("button", { name: `${choice} ${label}`, exact: true });
+    await button.click();
+    await page.locator(`[data-undecided="${label}"]`).waitFor({ state: "detached" });
+  }
+}
+
 /** A patient's timeline as the screens see it: the API sends columns (lib/timeline/wire), decoded here. */
 export async function timelineOf<T>(page: Page, patientId: string): Promise<T> {
   return decodeTimeline<T>(await api<TimelineWire>(page, "GET", `/api/patients/${patientId}/timeline`));

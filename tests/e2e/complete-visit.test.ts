@@ -5,7 +5,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import sharp from "sharp";
 import { PDFParse } from "pdf-parse";
 import type { BrowserContext, Page } from "playwright-core";
-import { BASE_URL, launch, screenshot, signIn } from "./browser";
+import { answerSigningPrompt, BASE_URL, launch, screenshot, signIn } from "./browser";
 
 let browser: BrowserContext;
 let page: Page;
@@ -62,6 +62,8 @@ describe("a complete visit, signed and reported", () => {
     await page.reload();
     await page.getByRole("tab", { name: "Record & sign" }).click();
     await page.getByRole("button", { name: "Sign visit…" }).click();
+    // The demo patient's earlier tracks each need a decision before the visit can be signed.
+    await answerSigningPrompt(page, "Not examined");
     await page.getByRole("button", { name: "Yes, sign this visit" }).click();
     await expect.poll(() => page.getByText(/Signed by/).count(), { timeout: 15_000 }).toBeGreaterThan(0);
     await screenshot(page, "complete-visit-signed");

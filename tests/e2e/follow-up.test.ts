@@ -5,7 +5,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { BrowserContext } from "playwright-core";
 import path from "node:path";
-import { api, BASE_URL, freeSpots, timelineOf, launch, mapPoint, screenshot, signIn, SHOTS, type Spot } from "./browser";
+import { api, BASE_URL, decideEarlierTracks, freeSpots, timelineOf, launch, mapPoint, screenshot, signIn, SHOTS, type Spot } from "./browser";
 
 let browser: BrowserContext;
 beforeAll(async () => {
@@ -50,6 +50,7 @@ describe("follow-up visit on a touch tablet", () => {
     const grades = ["hsil", "lsil", "hsil"] as const;
     const first: Made[] = [];
     for (let i = 0; i < 3; i++) first.push((await api<{ lesion: Made }>(page, "POST", `/api/visits/${v1.id}/lesions`, { ...spots[i], grade: grades[i] })).lesion);
+    await decideEarlierTracks(page, v1.id); // the demo patient's own earlier tracks: not found
     await api(page, "POST", `/api/visits/${v1.id}/sign`);
     const [a, b, c] = first as [Made, Made, Made];
 
@@ -108,6 +109,11 @@ describe("follow-up visit on a touch tablet", () => {
     const fresh = lesions.find((l) => ![a.trackId, b.trackId].includes(l.trackId))!;
     expect(lesions.filter((l) => l.trackId === a.trackId)).toHaveLength(1);
     expect(lesions.filter((l) => l.trackId === b.trackId)).toHaveLength(1);
+    // Statuses come from signed visits: none at the draft; its remaining (demo) tracks decided, it signs.
+    const draftStatuses = await timelineOf<{ statuses: { visitId: string }[] }>(page, patientId);
+    expect(draftStatuses.statuses.filter((s) => s.visitId === v2.id)).toEqual([]);
+    await decideEarlierTracks(page, v2.id);
+    await api(page, "POST", `/api/visits/${v2.id}/sign`);
     const timeline = await timelineOf<{ statuses: { trackId: string; visitId: string; status: string }[] }>(page, patientId);
     const at2 = new Map(timeline.statuses.filter((s) => s.visitId === v2.id).map((s) => [s.trackId, s.status]));
     expect(at2.get(a.trackId)).toBe("persistent");

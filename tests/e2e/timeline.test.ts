@@ -4,7 +4,7 @@
 // (the map editor's follow-up gestures are tested with the editor).
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { BrowserContext, Page } from "playwright-core";
-import { api, BASE_URL, freeSpots, timelineOf, launch, screenshot, signIn, type Spot } from "./browser";
+import { api, BASE_URL, decideEarlierTracks, freeSpots, timelineOf, launch, screenshot, signIn, type Spot } from "./browser";
 
 let browser: BrowserContext;
 beforeAll(async () => {
@@ -59,6 +59,7 @@ describe("follow-up tracking, compare and review", () => {
     const grades = ["hsil", "lsil", "hsil"] as const;
     const first: { id: string; trackId: string; trackLabel: string }[] = [];
     for (let i = 0; i < 3; i++) first.push((await api<{ lesion: { id: string; trackId: string; trackLabel: string } }>(page, "POST", `/api/visits/${earlier.id}/lesions`, { ...spots[i], grade: grades[i] })).lesion);
+    await decideEarlierTracks(page, earlier.id); // the demo patient's own earlier tracks: not found
     await api(page, "POST", `/api/visits/${earlier.id}/sign`);
 
     // The follow-up visit, opened in the browser.
@@ -84,6 +85,7 @@ describe("follow-up tracking, compare and review", () => {
 
     for (const s of [byLesion.get(again0.id)!, byLesion.get(again1.id)!]) await api(page, "POST", `/api/visits/${later.id}/tracks`, { action: "link", lesionId: s.lesionId, trackId: s.trackId });
     await api(page, "POST", `/api/visits/${later.id}/tracks`, { action: "check", trackId: first[2]!.trackId, outcome: "not_found" });
+    await decideEarlierTracks(page, later.id);
     await api(page, "POST", `/api/visits/${later.id}/sign`);
 
     state.refound = [first[0]!.trackLabel, first[1]!.trackLabel];

@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { BrowserContext, Page } from "playwright-core";
-import { BASE_URL, launch, screenshot, signIn } from "./browser";
+import { answerSigningPrompt, BASE_URL, launch, screenshot, signIn } from "./browser";
 
 // A clinician documents the procedure around the map on a fresh visit of a demo patient:
 // exam details, two injections (the second over the lidocaine maximum, saved with a reason),
@@ -83,6 +83,8 @@ describe("the visit record panels", () => {
   it("signs the visit, turns the record read-only and takes an addendum", async () => {
     await page.getByRole("tab", { name: "Record & sign" }).click();
     await page.getByRole("button", { name: "Sign visit…" }).click();
+    // The demo patient's earlier tracks each need a decision before the visit can be signed.
+    await answerSigningPrompt(page, "Not found");
     await page.getByRole("button", { name: "Yes, sign this visit" }).click();
     await page.getByText("Signed record: read-only").waitFor();
     await page.getByRole("tab", { name: "Procedure" }).click();

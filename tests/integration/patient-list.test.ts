@@ -60,3 +60,18 @@ describe("patient list", () => {
     expect((await listPatientOverview({ userId: clin, siteIds: [(await makeSite()).id] }, { page: 1, sort: "name", dir: "asc" }, today)).total).toBe(0);
   });
 });
+
+describe("patient list and an unsigned draft", () => {
+  it("takes the current grade from the latest signed visit while the latest visit is a draft", async () => {
+    const site = await makeSite();
+    const clin = await makeUser("clinician", [site.id]);
+    const p = await makePatient(site.id, { familyName: "Duarte" });
+    // HSIL at the signed visit; a later draft, still being examined, with benign findings so far.
+    await visit(p.id, site.id, clin, "2024-02-01", ["hsil"]);
+    const [d] = await db.insert(visits).values({ patientId: p.id, siteId: site.id, visitDate: "2024-08-01", examinerId: clin }).returning();
+    await db.insert(lesions).values({ visitId: d!.id, siteId: site.id, label: "L1", clockStartH: 3, clockEndH: 4, distanceStartCm: 1, distanceEndCm: 2, zone: "distal_canal", grade: "benign" });
+    await refreshTrackStatuses(db, p.id, site.id);
+    const list = await listPatientOverview({ userId: clin, siteIds: [site.id] }, { page: 1, sort: "name", dir: "asc" }, "2025-03-01");
+    expect(list.rows[0]).toMatchObject({ familyName: "Duarte", lastVisit: "2024-08-01", grade: "hsil" });
+  });
+});

@@ -68,7 +68,6 @@ export function SigningPrompt(props: { visitId: string; conv: DisplayConvention;
         </p>
       ) : null}
       {fu.note ? <p role="status" className={`text-sm ${fu.note.tone === "danger" ? "font-semibold text-danger-ink" : ""}`}>{fu.note.text}</p> : null}
-      <p className="text-sm">Once signed, the record can no longer be changed.</p>
       <div className="flex flex-wrap gap-3">
         <button type="button" className={BTN_MAIN} onClick={props.onSign} disabled={busy || open.length > 0}>
           {props.busy ? "Signing…" : "Yes, sign this visit"}
