@@ -67,3 +67,14 @@ describe("status glyphs are not colour alone", () => {
     for (const s of shapes) expect(s.length).toBeGreaterThan(10);
   });
 });
+
+describe("StatusGrid: a draft visit", () => {
+  // Statuses come from signed visits only: a draft's column says so rather than "No record".
+  it("labels the draft's column and its cells, with no status", () => {
+    render(<StatusGrid visits={[...visits, { id: "v3", visitDate: "2026-01-20", status: "draft" }]} tracks={tracks} statuses={statuses} selectedTrackId={null} onSelectTrack={vi.fn()} />);
+    expect(screen.getAllByRole("columnheader").map((h) => h.textContent)).toContain("2026-01-20 draft, not signed");
+    const cells = document.querySelectorAll('td[title="No status: the visit is a draft"]');
+    expect(cells).toHaveLength(2);
+    for (const c of cells) expect(c.textContent).toBe("Draft: no status yet");
+  });
+});

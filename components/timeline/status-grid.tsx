@@ -52,7 +52,7 @@ export function StatusGrid(props: {
             {visits.map((v) => (
               <th key={v.id} scope="col" className="whitespace-nowrap px-3 py-2 tabular-nums">
                 {v.visitDate}
-                {v.status === "draft" ? <span className="block text-xs font-normal">draft, not signed</span> : null}
+                {v.status === "draft" ? <span className="block text-xs font-normal"> draft, not signed</span> : null}
               </th>
             ))}
           </tr>
@@ -82,7 +82,7 @@ export function StatusGrid(props: {
                     : v.status === "draft" ? "No status: the visit is a draft" : check ? `No status: ${CHECK_WORDS[check]}` : "No record at this visit";
                   return (
                     <td key={v.id} title={title} data-status={s?.status ?? "none"} className="px-3 py-2 align-top">
-                      <StatusMark status={s?.status ?? null} />
+                      {!s && v.status === "draft" ? <span className="text-ink-soft">Draft: no status yet</span> : <StatusMark status={s?.status ?? null} />}
                       {gradeWords ? <span className="block text-xs text-ink-soft">{gradeWords}</span> : null}
                       {check && !s ? <span className="block text-xs text-ink-soft">{CHECK_WORDS[check]}</span> : null}
                       {s ? <span className="sr-only">. {s.reason}</span> : null}
