@@ -14,16 +14,16 @@ const T2 = "22222222-2222-4222-8222-222222222222";
 const T3 = "33333333-3333-4333-8333-333333333333";
 const ghost = (trackId: string, trackLabel: string, over: Partial<GhostDto> = {}): GhostDto => ({
   lesionId: `old-${trackLabel}`, trackId, trackLabel, visitDate: "2027-01-10", label: "L1", clockStartH: 2, clockEndH: 3, distanceStartCm: 1, distanceEndCm: 2,
-  zone: "distal_canal", grade: "hsil", foundHere: false, checkHere: null, ...over,
+  zone: "distal_canal", grade: "hsil", impression: "hsil", histology: null, foundHere: false, checkHere: null, ...over,
 });
-const context = (ghosts: GhostDto[]): FollowUpDto => ({ visit: { id: "v2", status: "draft", visitDate: "2027-07-01" }, ghosts, suggestions: [], unmatchedLesionIds: [] });
+const context = (ghosts: GhostDto[]): FollowUpDto => ({ visit: { id: "v2", status: "draft", visitDate: "2027-07-01" }, ghosts, suggestions: [], unmatchedLesionIds: [], keptNew: [] });
 const VISIT = { id: "v2", patientId: "p1", siteId: "s1", visitDate: "2027-07-01", status: "draft", examinerId: "u1", examinerName: "Dr Vale", patientPosition: "lithotomy" } as VisitRecordDto;
 const reply = (status: number, body: unknown) => Promise.resolve(new Response(JSON.stringify(body), { status, headers: { "content-type": "application/json" } }));
 
 afterEach(() => vi.unstubAllGlobals());
 
 function mount() {
-  let ctx = context([ghost(T1, "#1"), ghost(T2, "#2", { grade: "lsil", clockStartH: 7, clockEndH: 8 }), ghost(T3, "#3", { checkHere: "not_found" })]);
+  let ctx = context([ghost(T1, "#1"), ghost(T2, "#2", { grade: "lsil", impression: "lsil", clockStartH: 7, clockEndH: 8 }), ghost(T3, "#3", { checkHere: "not_found" })]);
   const spy = vi.fn((url: string, init?: RequestInit) => {
     if (url.endsWith("/tracks") && init?.method === "POST") {
       const a = JSON.parse(String(init.body)) as { trackId: string; outcome: GhostDto["checkHere"] };

@@ -51,7 +51,7 @@ export function SigningPrompt(props: { visitId: string; conv: DisplayConvention;
                     {enc.label} · last seen {g.visitDate} as {g.label} · {describeSite(g.clockStartH, g.clockEndH, g.distanceStartCm, g.distanceEndCm, props.conv)}
                   </p>
                   <div className="mt-1 flex flex-wrap items-center gap-2" role="group" aria-label={`Decision for ${g.trackLabel}`}>
-                    <button type="button" disabled={busy} className={BTN_MAIN} aria-label={`Found ${g.trackLabel}`} onClick={() => look.onFound(g)}>Found</button>
+                    <button type="button" disabled={busy} className={BTN_PLAIN} aria-label={`Found ${g.trackLabel}`} onClick={() => look.onFound(g)}>Found</button>
                     <button type="button" disabled={busy} className={BTN_PLAIN} aria-label={`Not found ${g.trackLabel}`} onClick={() => look.onCheck(g, "not_found")}>Not found</button>
                     <button type="button" disabled={busy} className={BTN_PLAIN} aria-label={`Not examined ${g.trackLabel}`} onClick={() => look.onCheck(g, "not_examined")}>Not examined</button>
                     <span className="text-sm text-ink-soft">{s ? `Found links lesion ${s.lesionLabel}, drawn here.` : "Found draws a lesion at the earlier place: adjust it on the map."}</span>
