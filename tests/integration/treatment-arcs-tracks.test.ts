@@ -66,6 +66,9 @@ describe("a treatment entered as arcs only marks the covered lesion's track as t
     const v3 = await visit(patientId, "2025-10-10");
     const back = await lesion(v3, hsil(2, 4));
     expect((await trackAction(req("POST", "/x", clinician, { action: "link", lesionId: back.id, trackId: a.trackId }), ctx({ visitId: v3 }))).status).toBe(200);
+    // Statuses come from signed visits: none while v3 is a draft.
+    expect(await statusOf(patientId, a.trackId, v3)).toBeUndefined();
+    await signVisit(v3);
     // HSIL at the treated site after a clear visit: recurrent (untreated it would read persistent).
     expect(await statusOf(patientId, a.trackId, v3)).toBe("recurrent");
   });
