@@ -1,5 +1,6 @@
 // Headless Debian Chromium driven by playwright-core against the app that scripts/test.sh
 // started (BASE_URL).
+import { expect } from "vitest";
 import { mkdtempSync, mkdirSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
@@ -58,13 +59,16 @@ export async function decideEarlierTracks(page: Page, visitId: string, outcome: 
 
 /** In the signing prompt, answers every track still to look for with one choice, by its buttons. */
 export async function answerSigningPrompt(page: Page, choice: "Not found" | "Not examined" = "Not examined"): Promise<void> {
-  const items = page.locator("[data-undecided]");
-  await page.locator("[data-signing-prompt]").waitFor();
+  // Scoped to the prompt: the Look again list under the map has buttons of the same names.
+  const prompt = page.locator("[data-signing-prompt]");
+  await prompt.waitFor();
+  const items = prompt.locator("[data-undecided]");
   while ((await items.count()) > 0) {
     const label = (await items.first().getAttribute("data-undecided"))!;
-    const button = page.getByRole("button", { name: `${choice} ${label}`, exact: true });
+    const button = prompt.getByRole("button", { name: `${choice} ${label}`, exact: true });
+    await expect.poll(() => button.isEnabled()).toBe(true);
     await button.click();
-    await page.locator(`[data-undecided="${label}"]`).waitFor({ state: "detached" });
+    await prompt.locator(`[data-undecided="${label}"]`).waitFor({ state: "detached" });
   }
 }
 
