@@ -1,9 +1,10 @@
 import "server-only";
-import { and, asc, eq, isNotNull, lt } from "drizzle-orm";
+import { and, asc, eq, isNotNull } from "drizzle-orm";
 import { db, type Tx } from "../client";
 import { addenda, lesions, lesionTracks, trackChecks, users, visits } from "../schema";
 import { inScope, type SiteScope } from "./scope";
 import { loadVisit } from "./visit-access";
+import { earlierThan } from "./track-links";
 
 /** The visit row for signing, locked, when it is in the caller's scope. */
 export async function visitForSigning(tx: Tx, scope: SiteScope, visitId: string) {
@@ -28,7 +29,7 @@ export async function trackDecisionsAtVisit(tx: Tx, v: { id: string; patientId: 
       .from(lesions)
       .innerJoin(visits, eq(visits.id, lesions.visitId))
       .innerJoin(lesionTracks, eq(lesionTracks.id, lesions.trackId))
-      .where(and(eq(visits.patientId, v.patientId), lt(visits.visitDate, v.visitDate)))
+      .where(earlierThan(v.patientId, v.visitDate))
       .execute(),
     tx.select({ trackId: lesions.trackId }).from(lesions).where(and(eq(lesions.visitId, v.id), isNotNull(lesions.trackId))).execute(),
     tx.select({ trackId: trackChecks.trackId, outcome: trackChecks.outcome }).from(trackChecks).where(eq(trackChecks.visitId, v.id)).execute(),

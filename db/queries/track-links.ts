@@ -5,6 +5,13 @@ import { biopsies, keptNewLesions, lesions, lesionTracks, trackChecks, users, vi
 import type { TrackCheckOutcome } from "@/lib/domain/vocab";
 import { nextTrackLabel } from "@/lib/domain/track-label";
 
+/**
+ * Which sightings count as "earlier" at a visit: lesions of the patient's visits dated before it
+ * (joined to their visit). The follow-up list and signing's undecided-track check both read this,
+ * so signing can never ask about a track the list does not show.
+ */
+export const earlierThan = (patientId: string, beforeDate: string) => and(eq(visits.patientId, patientId), lt(visits.visitDate, beforeDate));
+
 /** Every lesion of the patient's visits before `beforeDate` that is on a track, newest first. */
 export function earlierSightings(patientId: string, beforeDate: string) {
   return db
@@ -16,7 +23,7 @@ export function earlierSightings(patientId: string, beforeDate: string) {
     .from(lesions)
     .innerJoin(visits, eq(visits.id, lesions.visitId))
     .innerJoin(lesionTracks, eq(lesionTracks.id, lesions.trackId))
-    .where(and(eq(visits.patientId, patientId), lt(visits.visitDate, beforeDate)))
+    .where(earlierThan(patientId, beforeDate))
     .orderBy(desc(visits.visitDate));
 }
 
