@@ -264,16 +264,21 @@ async function cpuPass(step) {
 }
 const createOnly = await cpuPass(steps[2]);
 const updateOnly = await cpuPass(toggle);
+// The same reading for the write floor: what any signed-in write costs before its own work.
+const floorOnly = await cpuPass({ name: "write-floor", build: () => ({ method: "POST", path: "/api/bench/write-floor", body: floorBody }) });
+// And each other step of the mix alone (reported, so the mix's cost can be read step by step).
+const mixSteps = {};
+for (const step of [steps[0], steps[1], steps[4]]) mixSteps[step.name] = await cpuPass(step);
 
 const f = summary(floor);
 const a = summary(signedIn);
 const wf = summary(writeFloor);
 // Every pass: at least 90% of the connections busy on average, and no request left unanswered.
-const passes = { floor: f, sessionFloor: a, writeFloor: wf, mix: r, createOnly, updateOnly };
+const passes = { floor: f, sessionFloor: a, writeFloor: wf, mix: r, createOnly, updateOnly, floorOnly, ...mixSteps };
 const health = Object.entries(passes)
   .filter(([, p]) => p.busyConnections < 0.9 * connections || p.timeouts > 0)
   .map(([name, p]) => `${name}: ${p.busyConnections} of ${connections} connections busy, ${p.timeouts} timeouts, ${p.socketErrors} socket errors`);
 console.log(JSON.stringify({
   connections, durationS: duration, floor: f, sessionFloor: { ...a, ...against(a, f) }, writeFloor: { ...wf, ...against(wf, f) }, mix: r, ...against(r, f),
-  againstWriteFloor: against(r, wf), cpu: { create: createOnly.cpu, update: updateOnly.cpu }, createOnly, updateOnly, health,
+  againstWriteFloor: against(r, wf), cpu: { create: createOnly.cpu, update: updateOnly.cpu }, floorCpu: floorOnly.cpu, mixStepCpu: Object.fromEntries(Object.entries(mixSteps).map(([k, v]) => [k, { ...v.cpu, reqPerSec: v.reqPerSec, p95Ms: v.p95Ms, errors: v.errors }])), createOnly, updateOnly, health,
 }));

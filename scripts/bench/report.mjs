@@ -67,6 +67,11 @@ if (api.data) {
     if (!c || c.totalMs === null) missing(`Server CPU per request: lesion ${name}`, "no CPU reading (SERVER_PID / PG_POSTMASTER_PID unset, or nothing answered)");
     else row(`Server CPU per request: lesion ${name} (server + PostgreSQL)`, `${c.totalMs} ms (server ${c.serverMs}, PostgreSQL ${c.postgresMs})`, "", "", "≤ 3.0 ms, PostgreSQL ≤ 1.5 ms", c.totalMs <= 3 && c.postgresMs <= 1.5);
   }
+  const fc = api.data.floorCpu;
+  if (fc && fc.totalMs !== null) row("Server CPU per request: write floor (server + PostgreSQL)", `${fc.totalMs} ms (server ${fc.serverMs}, PostgreSQL ${fc.postgresMs})`, "", "", "(reported)", undefined);
+  for (const [name, c] of Object.entries(api.data.mixStepCpu ?? {})) {
+    if (c && c.totalMs !== null) row(`Mix step alone: ${name}: CPU per request (server + PostgreSQL), throughput`, `${c.totalMs} ms (server ${c.serverMs}, PostgreSQL ${c.postgresMs}), ${c.reqPerSec} req/s`, "", "", "(reported)", undefined);
+  }
   for (const p of ["createOnly", "updateOnly"]) if (api.data[p]) row(`Lesion ${p === "createOnly" ? "creates" : "updates"} alone: errors`, `${api.data[p].errors} of ${api.data[p].requests}`, "", "", "0", api.data[p].errors === 0);
   // Every load pass: ≥ 90% of the connections busy and no timeout, or the run fails (exit 1).
   const health = api.data.health ?? ["no health record from api-load.mjs"];
