@@ -140,17 +140,13 @@ export function updateLesionRow(tx: Tx, lesionId: string, version: number, set: 
     .execute();
 }
 
-export async function lesionOnVisit(tx: Tx, lesionId: string, visitId: string) {
-  const [row] = await tx.select({ version: lesions.version, trackId: lesions.trackId }).from(lesions).where(and(eq(lesions.id, lesionId), eq(lesions.visitId, visitId)));
-  return row ?? null;
-}
-
 export async function deleteLesionRow(tx: Tx, lesionId: string): Promise<void> {
   await tx.delete(lesions).where(eq(lesions.id, lesionId));
 }
 
-/** Removes a track no lesion, track check or adjudication refers to any more. */
+/** Removes a track no lesion, track check or adjudication refers to any more (one statement). */
 export async function deleteTrackIfUnused(tx: Tx, trackId: string): Promise<void> {
-  const [{ left }] = await tx.select({ left: dsql<number>`count(*)::int` }).from(lesions).where(eq(lesions.trackId, trackId));
-  if (left === 0) await tx.execute(dsql`delete from lesion_tracks where id = ${trackId} and not exists (select 1 from track_checks where track_id = ${trackId}) and not exists (select 1 from adjudications where track_id = ${trackId})`);
+  await tx.execute(
+    dsql`delete from lesion_tracks where id = ${trackId} and not exists (select 1 from lesions where track_id = ${trackId}) and not exists (select 1 from track_checks where track_id = ${trackId}) and not exists (select 1 from adjudications where track_id = ${trackId})`,
+  );
 }

@@ -178,20 +178,6 @@ export const trackStatuses = pgTable(
   (t) => [unique("track_statuses_pk").on(t.trackId, t.visitId), index("track_statuses_visit_idx").on(t.visitId)],
 );
 
-/**
- * Derived, per track: what the metachronous rule needs of it (lib/tracking trackMarks) and the
- * flag its stored statuses were worked out with. Kept in the same transaction as the statuses, so
- * a write can recompute only the tracks it touches (lib/server/track-statuses.ts). A track without
- * a row here has not been summarised yet: the next refresh of its patient recomputes everything.
- */
-export const trackSummaries = pgTable("track_summaries", {
-  trackId: uuid("track_id").primaryKey().references(() => lesionTracks.id, { onDelete: "cascade" }),
-  siteId: uuid("site_id").notNull().references(() => sites.id),
-  firstSeen: date("first_seen"),
-  firstDiseased: date("first_diseased"),
-  earlierDiseaseElsewhere: boolean("earlier_disease_elsewhere").notNull(),
-});
-
 export const biopsies = pgTable(
   "biopsies",
   {

@@ -2,17 +2,15 @@ import "server-only";
 import { randomUUID } from "node:crypto";
 import { db } from "@/db/client";
 import {
-  deleteLesionRow, deleteTrackIfUnused, fetchLesion, insertLesion, insertTrack, lesionByClientKey, lesionOnVisit, trackOfPatient, updateLesionRow, type LesionRow,
+  deleteLesionRow, deleteTrackIfUnused, fetchLesion, insertLesion, insertTrack, lesionByClientKey, trackOfPatient, updateLesionRow, type LesionRow,
 } from "@/db/queries/lesions";
-import { lockDraftVisit, lockDraftVisitForLesion } from "@/db/queries/visit-access";
-import { lockPatientStatusesOfVisit } from "@/db/queries/patient-lock";
+import { lockDraftVisitForLesion } from "@/db/queries/visit-access";
 import { recordAudit } from "@/db/queries/audit-write";
 import type { SiteScope } from "@/db/queries/scope";
 import { AppError } from "@/lib/errors";
 import { DEFAULT_ZONE_BOUNDS, zoneBoundsSchema, zoneForDistance, type ZoneBounds } from "@/lib/geometry/zones";
 import type { CreateLesionInput, LesionDto, UpdateLesionInput } from "@/lib/validation/lesions";
 import { endOf12IsWholeCircle, FULL_CIRCLE_ONLY_MESSAGE } from "@/lib/validation/clock";
-import { refreshTrackStatuses } from "./track-statuses";
 
 function boundsOf(zoneBounds: unknown): ZoneBounds {
   const parsed = zoneBoundsSchema.safeParse(zoneBounds);
@@ -25,6 +23,11 @@ function zoneFor(bounds: ZoneBounds, startCm: number, endCm: number) {
   return z;
 }
 
+// Lesions are written only on draft visits (the lock statement refuses a signed one), and track
+// statuses come from signed visits alone (lib/tracking/histories.ts): a lesion write changes no
+// status, so it neither takes the patient's status lock nor works statuses out. Signing does that
+// for the whole visit (lib/server/signing.ts).
+
 /** A new lesion starts its own track; linking it to an earlier track is a separate, audited step. */
 export async function createLesion(scope: SiteScope, visitId: string, input: CreateLesionInput, ip: string): Promise<LesionDto> {
   return db.transaction(async (tx) => {
@@ -35,9 +38,7 @@ export async function createLesion(scope: SiteScope, visitId: string, input: Cre
     // is held, with a fresh snapshot (READ COMMITTED), so of two such requests the second sees the
     // first's row. (Inside the locking statement it would read the snapshot from before the wait.)
     // Its answer is used only once the lock has found the visit in the caller's scope.
-    // First of all, the patient's status lock (db/queries/patient-lock.ts), in the same round trip.
-    const [, { visit }, made] = await Promise.all([
-      lockPatientStatusesOfVisit(tx, scope, visitId),
+    const [{ visit }, made] = await Promise.all([
       lockDraftVisitForLesion(tx, scope, visitId, { lockPatient: true }),
       input.clientKey ? lesionByClientKey(tx, { visitId, clientKey: input.clientKey }).then((rows) => rows[0]) : undefined,
     ]);
@@ -46,8 +47,7 @@ export async function createLesion(scope: SiteScope, visitId: string, input: Cre
     const trackId = randomUUID();
     const lesionId = randomUUID();
     // Sent together, in the order they are started here on the transaction's one connection: the
-    // track, the lesion on it, then (seeing both) the status refresh's read and the audit. A failed
-    // insert fails the rest and the transaction.
+    // track, the lesion on it, then the audit. A failed insert fails the rest and the transaction.
     const [[track], [row]] = await Promise.all([
       insertTrack(tx, { id: trackId, patientId: visit.patientId, siteId: visit.siteId }),
       insertLesion(tx, {
@@ -69,8 +69,6 @@ export async function createLesion(scope: SiteScope, visitId: string, input: Cre
         note: input.note ?? null,
         clientKey: input.clientKey ?? null,
       }),
-      // Only the new track's statuses (and any other track whose metachronous flag it turns).
-      refreshTrackStatuses(tx, visit.patientId, visit.siteId, [trackId]),
       recordAudit({ userId: scope.userId, siteId: visit.siteId, patientId: visit.patientId, action: "lesion.create", entityType: "lesion", entityId: lesionId, ip, detail: { ...input } }, tx),
     ]);
     // A lesion created just now has no biopsy and no treatment yet.
@@ -85,12 +83,12 @@ function unchanged(input: UpdateLesionInput, current: Record<string, unknown>): 
 
 export async function updateLesion(scope: SiteScope, visitId: string, lesionId: string, input: UpdateLesionInput, ip: string): Promise<LesionDto> {
   return db.transaction(async (tx) => {
-    const [, { visit, current }] = await Promise.all([lockPatientStatusesOfVisit(tx, scope, visitId), lockDraftVisitForLesion(tx, scope, visitId, { lesionId })]);
+    const { visit, current } = await lockDraftVisitForLesion(tx, scope, visitId, { lesionId });
     if (!current) throw new AppError("not_found");
     if (current.version !== input.version) throw new AppError("conflict");
     const { version, trackId, ...fields } = input;
     // An update whose values all equal the stored ones (a form saved again, a tap that moved
-    // nothing) changes nothing: no new version, no audit row, no status work.
+    // nothing) changes nothing: no new version, no audit row.
     if (unchanged(input, current)) return fetchLesion(tx, lesionId);
     if (trackId !== undefined && trackId !== null) {
       if (!(await trackOfPatient(tx, trackId, visit.patientId))) throw new AppError("invalid", undefined, { trackId: ["That track does not belong to this patient."] });
@@ -102,18 +100,12 @@ export async function updateLesion(scope: SiteScope, visitId: string, lesionId: 
       throw new AppError("invalid", undefined, { clockEndH: [FULL_CIRCLE_ONLY_MESSAGE] });
     }
     const zone = zoneFor(boundsOf(visit.zoneBounds), start, end);
-    // Track statuses are worked out from each lesion's grade and track, and from the patient's
-    // visits, biopsies, treatments and track checks, which a lesion update does not touch. Moving
-    // an extent or editing a description leaves them as they are: they are worked out again only
-    // when the grade or the track changes.
-    const statusesMayChange = (fields.grade !== undefined && fields.grade !== current.grade) || (trackId !== undefined && trackId !== current.trackId);
-    // The update, then (seeing it) the status refresh's read, the audit and the lesion as saved:
-    // sent together, in the order they are started here on the transaction's one connection (so
-    // the update is started with execute(), not left for Promise.all to start after the others).
-    // Should the update match no row, the transaction is rolled back with the rest.
-    const [updated, , , lesion] = await Promise.all([
+    // The update, the audit and the lesion as saved: sent together, in the order they are started
+    // here on the transaction's one connection (so the update is started with execute(), not left
+    // for Promise.all to start after the others). Should the update match no row, the transaction
+    // is rolled back with the rest.
+    const [updated, , lesion] = await Promise.all([
       updateLesionRow(tx, lesionId, version, { ...fields, ...(trackId !== undefined ? { trackId } : {}), zone }),
-      statusesMayChange ? refreshTrackStatuses(tx, visit.patientId, visit.siteId, [current.trackId, trackId]) : null,
       recordAudit({ userId: scope.userId, siteId: visit.siteId, patientId: visit.patientId, action: "lesion.update", entityType: "lesion", entityId: lesionId, ip, detail: { ...input } }, tx),
       fetchLesion(tx, lesionId),
     ]);
@@ -124,14 +116,15 @@ export async function updateLesion(scope: SiteScope, visitId: string, lesionId: 
 
 export async function deleteLesion(scope: SiteScope, visitId: string, lesionId: string, version: number, ip: string): Promise<void> {
   await db.transaction(async (tx) => {
-    const [, visit] = await Promise.all([lockPatientStatusesOfVisit(tx, scope, visitId), lockDraftVisit(tx, scope, visitId)]);
-    const current = await lesionOnVisit(tx, lesionId, visit.id);
+    const { visit, current } = await lockDraftVisitForLesion(tx, scope, visitId, { lesionId });
     if (!current) throw new AppError("not_found");
     if (current.version !== version) throw new AppError("conflict");
-    await deleteLesionRow(tx, lesionId);
-    // A track left with no lesion anywhere was only this lesion's: remove it too.
-    if (current.trackId) await deleteTrackIfUnused(tx, current.trackId);
-    await refreshTrackStatuses(tx, visit.patientId, visit.siteId, [current.trackId]);
-    await recordAudit({ userId: scope.userId, siteId: visit.siteId, patientId: visit.patientId, action: "lesion.delete", entityType: "lesion", entityId: lesionId, ip }, tx);
+    // The lesion, then its track if no lesion anywhere is left on it (it was only this lesion's),
+    // and the audit: sent together, in this order.
+    await Promise.all([
+      deleteLesionRow(tx, lesionId),
+      current.trackId ? deleteTrackIfUnused(tx, current.trackId) : null,
+      recordAudit({ userId: scope.userId, siteId: visit.siteId, patientId: visit.patientId, action: "lesion.delete", entityType: "lesion", entityId: lesionId, ip }, tx),
+    ]);
   });
 }

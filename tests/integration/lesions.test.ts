@@ -66,30 +66,36 @@ describe("lesions route", () => {
     expect(row!.grade).toBe("lsil");
   });
 
-  it("works track statuses out again when a lesion's grade or track changes, and not when only its extent or note does", async () => {
+  it("does no status work for a lesion written on a draft, whatever changes, and leaves the signed visits' statuses as they were", async () => {
     // An earlier, signed exam found LSIL on track T; today's lesion starts on a track of its own.
+    // Statuses come from signed visits only (a draft neither clears nor finds anything), so no
+    // write on the draft, not even a grade change or a link to T, sends a status statement.
     const [t] = await db.insert(lesionTracks).values({ patientId, siteId: siteA, label: "T90" }).returning();
     await db.insert(lesions).values({ visitId: signedVisitId, siteId: siteA, trackId: t!.id, label: "L90", clockStartH: 7, clockEndH: 8, distanceStartCm: 1, distanceEndCm: 2, zone: "transformation_zone", grade: "lsil" });
-    const { lesion } = await (await POST(req("POST", `/api/visits/${visitId}/lesions`, clinician, { ...body, clockStartH: 7, clockEndH: 8 }), ctx({ visitId }))).json();
-    const statusOnT = async () => (await db.select().from(trackStatuses).where(eq(trackStatuses.trackId, t!.id))).find((s) => s.visitId === visitId)?.status;
-    const patch = async (changes: Record<string, unknown>, version: number) => {
+    await db.insert(trackStatuses).values({ trackId: t!.id, visitId: signedVisitId, siteId: siteA, status: "new", effectiveGrade: "lsil", reason: "first sighting" });
+    const statusStatements = async (send: () => Promise<Response>, expected: number) => {
       const statements: string[] = [];
       const stop = onQuery((q) => statements.push(q));
-      const res = await PATCH(req("PATCH", "/x", clinician, { version, ...changes }), ctx({ visitId, lesionId: lesion.id }));
+      const res = await send();
       stop();
-      expect(res.status).toBe(200);
+      expect(res.status).toBe(expected);
       return statements.filter((q) => q.includes("track_statuses")).length;
     };
-    // A grade or track change reaches the status work; the draft itself drives no status (statuses
-    // come from signed visits only), so T keeps the one status of its signed visit.
+    let made: { id: string } | undefined;
+    expect(
+      await statusStatements(async () => {
+        const res = await POST(req("POST", `/api/visits/${visitId}/lesions`, clinician, { ...body, clockStartH: 7, clockEndH: 8 }), ctx({ visitId }));
+        made = (await res.clone().json()).lesion;
+        return res;
+      }, 201),
+    ).toBe(0);
+    const patch = (changes: Record<string, unknown>, version: number) =>
+      statusStatements(() => PATCH(req("PATCH", "/x", clinician, { version, ...changes }), ctx({ visitId, lesionId: made!.id })), 200);
     const statusesOfT = async () => (await db.select().from(trackStatuses).where(eq(trackStatuses.trackId, t!.id))).map((r) => [r.visitId, r.status]);
-    expect(await patch({ trackId: t!.id, grade: "hsil" }, 1)).toBeGreaterThan(0);
-    expect(await statusOnT()).toBeUndefined();
-    expect(await patch({ grade: "lsil" }, 2)).toBeGreaterThan(0);
-    expect(await statusesOfT()).toEqual([[signedVisitId, "new"]]);
-    // Moved a little and described: nothing that decides a status, so no status statement at all.
+    expect(await patch({ trackId: t!.id, grade: "hsil" }, 1)).toBe(0);
+    expect(await patch({ grade: "lsil" }, 2)).toBe(0);
     expect(await patch({ clockStartH: 7.5, clockEndH: 8.5, note: "Flat, sharp border." }, 3)).toBe(0);
-    expect(await patch({ grade: "lsil", sizeMm: 5 }, 4)).toBe(0);
+    expect(await statusStatements(() => DELETE(req("DELETE", "/x?version=4", clinician), ctx({ visitId, lesionId: made!.id })), 200)).toBe(0);
     expect(await statusesOfT()).toEqual([[signedVisitId, "new"]]);
   });
 
