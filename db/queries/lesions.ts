@@ -1,11 +1,12 @@
 import "server-only";
 import { and, asc, eq, sql as dsql } from "drizzle-orm";
+import type { AnyPgColumn } from "drizzle-orm/pg-core";
 import { db, prepared, type Tx } from "../client";
 import { biopsies, lesions, lesionTracks, treatments } from "../schema";
-import { inScopeParam, siteIdsParam, type SiteScope } from "./scope";
+import { inScopeParam, pgArrayLiteral, siteIdsParam, type SiteScope } from "./scope";
 import { loadVisitAudited } from "./visit-access";
-import type { ReadAudit } from "./audit-write";
-import type { Histology } from "@/lib/domain/vocab";
+import { auditOfWrite, type AuditInput, type ReadAudit } from "./audit-write";
+import type { Grade, Histology, Zone } from "@/lib/domain/vocab";
 import { worstHistology } from "@/lib/tracking/histories";
 import type { LesionDto, VisitMapDto } from "@/lib/validation/lesions";
 
@@ -39,8 +40,6 @@ const decorationColumns = {
 };
 
 export type LesionRow = Omit<LesionDto, "histology" | "biopsyLabels" | "treated">;
-// The lesion row's own columns (the track label comes from the joined track).
-const lesionColumnsOfRow = Object.fromEntries(Object.entries(lesionColumns).filter(([k]) => k !== "trackLabel")) as Omit<typeof lesionColumns, "trackLabel">;
 type DecoratedRow = LesionRow & { biopsyLabels: string[]; histologies: string[]; treated: boolean };
 
 function toDto({ histologies, ...r }: DecoratedRow): LesionDto {
@@ -79,46 +78,46 @@ export async function fetchLesion(tx: Tx, id: string): Promise<LesionDto> {
   return toDto(rows[0] as DecoratedRow);
 }
 
-// A new lesion's track and the lesion itself, each built once. Both ids are made here, so the two
-// inserts and everything that follows them go out together (one round trip in the transaction).
+// The columns of a lesion row written by the statements below, as the DTO names them, read from
+// the CTE that wrote it (aliased "lesions", so the column and decoration fragments above apply).
+const writtenColumns = (columns: Record<string, unknown>) =>
+  dsql.join(Object.entries(columns).map(([name, column]) => dsql`${column} as ${dsql.identifier(name)}`), dsql`, `);
+
+export interface NewLesion {
+  id: string; trackId: string; visitId: string; siteId: string; patientId: string;
+  clockStartH: number; clockEndH: number; distanceStartCm: number; distanceEndCm: number; zone: Zone; grade: Grade;
+  morphology: string | null; acetowhite: string | null; lugol: string | null; vessels: string[]; sizeMm: number | null; note: string | null; clientKey: string | null;
+}
+
+/**
+ * A new lesion on a track of its own, and its audit, in one statement (one round trip). The track
+ * gets the patient's next label, the lesion the visit's next (the caller holds the visit and the
+ * patient locked). A create sent again with a client key already used at the visit (its first
+ * answer was lost) writes nothing and yields no row: the statement runs after the lock is held,
+ * with a snapshot that sees the first create.
+ */
+export async function insertLesionWithTrack(tx: Tx, l: NewLesion, audit: AuditInput): Promise<LesionRow | null> {
+  const rows = await tx.execute<LesionRow>(dsql`
+    with track as (
+      insert into ${lesionTracks} (id, patient_id, site_id, label)
+      -- Same rule as lib/domain/track-label.ts nextTrackLabel ("#" and the next number); a test checks both.
+      select ${l.trackId}::uuid, ${l.patientId}::uuid, ${l.siteId}::uuid,
+        '#' || (select coalesce(max(substring(label from 2)::int), 0) + 1 from ${lesionTracks} where patient_id = ${l.patientId}::uuid and label ~ '^#[0-9]+$')
+      where not exists (select 1 from ${lesions} where visit_id = ${l.visitId}::uuid and client_key = ${l.clientKey}::uuid)
+      returning id, label
+    ), made as (
+      insert into ${lesions} (id, visit_id, site_id, track_id, label, clock_start_h, clock_end_h, distance_start_cm, distance_end_cm, zone, grade, morphology, acetowhite, lugol, vessels, size_mm, note, client_key)
+      select ${l.id}::uuid, ${l.visitId}::uuid, ${l.siteId}::uuid, track.id,
+        'L' || (select coalesce(max(substring(label from 2)::int), 0) + 1 from ${lesions} where visit_id = ${l.visitId}::uuid and label ~ '^L[0-9]+$'),
+        ${l.clockStartH}::float8, ${l.clockEndH}::float8, ${l.distanceStartCm}::float8, ${l.distanceEndCm}::float8, ${l.zone}::zone, ${l.grade}::grade,
+        ${l.morphology}::morphology, ${l.acetowhite}::acetowhite, ${l.lugol}::lugol, ${pgArrayLiteral(l.vessels)}::text[], ${l.sizeMm}::float8, ${l.note}::text, ${l.clientKey}::uuid
+      from track
+      returning *
+    ), audit as (${auditOfWrite(audit, dsql`from made`)})
+    select ${writtenColumns(lesionColumns)} from made as "lesions" inner join track as "lesion_tracks" on true`);
+  return rows[0] ?? null;
+}
 const ph = (name: string) => dsql.placeholder(name);
-export const insertTrack = prepared((run) =>
-  run
-    .insert(lesionTracks)
-    .values({
-      id: ph("id"),
-      patientId: ph("patientId"),
-      siteId: ph("siteId"),
-      // Same rule as lib/domain/track-label.ts nextTrackLabel ("#" and the next number); a test checks both.
-      label: dsql`'#' || (select coalesce(max(substring(label from 2)::int), 0) + 1 from lesion_tracks where patient_id = ${ph("patientId")} and label ~ '^#[0-9]+$')`,
-    })
-    .returning({ id: lesionTracks.id, label: lesionTracks.label }),
-);
-export const insertLesion = prepared((run) =>
-  run
-    .insert(lesions)
-    .values({
-      id: ph("id"),
-      visitId: ph("visitId"),
-      siteId: ph("siteId"),
-      trackId: ph("trackId"),
-      label: dsql`'L' || (select coalesce(max(substring(label from 2)::int), 0) + 1 from lesions where visit_id = ${ph("visitId")} and label ~ '^L[0-9]+$')`,
-      clockStartH: ph("clockStartH"),
-      clockEndH: ph("clockEndH"),
-      distanceStartCm: ph("distanceStartCm"),
-      distanceEndCm: ph("distanceEndCm"),
-      zone: ph("zone"),
-      grade: ph("grade"),
-      morphology: ph("morphology"),
-      acetowhite: ph("acetowhite"),
-      lugol: ph("lugol"),
-      vessels: ph("vessels"),
-      sizeMm: ph("sizeMm"),
-      note: ph("note"),
-      clientKey: ph("clientKey"),
-    })
-    .returning(lesionColumnsOfRow),
-);
 export const lesionByClientKey = prepared((run) =>
   run.select({ id: lesions.id }).from(lesions).where(and(eq(lesions.visitId, ph("visitId")), eq(lesions.clientKey, ph("clientKey")))),
 );
@@ -130,14 +129,26 @@ export async function trackOfPatient(tx: Tx, trackId: string, patientId: string)
   return track ?? null;
 }
 
-/** Writes a lesion's new values if its version is still `version`; started at once (see the services' ordering note). */
-export function updateLesionRow(tx: Tx, lesionId: string, version: number, set: Partial<typeof lesions.$inferInsert>) {
-  return tx
-    .update(lesions)
-    .set({ ...set, version: version + 1, updatedAt: new Date() })
-    .where(and(eq(lesions.id, lesionId), eq(lesions.version, version)))
-    .returning({ id: lesions.id })
-    .execute();
+/**
+ * Writes a lesion's new values if its version is still `version`, with its audit, and answers the
+ * lesion as saved (as the map shows it), in one statement; null when the version had moved on.
+ */
+export async function updateLesionWithAudit(tx: Tx, lesionId: string, version: number, set: Partial<typeof lesions.$inferInsert>, audit: AuditInput): Promise<LesionDto | null> {
+  const assignments = Object.entries(set)
+    .filter(([, value]) => value !== undefined)
+    .map(([key, value]) => {
+      const column = lesions[key as keyof typeof set & keyof typeof lesions] as AnyPgColumn;
+      const bound = key === "vessels" ? dsql`${pgArrayLiteral(value as string[])}::text[]` : dsql`${value}`;
+      return dsql`${dsql.identifier(column.name)} = ${bound}`;
+    });
+  const rows = await tx.execute<DecoratedRow>(dsql`
+    with changed as (
+      update ${lesions} set ${dsql.join([...assignments, dsql`version = ${version + 1}`, dsql`updated_at = now()`], dsql`, `)}
+      where id = ${lesionId}::uuid and version = ${version}
+      returning *
+    ), audit as (${auditOfWrite(audit, dsql`from changed`)})
+    select ${writtenColumns({ ...lesionColumns, ...decorationColumns })} from changed as "lesions" left join ${lesionTracks} on ${lesionTracks.id} = "lesions"."track_id"`);
+  return rows[0] ? toDto(rows[0]) : null;
 }
 
 export async function deleteLesionRow(tx: Tx, lesionId: string): Promise<void> {

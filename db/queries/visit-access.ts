@@ -28,7 +28,16 @@ const examColumns = {
   ...visitColumns, indication: visits.indication, cytology: visits.cytology, hpvResult: visits.hpvResult, adequacy: visits.adequacy,
   examStartedAt: visits.examStartedAt, examEndedAt: visits.examEndedAt, anaesthesia: visits.anaesthesia, plan: visits.plan,
 };
-const examForUpdate = prepared((run) => run.select(examColumns).from(visits).where(visitInScope).for("update").limit(1));
+// And the patient's birth date, which bounds the exam's days (a lock of the visit row only).
+const examForUpdate = prepared((run) =>
+  run
+    .select({ ...examColumns, patientBirthDate: patients.dateOfBirth })
+    .from(visits)
+    .innerJoin(patients, eq(patients.id, visits.patientId))
+    .where(visitInScope)
+    .for("update", { of: visits })
+    .limit(1),
+);
 
 // The same, also writing the read's audit row (auditOfRead) when the visit is in scope.
 const visitHeaderAudited = prepared((run) =>

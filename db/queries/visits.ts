@@ -13,9 +13,3 @@ export async function insertVisit(tx: Tx, values: typeof visits.$inferInsert) {
   const [visit] = await tx.insert(visits).values(values).returning({ id: visits.id, visitDate: visits.visitDate, status: visits.status, version: visits.version });
   return visit!;
 }
-
-/** The date of birth of a visit's patient (visit and patient already checked by the caller). */
-export async function birthDateOfVisitPatient(tx: Tx, visitId: string): Promise<string | null> {
-  const [row] = await tx.select({ dateOfBirth: patients.dateOfBirth }).from(visits).innerJoin(patients, eq(patients.id, visits.patientId)).where(eq(visits.id, visitId)).limit(1);
-  return row?.dateOfBirth ?? null;
-}

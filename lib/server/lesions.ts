@@ -2,7 +2,7 @@ import "server-only";
 import { randomUUID } from "node:crypto";
 import { db } from "@/db/client";
 import {
-  deleteLesionRow, deleteTrackIfUnused, fetchLesion, insertLesion, insertTrack, lesionByClientKey, trackOfPatient, updateLesionRow, type LesionRow,
+  deleteLesionRow, deleteTrackIfUnused, fetchLesion, insertLesionWithTrack, lesionByClientKey, trackOfPatient, updateLesionWithAudit,
 } from "@/db/queries/lesions";
 import { lockDraftVisitForLesion } from "@/db/queries/visit-access";
 import { recordAudit } from "@/db/queries/audit-write";
@@ -31,30 +31,21 @@ function zoneFor(bounds: ZoneBounds, startCm: number, endCm: number) {
 /** A new lesion starts its own track; linking it to an earlier track is a separate, audited step. */
 export async function createLesion(scope: SiteScope, visitId: string, input: CreateLesionInput, ip: string): Promise<LesionDto> {
   return db.transaction(async (tx) => {
-    // Track labels are per patient: the patient is locked with the visit so two visits cannot take the same label.
-    // The same create sent again (its first answer was lost) is answered with the lesion it made.
-    // The client-key lookup goes out in the same round trip, right behind the lock on the
-    // transaction's one connection, as a statement of its own: PostgreSQL runs it after the lock
-    // is held, with a fresh snapshot (READ COMMITTED), so of two such requests the second sees the
-    // first's row. (Inside the locking statement it would read the snapshot from before the wait.)
-    // Its answer is used only once the lock has found the visit in the caller's scope.
-    const [{ visit }, made] = await Promise.all([
-      lockDraftVisitForLesion(tx, scope, visitId, { lockPatient: true }),
-      input.clientKey ? lesionByClientKey(tx, { visitId, clientKey: input.clientKey }).then((rows) => rows[0]) : undefined,
-    ]);
-    if (made) return fetchLesion(tx, made.id);
+    // Track labels are per patient: the patient is locked with the visit so two visits cannot take
+    // the same label. The same create sent again (its first answer was lost) is answered with the
+    // lesion it made.
+    const { visit } = await lockDraftVisitForLesion(tx, scope, visitId, { lockPatient: true });
     const zone = zoneFor(boundsOf(visit.zoneBounds), input.distanceStartCm, input.distanceEndCm);
-    const trackId = randomUUID();
     const lesionId = randomUUID();
-    // Sent together, in the order they are started here on the transaction's one connection: the
-    // track, the lesion on it, then the audit. A failed insert fails the rest and the transaction.
-    const [[track], [row]] = await Promise.all([
-      insertTrack(tx, { id: trackId, patientId: visit.patientId, siteId: visit.siteId }),
-      insertLesion(tx, {
+    // The track, the lesion on it and the audit: one statement, sent once the lock is held.
+    const row = await insertLesionWithTrack(
+      tx,
+      {
         id: lesionId,
+        trackId: randomUUID(),
         visitId: visit.id,
         siteId: visit.siteId,
-        trackId,
+        patientId: visit.patientId,
         clockStartH: input.clockStartH,
         clockEndH: input.clockEndH,
         distanceStartCm: input.distanceStartCm,
@@ -68,11 +59,16 @@ export async function createLesion(scope: SiteScope, visitId: string, input: Cre
         sizeMm: input.sizeMm ?? null,
         note: input.note ?? null,
         clientKey: input.clientKey ?? null,
-      }),
-      recordAudit({ userId: scope.userId, siteId: visit.siteId, patientId: visit.patientId, action: "lesion.create", entityType: "lesion", entityId: lesionId, ip, detail: { ...input } }, tx),
-    ]);
+      },
+      { userId: scope.userId, siteId: visit.siteId, patientId: visit.patientId, action: "lesion.create", entityType: "lesion", entityId: lesionId, ip, detail: { ...input } },
+    );
+    // Nothing written: the same create was made before (its client key is taken at this visit).
+    if (!row) {
+      const [made] = await lesionByClientKey(tx, { visitId: visit.id, clientKey: input.clientKey });
+      return fetchLesion(tx, made!.id);
+    }
     // A lesion created just now has no biopsy and no treatment yet.
-    return { ...(row as Omit<LesionRow, "trackLabel">), vessels: row!.vessels as LesionDto["vessels"], trackLabel: track!.label, histology: null, biopsyLabels: [], treated: false };
+    return { ...row, vessels: row.vessels as LesionDto["vessels"], histology: null, biopsyLabels: [], treated: false };
   });
 }
 
@@ -100,16 +96,16 @@ export async function updateLesion(scope: SiteScope, visitId: string, lesionId: 
       throw new AppError("invalid", undefined, { clockEndH: [FULL_CIRCLE_ONLY_MESSAGE] });
     }
     const zone = zoneFor(boundsOf(visit.zoneBounds), start, end);
-    // The update, the audit and the lesion as saved: sent together, in the order they are started
-    // here on the transaction's one connection (so the update is started with execute(), not left
-    // for Promise.all to start after the others). Should the update match no row, the transaction
-    // is rolled back with the rest.
-    const [updated, , lesion] = await Promise.all([
-      updateLesionRow(tx, lesionId, version, { ...fields, ...(trackId !== undefined ? { trackId } : {}), zone }),
-      recordAudit({ userId: scope.userId, siteId: visit.siteId, patientId: visit.patientId, action: "lesion.update", entityType: "lesion", entityId: lesionId, ip, detail: { ...input } }, tx),
-      fetchLesion(tx, lesionId),
-    ]);
-    if (updated.length === 0) throw new AppError("conflict");
+    // The update, its audit and the lesion as saved: one statement. Should the version have moved
+    // on, it writes nothing.
+    const lesion = await updateLesionWithAudit(
+      tx,
+      lesionId,
+      version,
+      { ...fields, ...(trackId !== undefined ? { trackId } : {}), zone },
+      { userId: scope.userId, siteId: visit.siteId, patientId: visit.patientId, action: "lesion.update", entityType: "lesion", entityId: lesionId, ip, detail: { ...input } },
+    );
+    if (!lesion) throw new AppError("conflict");
     return lesion;
   });
 }

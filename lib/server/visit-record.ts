@@ -2,14 +2,11 @@ import "server-only";
 import { db } from "@/db/client";
 import { getVisitRecord, readVisitRecord, saveExam, type VisitRecord } from "@/db/queries/visit-record";
 import { lockDraftVisitForExam } from "@/db/queries/visit-access";
-import { lockPatientStatusesOfVisit } from "@/db/queries/patient-lock";
 import { recordAudit } from "@/db/queries/audit-write";
 import type { SiteScope } from "@/db/queries/scope";
 import { AppError } from "@/lib/errors";
 import type { ExamDetailsInput } from "@/lib/validation/visit-record";
 import { careDayProblem } from "@/lib/validation/dates";
-import { birthDateOfVisitPatient } from "@/db/queries/visits";
-import { refreshTrackStatuses } from "./track-statuses";
 
 /** The visit record, the read audited. */
 export async function readVisit(scope: SiteScope, visitId: string, ip: string): Promise<VisitRecord> {
@@ -34,20 +31,20 @@ function unchangedExam(f: Omit<ExamDetailsInput, "version">, v: StoredExam): boo
 
 /**
  * Saves the exam details if nobody saved since the caller loaded them (optimistic version).
- * A changed date re-orders the patient's visits, so track statuses are recomputed. The change is
- * audited in the same transaction; returns the visit record as saved.
+ * The change is audited in the same transaction; returns the visit record as saved.
  */
 export async function updateExamDetails(scope: SiteScope, visitId: string, input: ExamDetailsInput, ip: string): Promise<VisitRecord> {
   return db.transaction(async (tx) => {
-    // The patient's status lock first (a changed date re-orders the visits), in the same round trip.
-    const [, v] = await Promise.all([lockPatientStatusesOfVisit(tx, scope, visitId), lockDraftVisitForExam(tx, scope, visitId)]);
+    // Only a draft's exam is saved here, and a draft drives no track status (statuses come from
+    // signed visits): no status lock, and a changed date re-orders nothing that is stored.
+    const v = await lockDraftVisitForExam(tx, scope, visitId);
     if (v.version !== input.version) throw new AppError("conflict");
     const { version, ...fields } = input;
-    // A save whose values all equal the stored ones changes nothing: no new version, no audit row,
-    // no status work; the record is answered as it is.
+    // A save whose values all equal the stored ones changes nothing: no new version, no audit row;
+    // the record is answered as it is.
     if (unchangedExam(fields, v)) return readVisitRecord(tx, scope, v.id);
-    // The schema bounds the days by today; the patient's birth is known only here.
-    const birthDate = await birthDateOfVisitPatient(tx, v.id);
+    // The schema bounds the days by today; the patient's birth (read with the lock) bounds them here.
+    const birthDate = v.patientBirthDate;
     const fieldProblems: Record<string, string[]> = {};
     for (const key of ["visitDate", "examStartedAt", "examEndedAt"] as const) {
       const value = fields[key];
@@ -78,8 +75,6 @@ export async function updateExamDetails(scope: SiteScope, visitId: string, input
       recordAudit({ userId: scope.userId, siteId: v.siteId, patientId: v.patientId, action: "visit.exam.update", entityType: "visit", entityId: v.id, ip, detail: { fields: Object.keys(fields), version: saved.version } }, tx),
       readVisitRecord(tx, scope, v.id),
     ]);
-    // A changed date re-orders the patient's visits.
-    if (fields.visitDate !== v.visitDate) await refreshTrackStatuses(tx, v.patientId, v.siteId);
     return record;
   });
 }
