@@ -34,13 +34,21 @@ export function assembleTimeline(rows: TimelineRows) {
   }
   const grades = lesionGrades(lesionRows, biopsyRows);
   const treatedLesions = new Set(treatmentRows.map((t) => t.lesionId).filter(Boolean));
+  // Written out field by field: an object spread here cost several times the rest of the assembly
+  // for a 1,200-lesion timeline (npm run bench, timeline GET).
   const lesionDtos = lesionRows.map((l) => {
     const { histology, effectiveGrade } = grades.get(l.id)!;
-    return { ...l, histology, effectiveGrade, biopsyLabels: biopsyLabels.get(l.id) ?? [], treated: treatedLesions.has(l.id) };
+    return {
+      id: l.id, visitId: l.visitId, trackId: l.trackId, label: l.label, clockStartH: l.clockStartH, clockEndH: l.clockEndH,
+      distanceStartCm: l.distanceStartCm, distanceEndCm: l.distanceEndCm, zone: l.zone, grade: l.grade, version: l.version,
+      histology, effectiveGrade, biopsyLabels: biopsyLabels.get(l.id) ?? [], treated: treatedLesions.has(l.id),
+    };
   });
 
+  const byVisit = new Map<string, typeof lesionDtos>(visitRows.map((v) => [v.id, []]));
+  for (const l of lesionDtos) byVisit.get(l.visitId)?.push(l);
   const perVisit = visitRows.map((v) => {
-    const mine = lesionDtos.filter((l) => l.visitId === v.id);
+    const mine = byVisit.get(v.id)!;
     const counts: Record<string, number> = {};
     for (const l of mine) counts[l.effectiveGrade] = (counts[l.effectiveGrade] ?? 0) + 1;
     const arcs = treatmentRows.filter((t) => t.visitId === v.id).flatMap((t) => t.arcs);

@@ -2,6 +2,7 @@
 // them (a lossless encoding: common practice, no source), whatever the values: nulls, yes/no,
 // fractional clock hours, repeated and unique words.
 import { describe, expect, it } from "vitest";
+import fc from "fast-check";
 import { assembleTimeline, type TimelineRows } from "./assemble";
 import { decodeTimeline, encodeTimeline, packUuid, unpackUuid } from "./wire";
 
@@ -40,6 +41,21 @@ describe("timeline wire form", () => {
       expect(unpackUuid(packUuid(id))).toBe(id);
     }
     for (const id of ["not-a-uuid", "ABCDEFAB-CDEF-4ABC-8DEF-ABCDEFABCDEF", "x".repeat(22)]) expect(unpackUuid(packUuid(id))).toBe(id);
+  });
+
+  it("packs any uuid into 22 characters and back exactly", () => {
+    fc.assert(
+      fc.property(fc.uuid(), (id) => {
+        expect(packUuid(id)).toMatch(/^[A-Za-z0-9_-]{22}$/);
+        expect(unpackUuid(packUuid(id))).toBe(id);
+      }),
+      { numRuns: 500 },
+    );
+  });
+
+  it("carries every field of each lesion row into the assembled lesion", () => {
+    const assembled = assembleTimeline(rows);
+    rows.lesions.forEach((row, i) => expect(assembled.lesions[i]).toMatchObject(row));
   });
 
   it("refuses a format it does not know", () => {

@@ -39,14 +39,26 @@ const IDS = new Set(["id"]);
 const B64 = "ABCDEFGHIJKLMNOPQRSTUVWXYZabcdefghijklmnopqrstuvwxyz0123456789-_";
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/;
 
+// Hex digit values by character code (-1 for anything else).
+const HEX = new Int8Array(128).fill(-1);
+for (let i = 0; i < 16; i++) HEX["0123456789abcdef".charCodeAt(i)] = i;
+
 /** A lowercase uuid as 22 base64url characters; anything else as "~" and itself. */
 export function packUuid(id: string): string {
   if (!UUID.test(id)) return `~${id}`;
-  const hex = id.replace(/-/g, "") + "0"; // 128 bits + 4 = 132 bits = 22 sextets
+  // The 32 hex digits and a 0 (128 bits + 4 = 132 bits = 22 sextets), three digits at a time.
   let out = "";
-  for (let i = 0; i < hex.length; i += 3) {
-    const n = parseInt(hex.slice(i, i + 3), 16);
-    out += B64[n >> 6]! + B64[n & 63]!;
+  let n = 0;
+  let digits = 0;
+  for (let i = 0; i <= 36; i++) {
+    const v = i === 36 ? 0 : HEX[id.charCodeAt(i)]!;
+    if (v < 0) continue; // a hyphen
+    n = (n << 4) | v;
+    if (++digits === 3) {
+      out += B64[n >> 6]! + B64[n & 63]!;
+      n = 0;
+      digits = 0;
+    }
   }
   return out;
 }
@@ -62,11 +74,12 @@ export function unpackUuid(packed: string): string {
   return `${hex.slice(0, 8)}-${hex.slice(8, 12)}-${hex.slice(12, 16)}-${hex.slice(16, 20)}-${hex.slice(20)}`;
 }
 
-function encodeValue(key: string, v: unknown, words: (s: string) => number): unknown {
-  if (WORDS.has(key)) return typeof v === "string" ? words(v) : v === null ? -1 : v;
-  if (FLAGS.has(key) && typeof v === "boolean") return v ? 1 : 0;
-  if (IDS.has(key) && typeof v === "string") return packUuid(v);
-  return v;
+/** How one field's values are written: chosen once per column, not per value. */
+function encoderOf(key: string, words: (s: string) => number): (v: unknown) => unknown {
+  if (WORDS.has(key)) return (v) => (typeof v === "string" ? words(v) : v === null ? -1 : v);
+  if (FLAGS.has(key)) return (v) => (typeof v === "boolean" ? (v ? 1 : 0) : v);
+  if (IDS.has(key)) return (v) => (typeof v === "string" ? packUuid(v) : v);
+  return (v) => v;
 }
 
 function decodeValue(key: string, v: unknown, d: readonly string[]): unknown {
@@ -78,7 +91,10 @@ function decodeValue(key: string, v: unknown, d: readonly string[]): unknown {
 
 function encodeTable(rows: readonly object[], words: (s: string) => number): WireTable {
   const k = rows.length ? Object.keys(rows[0]!) : [];
-  const c = k.map((key) => rows.map((r) => encodeValue(key, (r as Row)[key], words)));
+  const c = k.map((key) => {
+    const encode = encoderOf(key, words);
+    return rows.map((r) => encode((r as Row)[key]));
+  });
   return { k, c };
 }
 
