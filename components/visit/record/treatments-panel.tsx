@@ -10,6 +10,7 @@ import type { DisplayConvention } from "@/lib/geometry";
 import { cancerCautionMessage, cancerLesionsReached, gateExtent, isTopical } from "@/lib/validation/treatments";
 import { ArcInputs, describeArc, toArcDraft, toStoredArcs, type ArcDraft } from "./arc-inputs";
 import { LesionCoverage, partialCoverAnswers } from "./lesion-coverage";
+import { ExtentWhy } from "./extent-why";
 import { Field, FormError, inputClass, Section } from "./field";
 import { MODALITY_WORDS } from "@/lib/domain/labels";
 import { api } from "@/components/data/keys";
@@ -17,14 +18,6 @@ import { api } from "@/components/data/keys";
 interface TreatmentRow { id: string; lesionId: string | null; lesionLabel: string | null; treatedLesionIds: string[]; modality: Modality; regimen: string | null; arcs: { startH: number; endH: number }[]; extentOverrideReason: string | null; cancerOverrideReason: string | null; note: string | null }
 interface TreatmentsDto { treatments: TreatmentRow[]; extent: ExtentAssessment; cautionFraction: number }
 interface LesionsDto { lesions: { id: string; label: string; grade: Grade; clockStartH: number; clockEndH: number; histology: Histology | null }[] }
-
-/** Why the caution exists and who decides, said every time it shows. */
-export function ExtentWhy({ cautionFraction }: { cautionFraction: number }) {
-  return (
-    <p>Staged treatment is planned for circumferential disease because of the risk of narrowing (Pineda CE et al., J Gastrointest Surg 2007).
-      This clinic&apos;s caution level is {Math.round(cautionFraction * 100)}% of the circumference, a figure set per site; your local protocol and the treating clinician decide.</p>
-  );
-}
 
 export function TreatmentsPanel({ visitId, canEdit, conv }: { visitId: string; canEdit: boolean; conv: DisplayConvention }) {
   const key = api.visitPart(visitId, "treatments");

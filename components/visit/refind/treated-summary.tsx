@@ -1,6 +1,6 @@
 "use client";
 import { Caution } from "@/components/ui/caution";
-import { ExtentWhy } from "@/components/visit/record/treatments-panel";
+import { ExtentWhy } from "@/components/visit/record/extent-why";
 import type { TreatmentsView } from "./use-treated-arcs";
 
 /** The treated share of the circumference under the map; the server's caution when it is large. */
