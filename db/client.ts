@@ -1,4 +1,6 @@
 import "server-only";
+import { fillPlaceholders, type SQL } from "drizzle-orm";
+import { PgDialect } from "drizzle-orm/pg-core";
 import { drizzle } from "drizzle-orm/postgres-js";
 import postgres from "postgres";
 import * as schema from "./schema";
@@ -155,6 +157,23 @@ export function prepared<Q extends { execute(values?: Record<string, unknown>): 
     const client = (run._.session as unknown as { client: unknown }).client;
     const query = run === db ? onPool : (Object.create(onPool, { client: { value: client } }) as Q);
     return query.execute(values) as ReturnType<Q["execute"]>;
+  };
+}
+
+const sqlDialect = new PgDialect();
+
+/**
+ * `prepared` for a statement written as SQL (data-modifying CTEs, which drizzle's builders do not
+ * express): rendered once, with `dsql.placeholder("name")` for its values; each call fills them in
+ * and runs it on the pool or in the transaction given. Rows come back as the statement names its
+ * columns (alias them as the caller's fields).
+ */
+export function preparedSql<Row>(statement: SQL): (run: Db | Tx, values: Record<string, unknown>) => Promise<Row[]> {
+  const query = sqlDialect.sqlToQuery(statement);
+  return async (run, values) => {
+    const client = (run._.session as unknown as { client: postgres.Sql }).client;
+    const rows = await client.unsafe(query.sql, fillPlaceholders(query.params, values) as postgres.ParameterOrJSON<never>[]);
+    return rows as unknown as Row[];
   };
 }
 

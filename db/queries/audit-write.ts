@@ -83,13 +83,12 @@ export function auditOfRead(run: Db | Tx, row: { siteId: SQL; patientId: SQL; en
 }
 
 /**
- * The audit of a write, as a statement to put in the write's own statement (a data-modifying CTE,
- * `with …, audit as (${auditOfWrite(e, dsql`from changed`)})`): one row for each row `source`
- * yields (`from <the CTE that wrote>`), so a write that changed nothing records nothing, and the
- * change and its audit are one statement, committed together.
+ * The audit of a write, as part of the write's own statement (a data-modifying CTE,
+ * `with …, audit as (${auditOfWrite(dsql`from changed`)})`): one row for each row `source` yields
+ * (`from <the CTE that wrote>`), so a write that changed nothing records nothing, and the change
+ * and its audit are one statement, committed together. Its values are the placeholders of
+ * `auditValues`, for a statement built once (`preparedSql`).
  */
-export function auditOfWrite(e: AuditInput, source: SQL): SQL {
-  const v = auditValues(e);
-  return dsql`insert into ${auditEvents} (user_id, site_id, patient_id, action, entity_type, entity_id, ip, detail) select ${v.auditUserId}::text, ${v.auditSiteId}::uuid, ${v.auditPatientId}::uuid, ${v.auditAction}::text, ${v.auditEntityType}::text, ${v.auditEntityId}::text, ${v.auditIp}::text, ${v.auditDetail}::jsonb ${source}`;
+export function auditOfWrite(source: SQL): SQL {
+  return dsql`insert into ${auditEvents} (user_id, site_id, patient_id, action, entity_type, entity_id, ip, detail) select ${ph("auditUserId")}::text, ${ph("auditSiteId")}::uuid, ${ph("auditPatientId")}::uuid, ${ph("auditAction")}::text, ${ph("auditEntityType")}::text, ${ph("auditEntityId")}::text, ${ph("auditIp")}::text, ${ph("auditDetail")}::jsonb ${source}`;
 }
-

@@ -1,11 +1,10 @@
 import "server-only";
 import { and, asc, eq, sql as dsql } from "drizzle-orm";
-import type { AnyPgColumn } from "drizzle-orm/pg-core";
-import { db, prepared, type Tx } from "../client";
+import { db, prepared, preparedSql, type Tx } from "../client";
 import { biopsies, lesions, lesionTracks, treatments } from "../schema";
 import { inScopeParam, pgArrayLiteral, siteIdsParam, type SiteScope } from "./scope";
 import { loadVisitAudited } from "./visit-access";
-import { auditOfWrite, type AuditInput, type ReadAudit } from "./audit-write";
+import { auditOfWrite, auditValues, type AuditInput, type ReadAudit } from "./audit-write";
 import type { Grade, Histology, Zone } from "@/lib/domain/vocab";
 import { worstHistology } from "@/lib/tracking/histories";
 import type { LesionDto, VisitMapDto } from "@/lib/validation/lesions";
@@ -89,6 +88,26 @@ export interface NewLesion {
   morphology: string | null; acetowhite: string | null; lugol: string | null; vessels: string[]; sizeMm: number | null; note: string | null; clientKey: string | null;
 }
 
+const ph = (name: string) => dsql.placeholder(name);
+const insertWithTrack = preparedSql<LesionRow>(dsql`
+    with track as (
+      insert into ${lesionTracks} (id, patient_id, site_id, label)
+      -- Same rule as lib/domain/track-label.ts nextTrackLabel ("#" and the next number); a test checks both.
+      select ${ph("trackId")}::uuid, ${ph("patientId")}::uuid, ${ph("siteId")}::uuid,
+        '#' || (select coalesce(max(substring(label from 2)::int), 0) + 1 from ${lesionTracks} where patient_id = ${ph("patientId")}::uuid and label ~ '^#[0-9]+$')
+      where not exists (select 1 from ${lesions} where visit_id = ${ph("visitId")}::uuid and client_key = ${ph("clientKey")}::uuid)
+      returning id, label
+    ), made as (
+      insert into ${lesions} (id, visit_id, site_id, track_id, label, clock_start_h, clock_end_h, distance_start_cm, distance_end_cm, zone, grade, morphology, acetowhite, lugol, vessels, size_mm, note, client_key)
+      select ${ph("id")}::uuid, ${ph("visitId")}::uuid, ${ph("siteId")}::uuid, track.id,
+        'L' || (select coalesce(max(substring(label from 2)::int), 0) + 1 from ${lesions} where visit_id = ${ph("visitId")}::uuid and label ~ '^L[0-9]+$'),
+        ${ph("clockStartH")}::float8, ${ph("clockEndH")}::float8, ${ph("distanceStartCm")}::float8, ${ph("distanceEndCm")}::float8, ${ph("zone")}::zone, ${ph("grade")}::grade,
+        ${ph("morphology")}::morphology, ${ph("acetowhite")}::acetowhite, ${ph("lugol")}::lugol, ${ph("vessels")}::text[], ${ph("sizeMm")}::float8, ${ph("note")}::text, ${ph("clientKey")}::uuid
+      from track
+      returning *
+    ), audit as (${auditOfWrite(dsql`from made`)})
+    select ${writtenColumns(lesionColumns)} from made as "lesions" inner join track as "lesion_tracks" on true`);
+
 /**
  * A new lesion on a track of its own, and its audit, in one statement (one round trip). The track
  * gets the patient's next label, the lesion the visit's next (the caller holds the visit and the
@@ -97,27 +116,10 @@ export interface NewLesion {
  * with a snapshot that sees the first create.
  */
 export async function insertLesionWithTrack(tx: Tx, l: NewLesion, audit: AuditInput): Promise<LesionRow | null> {
-  const rows = await tx.execute<LesionRow>(dsql`
-    with track as (
-      insert into ${lesionTracks} (id, patient_id, site_id, label)
-      -- Same rule as lib/domain/track-label.ts nextTrackLabel ("#" and the next number); a test checks both.
-      select ${l.trackId}::uuid, ${l.patientId}::uuid, ${l.siteId}::uuid,
-        '#' || (select coalesce(max(substring(label from 2)::int), 0) + 1 from ${lesionTracks} where patient_id = ${l.patientId}::uuid and label ~ '^#[0-9]+$')
-      where not exists (select 1 from ${lesions} where visit_id = ${l.visitId}::uuid and client_key = ${l.clientKey}::uuid)
-      returning id, label
-    ), made as (
-      insert into ${lesions} (id, visit_id, site_id, track_id, label, clock_start_h, clock_end_h, distance_start_cm, distance_end_cm, zone, grade, morphology, acetowhite, lugol, vessels, size_mm, note, client_key)
-      select ${l.id}::uuid, ${l.visitId}::uuid, ${l.siteId}::uuid, track.id,
-        'L' || (select coalesce(max(substring(label from 2)::int), 0) + 1 from ${lesions} where visit_id = ${l.visitId}::uuid and label ~ '^L[0-9]+$'),
-        ${l.clockStartH}::float8, ${l.clockEndH}::float8, ${l.distanceStartCm}::float8, ${l.distanceEndCm}::float8, ${l.zone}::zone, ${l.grade}::grade,
-        ${l.morphology}::morphology, ${l.acetowhite}::acetowhite, ${l.lugol}::lugol, ${pgArrayLiteral(l.vessels)}::text[], ${l.sizeMm}::float8, ${l.note}::text, ${l.clientKey}::uuid
-      from track
-      returning *
-    ), audit as (${auditOfWrite(audit, dsql`from made`)})
-    select ${writtenColumns(lesionColumns)} from made as "lesions" inner join track as "lesion_tracks" on true`);
-  return rows[0] ?? null;
+  const [row] = await insertWithTrack(tx, { ...l, vessels: pgArrayLiteral(l.vessels), ...auditValues(audit) });
+  return row ?? null;
 }
-const ph = (name: string) => dsql.placeholder(name);
+
 export const lesionByClientKey = prepared((run) =>
   run.select({ id: lesions.id }).from(lesions).where(and(eq(lesions.visitId, ph("visitId")), eq(lesions.clientKey, ph("clientKey")))),
 );
@@ -129,26 +131,32 @@ export async function trackOfPatient(tx: Tx, trackId: string, patientId: string)
   return track ?? null;
 }
 
+// Every field a lesion update may change is written each time (the service sends the stored
+// value for a field left out), so the statement is one text, built once.
+const updateWithAudit = preparedSql<DecoratedRow>(dsql`
+    with changed as (
+      update ${lesions} set track_id = ${ph("trackId")}::uuid, clock_start_h = ${ph("clockStartH")}::float8, clock_end_h = ${ph("clockEndH")}::float8,
+        distance_start_cm = ${ph("distanceStartCm")}::float8, distance_end_cm = ${ph("distanceEndCm")}::float8, zone = ${ph("zone")}::zone, grade = ${ph("grade")}::grade,
+        morphology = ${ph("morphology")}::morphology, acetowhite = ${ph("acetowhite")}::acetowhite, lugol = ${ph("lugol")}::lugol, vessels = ${ph("vessels")}::text[],
+        size_mm = ${ph("sizeMm")}::float8, note = ${ph("note")}::text, version = version + 1, updated_at = now()
+      where id = ${ph("lesionId")}::uuid and version = ${ph("version")}::int
+      returning *
+    ), audit as (${auditOfWrite(dsql`from changed`)})
+    select ${writtenColumns({ ...lesionColumns, ...decorationColumns })} from changed as "lesions" left join ${lesionTracks} on ${lesionTracks.id} = "lesions"."track_id"`);
+
+/** A lesion's editable fields as they are to be stored. */
+export interface LesionFields {
+  trackId: string | null; clockStartH: number; clockEndH: number; distanceStartCm: number; distanceEndCm: number; zone: Zone; grade: Grade;
+  morphology: string | null; acetowhite: string | null; lugol: string | null; vessels: string[]; sizeMm: number | null; note: string | null;
+}
+
 /**
- * Writes a lesion's new values if its version is still `version`, with its audit, and answers the
+ * Writes a lesion's fields if its version is still `version`, with its audit, and answers the
  * lesion as saved (as the map shows it), in one statement; null when the version had moved on.
  */
-export async function updateLesionWithAudit(tx: Tx, lesionId: string, version: number, set: Partial<typeof lesions.$inferInsert>, audit: AuditInput): Promise<LesionDto | null> {
-  const assignments = Object.entries(set)
-    .filter(([, value]) => value !== undefined)
-    .map(([key, value]) => {
-      const column = lesions[key as keyof typeof set & keyof typeof lesions] as AnyPgColumn;
-      const bound = key === "vessels" ? dsql`${pgArrayLiteral(value as string[])}::text[]` : dsql`${value}`;
-      return dsql`${dsql.identifier(column.name)} = ${bound}`;
-    });
-  const rows = await tx.execute<DecoratedRow>(dsql`
-    with changed as (
-      update ${lesions} set ${dsql.join([...assignments, dsql`version = ${version + 1}`, dsql`updated_at = now()`], dsql`, `)}
-      where id = ${lesionId}::uuid and version = ${version}
-      returning *
-    ), audit as (${auditOfWrite(audit, dsql`from changed`)})
-    select ${writtenColumns({ ...lesionColumns, ...decorationColumns })} from changed as "lesions" left join ${lesionTracks} on ${lesionTracks.id} = "lesions"."track_id"`);
-  return rows[0] ? toDto(rows[0]) : null;
+export async function updateLesionWithAudit(tx: Tx, lesionId: string, version: number, fields: LesionFields, audit: AuditInput): Promise<LesionDto | null> {
+  const [row] = await updateWithAudit(tx, { ...fields, vessels: pgArrayLiteral(fields.vessels), lesionId, version, ...auditValues(audit) });
+  return row ? toDto(row) : null;
 }
 
 export async function deleteLesionRow(tx: Tx, lesionId: string): Promise<void> {

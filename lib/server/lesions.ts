@@ -102,7 +102,22 @@ export async function updateLesion(scope: SiteScope, visitId: string, lesionId: 
       tx,
       lesionId,
       version,
-      { ...fields, ...(trackId !== undefined ? { trackId } : {}), zone },
+      {
+        // A field the update leaves out keeps its stored value (null clears one).
+        trackId: trackId !== undefined ? trackId : current.trackId,
+        clockStartH: fields.clockStartH ?? current.clockStartH,
+        clockEndH: fields.clockEndH ?? current.clockEndH,
+        distanceStartCm: start,
+        distanceEndCm: end,
+        zone,
+        grade: fields.grade ?? current.grade,
+        morphology: fields.morphology !== undefined ? fields.morphology : current.morphology,
+        acetowhite: fields.acetowhite !== undefined ? fields.acetowhite : current.acetowhite,
+        lugol: fields.lugol !== undefined ? fields.lugol : current.lugol,
+        vessels: fields.vessels !== undefined ? fields.vessels : (current.vessels as string[]),
+        sizeMm: fields.sizeMm !== undefined ? fields.sizeMm : current.sizeMm,
+        note: fields.note !== undefined ? fields.note : current.note,
+      },
       { userId: scope.userId, siteId: visit.siteId, patientId: visit.patientId, action: "lesion.update", entityType: "lesion", entityId: lesionId, ip, detail: { ...input } },
     );
     if (!lesion) throw new AppError("conflict");
