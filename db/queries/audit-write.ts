@@ -77,9 +77,7 @@ export async function recordAudits(events: AuditInput[], run: Db | Tx = db): Pro
  * `row` gives the record's columns; the caller's values go in as `auditValues(audit)`.
  */
 export function auditOfRead(run: Db | Tx, row: { siteId: SQL; patientId: SQL; entityId: SQL }, source: SQL) {
-  return run.$with("audit_of_read", {}).as(
-    dsql`insert into ${auditEvents} (user_id, site_id, patient_id, action, entity_type, entity_id, ip, detail) select ${ph("auditUserId")}::text, ${row.siteId}, ${row.patientId}, ${ph("auditAction")}::text, ${ph("auditEntityType")}::text, ${row.entityId}, ${ph("auditIp")}::text, ${ph("auditDetail")}::jsonb ${source}`,
-  );
+  return run.$with("audit_of_read", {}).as(auditInsert(row, source));
 }
 
 /**
@@ -90,5 +88,10 @@ export function auditOfRead(run: Db | Tx, row: { siteId: SQL; patientId: SQL; en
  * `auditValues`, for a statement built once (`preparedSql`).
  */
 export function auditOfWrite(source: SQL): SQL {
-  return dsql`insert into ${auditEvents} (user_id, site_id, patient_id, action, entity_type, entity_id, ip, detail) select ${ph("auditUserId")}::text, ${ph("auditSiteId")}::uuid, ${ph("auditPatientId")}::uuid, ${ph("auditAction")}::text, ${ph("auditEntityType")}::text, ${ph("auditEntityId")}::text, ${ph("auditIp")}::text, ${ph("auditDetail")}::jsonb ${source}`;
+  return auditInsert({ siteId: dsql`${ph("auditSiteId")}::uuid`, patientId: dsql`${ph("auditPatientId")}::uuid`, entityId: dsql`${ph("auditEntityId")}::text` }, source);
+}
+
+/** One audit row for each row of `source`: the caller's values as `auditValues` placeholders, site, patient and entity as given. */
+function auditInsert(row: { siteId: SQL; patientId: SQL; entityId: SQL }, source: SQL): SQL {
+  return dsql`insert into ${auditEvents} (user_id, site_id, patient_id, action, entity_type, entity_id, ip, detail) select ${ph("auditUserId")}::text, ${row.siteId}, ${row.patientId}, ${ph("auditAction")}::text, ${ph("auditEntityType")}::text, ${row.entityId}, ${ph("auditIp")}::text, ${ph("auditDetail")}::jsonb ${source}`;
 }

@@ -72,6 +72,11 @@ export async function createLesion(scope: SiteScope, visitId: string, input: Cre
   });
 }
 
+/** The fields an update sends, without those it leaves out. */
+function definedOnly<T extends object>(fields: T): Partial<T> {
+  return Object.fromEntries(Object.entries(fields).filter(([, v]) => v !== undefined)) as Partial<T>;
+}
+
 /** Whether every value an update sends equals the stored one (a field left out is unchanged). */
 function unchanged(input: UpdateLesionInput, current: Record<string, unknown>): boolean {
   return Object.entries(input).every(([field, value]) => field === "version" || value === undefined || JSON.stringify(value) === JSON.stringify(current[field] ?? null));
@@ -102,22 +107,9 @@ export async function updateLesion(scope: SiteScope, visitId: string, lesionId: 
       tx,
       lesionId,
       version,
-      {
-        // A field the update leaves out keeps its stored value (null clears one).
-        trackId: trackId !== undefined ? trackId : current.trackId,
-        clockStartH: fields.clockStartH ?? current.clockStartH,
-        clockEndH: fields.clockEndH ?? current.clockEndH,
-        distanceStartCm: start,
-        distanceEndCm: end,
-        zone,
-        grade: fields.grade ?? current.grade,
-        morphology: fields.morphology !== undefined ? fields.morphology : current.morphology,
-        acetowhite: fields.acetowhite !== undefined ? fields.acetowhite : current.acetowhite,
-        lugol: fields.lugol !== undefined ? fields.lugol : current.lugol,
-        vessels: fields.vessels !== undefined ? fields.vessels : (current.vessels as string[]),
-        sizeMm: fields.sizeMm !== undefined ? fields.sizeMm : current.sizeMm,
-        note: fields.note !== undefined ? fields.note : current.note,
-      },
+      // A field the update leaves out keeps its stored value (null clears one).
+      // (`current` also carries the lesion's id and version; the statement takes neither from here.)
+      { ...current, vessels: current.vessels as string[], ...definedOnly(fields), ...(trackId !== undefined ? { trackId } : {}), distanceStartCm: start, distanceEndCm: end, zone },
       { userId: scope.userId, siteId: visit.siteId, patientId: visit.patientId, action: "lesion.update", entityType: "lesion", entityId: lesionId, ip, detail: { ...input } },
     );
     if (!lesion) throw new AppError("conflict");

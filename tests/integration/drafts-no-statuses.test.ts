@@ -30,14 +30,19 @@ const lesionAt = async (visitId: string, grade = "hsil") =>
 const signReq = (visitId: string) => sign(req("POST", "/x", clinician), ctx({ visitId }));
 const statusesOf = async (trackId: string) =>
   (await db.select({ visitId: trackStatuses.visitId, status: trackStatuses.status }).from(trackStatuses).where(eq(trackStatuses.trackId, trackId)));
+/** A new patient whose first visit found HSIL, treated it and was signed. */
+async function treatedAndSigned() {
+  const patientId = (await makePatient(siteId)).id;
+  const v1 = await draft(patientId, "2025-01-10");
+  const a = await lesionAt(v1);
+  await db.insert(treatments).values({ visitId: v1, siteId, lesionId: a.id, modality: "laser", arcs: [{ startH: 2, endH: 3 }], treatedFraction: 1 / 12 });
+  expect((await signReq(v1)).status).toBe(200);
+  return { patientId, v1, a };
+}
 
 describe("a draft visit drives no status", () => {
   it("a draft's 'not found' neither clears the treated track nor makes the next signed finding recurrent", async () => {
-    const patientId = (await makePatient(siteId)).id;
-    const v1 = await draft(patientId, "2025-01-10");
-    const a = await lesionAt(v1);
-    await db.insert(treatments).values({ visitId: v1, siteId, lesionId: a.id, modality: "laser", arcs: [{ startH: 2, endH: 3 }], treatedFraction: 1 / 12 });
-    expect((await signReq(v1)).status).toBe(200);
+    const { patientId, v1, a } = await treatedAndSigned();
 
     // An unsigned draft between two signed visits, with the track marked not found.
     const v2 = await draft(patientId, "2025-07-10");
@@ -60,13 +65,9 @@ describe("a draft visit drives no status", () => {
   });
 
   it("an empty draft after a treated visit gives no clearance; signing it asks for the decision first", async () => {
-    const patientId = (await makePatient(siteId)).id;
-    const v1 = await draft(patientId, "2025-01-10");
-    const a = await lesionAt(v1);
-    await db.insert(treatments).values({ visitId: v1, siteId, lesionId: a.id, modality: "laser", arcs: [{ startH: 2, endH: 3 }], treatedFraction: 1 / 12 });
-    expect((await signReq(v1)).status).toBe(200);
+    const { patientId, a } = await treatedAndSigned();
     const v2 = await draft(patientId, "2025-07-10");
-    await lesionAt(v2, "lsil"); // a lesion elsewhere on its own track: a write that refreshes statuses
+    await lesionAt(v2, "lsil"); // a lesion elsewhere on its own track, written on the draft
     expect((await statusesOf(a.trackId)).map((r) => r.status)).toEqual(["new"]);
     expect((await signReq(v2)).status).toBe(409);
   });
